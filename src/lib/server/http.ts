@@ -1,0 +1,87 @@
+import { json } from '@sveltejs/kit';
+import type { z } from 'zod';
+
+/** The error shape fixed by API.md for every JSON route. */
+export interface ApiErrorBody {
+	error: { message: string; issues: { path: string[]; message: string }[] };
+}
+
+export function apiError(
+	status: number,
+	message: string,
+	issues: { path: string[]; message: string }[] = [],
+	extra: Record<string, unknown> = {}
+) {
+	return json({ error: { message, issues }, ...extra } satisfies ApiErrorBody, { status });
+}
+
+/** Turns a zod error into API.md's 400 answer, naming every field at fault. */
+export function zodErrorResponse(error: z.ZodError) {
+	const issues = error.issues.map((issue) => ({
+		path: issue.path.map(String),
+		message: issue.message
+	}));
+	const first = issues[0];
+	const where = first && first.path.length ? `${first.path.join('.')}: ` : '';
+	return apiError(400, `Invalid input. ${where}${first?.message ?? 'check the body'}`, issues);
+}
+
+export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+
+type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
+
+/**
+ * Reads a JSON body with a size limit and validates it with `schema`.
+ * Oversized bodies get 413, unreadable JSON and schema failures get 400; nothing here can throw a 500.
+ */
+export async function parseJsonBody<S extends z.ZodType>(
+	request: Request,
+	schema: S,
+	maxBytes = DEFAULT_MAX_BODY_BYTES
+): Promise<ParseResult<z.output<S>>> {
+	const declared = Number(request.headers.get('content-length') ?? '0');
+	if (declared > maxBytes) {
+		return { ok: false, response: apiError(413, `Body too large: at most ${maxBytes} bytes.`) };
+	}
+	let text: string;
+	try {
+		text = await readLimited(request, maxBytes);
+	} catch (e) {
+		if (e instanceof BodyTooLarge) {
+			return { ok: false, response: apiError(413, `Body too large: at most ${maxBytes} bytes.`) };
+		}
+		return { ok: false, response: apiError(400, 'The body could not be read.') };
+	}
+	let raw: unknown;
+	try {
+		raw = text.length ? JSON.parse(text) : undefined;
+	} catch {
+		return {
+			ok: false,
+			response: apiError(400, 'The body is not valid JSON.', [{ path: [], message: 'Expected a JSON object' }])
+		};
+	}
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) return { ok: false, response: zodErrorResponse(parsed.error) };
+	return { ok: true, data: parsed.data };
+}
+
+class BodyTooLarge extends Error {}
+
+async function readLimited(request: Request, maxBytes: number): Promise<string> {
+	if (!request.body) return '';
+	const reader = request.body.getReader();
+	const chunks: Uint8Array[] = [];
+	let total = 0;
+	for (;;) {
+		const { done, value } = await reader.read();
+		if (done) break;
+		total += value.byteLength;
+		if (total > maxBytes) {
+			await reader.cancel().catch(() => {});
+			throw new BodyTooLarge();
+		}
+		chunks.push(value);
+	}
+	return new TextDecoder().decode(Buffer.concat(chunks));
+}
