@@ -1,0 +1,184 @@
+/**
+ * Flash: the guide number scaled by ISO, power and losses; the aperture for a correct exposure; the
+ * offset at a set aperture; the power needed; the flash's third-stop power ladder; several flashes on
+ * one subject; and what high-speed sync costs.
+ *
+ * Guide number definition: GN = distance × f-number for a correct exposure, quoted at ISO 100 and full
+ * power. Exposure goes with GN², so GN scales with √(ISO/100) and √power, and a loss of L stops divides
+ * GN by 2^(L/2).
+ */
+import { flashNearLivingSubjectCaution, LIVING_SUBJECT_FLASH_DISTANCE_M } from './cautions';
+import { workingAperture } from './optics';
+
+export const LADDER_STEPS = 24; // full power down to 1/256 in thirds: 2^(−k/3), k = 0…24
+export const LOWEST_POWER = 2 ** (-LADDER_STEPS / 3);
+
+export interface GuideNumberInput {
+	guideNumber: number;
+	iso?: number;
+	power?: number;
+	lossStops?: number;
+}
+
+/** GN × √(ISO/100) × √power × 2^(−lossStops/2) (API.md). */
+export function effectiveGuideNumber({ guideNumber, iso = 100, power = 1, lossStops = 0 }: GuideNumberInput): number {
+	return guideNumber * Math.sqrt(iso / 100) * Math.sqrt(power) * 2 ** (-lossStops / 2);
+}
+
+/** The working f-number that gives a correct exposure at `distanceM`: GN_eff / d. */
+export function workingApertureForCorrect(effectiveGn: number, distanceM: number): number {
+	return effectiveGn / distanceM;
+}
+
+/** Exposure offset in stops at a working aperture, positive = over: 2·log2(N_correct / N_w). */
+export function flashExposureOffsetStops(workingApertureCorrect: number, workingApertureSet: number): number {
+	return 2 * Math.log2(workingApertureCorrect / workingApertureSet);
+}
+
+/**
+ * The exact power fraction for a correct exposure at a working aperture (may exceed 1):
+ * (N_w · d / GN_full)², where GN_full is the guide number at this ISO and loss at full power.
+ */
+export function requiredPower(
+	input: Omit<GuideNumberInput, 'power'>,
+	distanceM: number,
+	workingApertureSet: number
+): number {
+	const fullPowerGn = effectiveGuideNumber({ ...input, power: 1 });
+	return ((workingApertureSet * distanceM) / fullPowerGn) ** 2;
+}
+
+export interface PowerStep {
+	/** Ladder index: fraction = 2^(−k/3). */
+	k: number;
+	fraction: number;
+	label: string;
+}
+
+/** Label of ladder step k: `1/1`, `1/2`, … `1/256` on whole stops; `1/8 +0.3`, `1/8 +0.7` between. */
+export function powerStepLabel(k: number): string {
+	const wholeBelow = Math.ceil(k / 3) * 3; // the whole stop at or below this step
+	const thirdsAbove = wholeBelow - k;
+	const base = `1/${2 ** (wholeBelow / 3)}`;
+	if (thirdsAbove === 0) return base;
+	return `${base} +${thirdsAbove === 1 ? '0.3' : '0.7'}`;
+}
+
+/** The ladder from full power (k = 0) to 1/256 (k = 24). */
+export const powerLadder: readonly PowerStep[] = Array.from({ length: LADDER_STEPS + 1 }, (_, k) => ({
+	k,
+	fraction: 2 ** (-k / 3),
+	label: powerStepLabel(k)
+}));
+
+export interface NearestPowerStep {
+	fraction: number;
+	label: string;
+	/** Exposure error left at this step, positive = over: log2(step / required). */
+	residualStops: number;
+}
+
+/**
+ * The ladder step nearest to `required` in stops: full power when more is needed, the lowest step when
+ * less is. Ties go to the stronger step.
+ */
+export function nearestPowerStep(required: number): NearestPowerStep {
+	const stopsDown = -Math.log2(required) * 3; // in thirds below full power
+	const k = Math.min(LADDER_STEPS, Math.max(0, Math.round(stopsDown - 1e-9)));
+	const step = powerLadder[k];
+	return { fraction: step.fraction, label: step.label, residualStops: Math.log2(step.fraction / required) };
+}
+
+/** Whether the flash can give exactly `required`: within full power and the lowest step. */
+export function powerWithinRange(required: number): boolean {
+	return required <= 1 + 1e-12 && required >= LOWEST_POWER * (1 - 1e-12);
+}
+
+/**
+ * Several flashes on one subject add their exposures (X ∝ GN²), so from the same distance their
+ * combined guide number is √(Σ GN²): two equal flashes give one stop more.
+ */
+export function combinedGuideNumber(guideNumbers: readonly number[]): number {
+	return Math.sqrt(guideNumbers.reduce((s, g) => s + g * g, 0));
+}
+
+/** Flash exposure in exposure units (1 = correct): (GN_eff / (d · N_w))². */
+export function flashExposure(effectiveGn: number, distanceM: number, workingApertureSet: number): number {
+	return (effectiveGn / (distanceM * workingApertureSet)) ** 2;
+}
+
+/**
+ * High-speed sync. Model (ours, stated): above the sync speed the flash fires a long run of pulses that
+ * lasts the whole travel of the shutter slit, so the sensor gets only the share of that light that
+ * passes while the slit is open, shutter/syncSpeed; and switching to pulsed output costs a further
+ * `entryLossStops` (common practice: about one stop; the flash's manual has the real figure).
+ * Exposure factor: 2^(−entry) × shutter/sync; the guide number factor is its square root.
+ */
+export const HSS_ENTRY_LOSS_STOPS = 1;
+
+export function highSpeedSyncFactor(shutterS: number, syncSpeedS: number, entryLossStops = HSS_ENTRY_LOSS_STOPS): number {
+	if (shutterS >= syncSpeedS) return 1;
+	return 2 ** -entryLossStops * (shutterS / syncSpeedS);
+}
+
+export function highSpeedSyncGuideNumber(
+	guideNumber: number,
+	shutterS: number,
+	syncSpeedS: number,
+	entryLossStops = HSS_ENTRY_LOSS_STOPS
+): number {
+	return guideNumber * Math.sqrt(highSpeedSyncFactor(shutterS, syncSpeedS, entryLossStops));
+}
+
+export interface FlashCalcInput {
+	guideNumber: number;
+	distance: number;
+	iso: number;
+	power: number;
+	lossStops: number;
+	magnification: number;
+	pupilMagnification: number;
+	aperture?: number;
+	/** Extra: the subject is a person or an animal (short-range flash caution). */
+	living?: boolean;
+}
+
+export interface FlashCalcResult {
+	effectiveGuideNumber: number;
+	workingApertureForCorrect: number;
+	markedApertureForCorrect: number;
+	bellowsFactor: number;
+	workingAperture?: number;
+	exposureOffsetStops?: number;
+	requiredPower?: number;
+	withinRange?: boolean;
+	nearestPowerStep?: NearestPowerStep;
+	cautions: string[];
+}
+
+/** `POST /api/v1/calc/flash` (API.md). */
+export function flashCalc(input: FlashCalcInput): FlashCalcResult {
+	const gn = effectiveGuideNumber(input);
+	const correctWorking = workingApertureForCorrect(gn, input.distance);
+	const factor = 1 + input.magnification / input.pupilMagnification;
+	const result: FlashCalcResult = {
+		effectiveGuideNumber: gn,
+		workingApertureForCorrect: correctWorking,
+		markedApertureForCorrect: correctWorking / factor,
+		bellowsFactor: factor * factor,
+		cautions:
+			input.living && input.distance < LIVING_SUBJECT_FLASH_DISTANCE_M
+				? [flashNearLivingSubjectCaution('flash', input.distance).message]
+				: []
+	};
+	if (input.aperture !== undefined) {
+		const wa = workingAperture(input.aperture, input.magnification, input.pupilMagnification);
+		const required = requiredPower(input, input.distance, wa);
+		result.workingAperture = wa;
+		result.exposureOffsetStops = flashExposureOffsetStops(correctWorking, wa);
+		result.requiredPower = required;
+		result.withinRange = powerWithinRange(required);
+		result.nearestPowerStep = nearestPowerStep(required);
+	}
+	return result;
+}

@@ -1,0 +1,282 @@
+/**
+ * The whole `POST /api/v1/exposure` computation of API.md: every light's exposure at the subject, the
+ * total, the key light and lighting ratio, the aperture table, warnings and cautions.
+ *
+ * Exposure units: X = 1 is a correct exposure at the working aperture; stops = log2(X).
+ *   flash:      X = (GN_eff / (d · N_w))²
+ *   continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250, losses applied
+ *   ambient:    X = 2^ev100 × (ISO/100) × t / N_w²
+ *   diffuse reflector (a Lambertian disc of the same area, r = √(A/π)):
+ *               X = ρ · X_at_card · cos θ_in · cos θ_out · r² / (r² + d₂²)
+ *   specular reflector: ρ × the source's X at the path d₁ + d₂ (ambient source: ρ × ambient X)
+ * Camera `lossStops` scale every light. A flag crossing a path in plan (x, y) stops that light.
+ * Where X is 0 (blocked, facing away), stops is null: JSON has no −Infinity.
+ */
+import { ambientExposure } from './ambient';
+import { sceneCautions } from './cautions';
+import { mixedLightWarning, mixedWhiteBalance, gelledKelvin, type WhiteBalanceMix } from './colour';
+import { effectiveGuideNumber, flashExposure, highSpeedSyncFactor, HSS_ENTRY_LOSS_STOPS } from './flash';
+import { formatFNumber, formatShutter, formatStops } from './format';
+import {
+	angleBetweenDeg,
+	beamFactor,
+	distanceM,
+	facingCosine,
+	plan,
+	segmentsIntersect,
+	subtract3,
+	type Vec3
+} from './geometry';
+import { airyDiskUm, closeUpDepthOfFieldMm, workingAperture } from './optics';
+import type { ContinuousLight, ExposureScene, FlashLight, Flag, SceneLight } from './schema';
+
+export const CONTINUOUS_CALIBRATION_C = 250;
+/** Beam angle assumed for a light given an `aim` but no beam angle (ours: a bare small flash head). */
+export const DEFAULT_BEAM_ANGLE_DEG = 60;
+export const DEFAULT_SYNC_SPEED_S = 1 / 200;
+export const DEFAULT_MIN_APERTURE = 2.8;
+export const DEFAULT_MAX_APERTURE = 32;
+export const EXPOSURE_WARNING_STOPS = 3;
+
+/**
+ * Third-stop marked apertures: the nominal labels and the exact values 2^(k/6). API.md's series runs
+ * from 2.8 (k = 9) to 45 (k = 33); it is extended down to f/1 and up to f/64 for cameras set outside it.
+ */
+const NOMINAL_APERTURES = [
+	1, 1.1, 1.2, 1.4, 1.6, 1.8, 2, 2.2, 2.5, 2.8, 3.2, 3.5, 4, 4.5, 5, 5.6, 6.3, 7.1, 8, 9, 10, 11, 13, 14, 16, 18, 20,
+	22, 25, 29, 32, 36, 40, 45, 51, 57, 64
+];
+export const THIRD_STOP_APERTURES: readonly { k: number; nominal: number; exact: number; label: string }[] =
+	NOMINAL_APERTURES.map((nominal, k) => ({ k, nominal, exact: 2 ** (k / 6), label: `f/${nominal}` }));
+
+export type LightGroup = 'flash' | 'ambient';
+
+export interface SceneLightResult {
+	id: string;
+	kind: SceneLight['kind'] | 'ambient';
+	x: number;
+	stops: number | null;
+	/** The straight path to the subject crosses a flag (in plan). */
+	blocked: boolean;
+	blockedBy?: string;
+	/** A reflector whose source is flagged off from it (unlit). */
+	sourceBlocked?: boolean;
+	/** Flash-timed light (flashes and their reflectors) or shutter-timed light (ambient, continuous). */
+	group: LightGroup;
+	distanceM?: number;
+}
+
+export interface ApertureRow {
+	aperture: number;
+	label: string;
+	workingAperture: number;
+	exposureOffsetStops: number | null;
+	flashOffsetStops: number | null;
+	ambientOffsetStops: number | null;
+	dofMm: number | null;
+	airyDiskUm: number;
+	diffractionLimited: boolean;
+}
+
+export interface ExposureResult {
+	workingAperture: number;
+	lights: SceneLightResult[];
+	total: { x: number; exposureOffsetStops: number | null };
+	keyLightId: string | null;
+	lightingRatio: number | null;
+	apertureTable: ApertureRow[];
+	whiteBalance: WhiteBalanceMix | null;
+	warnings: string[];
+	cautions: string[];
+	cautionDetails: ReturnType<typeof sceneCautions>;
+}
+
+const stopsOf = (x: number) => (x > 0 ? Math.log2(x) : null);
+
+function crossingFlag(a: Vec3, b: Vec3, flags: readonly Flag[]): string | undefined {
+	const pa = plan(a);
+	const pb = plan(b);
+	return flags.find((f) => segmentsIntersect(pa, pb, f.from, f.to))?.id;
+}
+
+export function computeExposure(scene: ExposureScene): ExposureResult {
+	const cam = scene.camera;
+	const P = cam.pupilMagnification ?? 1;
+	const coc = cam.cocMm ?? 0.03;
+	const lambda = cam.wavelengthNm ?? 550;
+	const sync = cam.syncSpeed ?? DEFAULT_SYNC_SPEED_S;
+	const wa = workingAperture(cam.aperture, cam.magnification, P);
+	const cameraFactor = 2 ** -(cam.lossStops ?? 0);
+	const subject = scene.subject.position as Vec3;
+	const flags = scene.flags ?? [];
+	const fasterThanSync = cam.shutter < sync;
+	const byId = new Map(scene.lights.map((l) => [l.id, l]));
+
+	/** Angular share of an emitter's output toward a point (1 when it has no beam). */
+	const beamToward = (light: FlashLight | ContinuousLight, point: Vec3) => {
+		if (light.aim === undefined && light.beamAngleDeg === undefined) return 1;
+		const pos = light.position as Vec3;
+		const axis = subtract3((light.aim ?? subject) as Vec3, pos);
+		return beamFactor(angleBetweenDeg(axis, subtract3(point, pos)), light.beamAngleDeg ?? DEFAULT_BEAM_ANGLE_DEG);
+	};
+	/** An emitter's X at a distance along a direction with angular factor `beam` (before camera loss). */
+	const emitterX = (light: FlashLight | ContinuousLight, dM: number, beam: number) => {
+		if (light.kind === 'flash') {
+			const gn = effectiveGuideNumber({ guideNumber: light.guideNumber, iso: cam.iso, power: light.power, lossStops: light.lossStops ?? 0 });
+			const hss = light.highSpeedSync && fasterThanSync ? highSpeedSyncFactor(cam.shutter, sync) : 1;
+			return beam * hss * flashExposure(gn, dM, wa);
+		}
+		const lux = (light.luxAt1m * 2 ** -(light.lossStops ?? 0)) / (dM * dM);
+		return (beam * lux * cam.iso * cam.shutter) / (CONTINUOUS_CALIBRATION_C * wa * wa);
+	};
+	const subjectCosine = (from: Vec3) =>
+		scene.subject.normal ? facingCosine(scene.subject.normal as Vec3, subtract3(from, subject)) : 1;
+	const ambientX = scene.ambient ? ambientExposure(scene.ambient.ev100, cam.iso, cam.shutter, wa) : 0;
+
+	const results: (SceneLightResult & { unblockedX: number })[] = [];
+	const kelvins: { kelvin: number | undefined; id: string }[] = [];
+	const lightKelvin = (l: FlashLight | ContinuousLight) =>
+		l.kelvin === undefined ? undefined : l.gelMired ? gelledKelvin(l.kelvin, l.gelMired) : l.kelvin;
+
+	for (const light of scene.lights) {
+		const pos = light.position as Vec3;
+		const d = distanceM(pos, subject);
+		const blockedBy = crossingFlag(pos, subject, flags);
+		let x: number;
+		let group: LightGroup;
+		let sourceBlocked: boolean | undefined;
+		if (light.kind !== 'reflector') {
+			x = emitterX(light, d, beamToward(light, subject)) * subjectCosine(pos);
+			group = light.kind === 'flash' ? 'flash' : 'ambient';
+			kelvins.push({ kelvin: lightKelvin(light), id: light.id });
+		} else {
+			const r2 = light.areaM2 / Math.PI;
+			const n = light.normal as Vec3 | undefined;
+			const cosOut = n ? facingCosine(n, subtract3(subject, pos)) : 1;
+			const rho = light.reflectance;
+			if (light.source === 'ambient') {
+				group = 'ambient';
+				kelvins.push({ kelvin: scene.ambient?.kelvin, id: light.id });
+				if (light.surface === 'diffuse') x = rho * ambientX * cosOut * (r2 / (r2 + d * d));
+				else x = cosOut > 0 ? rho * ambientX : 0;
+			} else {
+				// The schema guarantees the source exists and is an emitter.
+				const source = byId.get(light.source) as FlashLight | ContinuousLight;
+				const sPos = source.position as Vec3;
+				const d1 = distanceM(sPos, pos);
+				const cosIn = n ? facingCosine(n, subtract3(sPos, pos)) : 1;
+				group = source.kind === 'flash' ? 'flash' : 'ambient';
+				kelvins.push({ kelvin: lightKelvin(source), id: light.id });
+				sourceBlocked = crossingFlag(sPos, pos, flags) !== undefined;
+				const beam = beamToward(source, pos);
+				if (light.surface === 'diffuse') {
+					x = rho * emitterX(source, d1, beam) * cosIn * cosOut * (r2 / (r2 + d * d));
+				} else {
+					x = cosIn > 0 && cosOut > 0 ? rho * emitterX(source, d1 + d, beam) : 0;
+				}
+				if (sourceBlocked) x = 0;
+			}
+			x *= subjectCosine(pos);
+		}
+		x *= cameraFactor;
+		const unblockedX = x;
+		if (blockedBy) x = 0;
+		results.push({
+			id: light.id,
+			kind: light.kind,
+			x,
+			stops: stopsOf(x),
+			blocked: blockedBy !== undefined,
+			...(blockedBy !== undefined ? { blockedBy } : {}),
+			...(sourceBlocked !== undefined ? { sourceBlocked } : {}),
+			group,
+			distanceM: d,
+			unblockedX
+		});
+	}
+	if (scene.ambient) {
+		const x = ambientX * cameraFactor;
+		results.push({ id: 'ambient', kind: 'ambient', x, stops: stopsOf(x), blocked: false, group: 'ambient', unblockedX: x });
+		kelvins.push({ kelvin: scene.ambient.kelvin, id: 'ambient' });
+	}
+
+	const totalX = results.reduce((s, r) => s + r.x, 0);
+	const flashX = results.filter((r) => r.group === 'flash').reduce((s, r) => s + r.x, 0);
+	const shutterX = totalX - flashX;
+
+	const ranked = [...results].sort((a, b) => b.x - a.x);
+	const key = ranked[0] && ranked[0].x > 0 ? ranked[0] : undefined;
+	const runnerUp = ranked[1];
+	const lightingRatio = key && runnerUp && runnerUp.x > 0 ? key.x / runnerUp.x : null;
+
+	// The aperture table: every contribution scales with 1/N_w², so each row rescales the totals.
+	const minA = cam.minAperture ?? DEFAULT_MIN_APERTURE;
+	const maxA = cam.maxAperture ?? DEFAULT_MAX_APERTURE;
+	const tol = 1e-9;
+	const apertureTable: ApertureRow[] = THIRD_STOP_APERTURES.filter(
+		(a) => a.nominal >= minA * (1 - tol) - 0.001 && a.nominal <= maxA * (1 + tol) + 0.001
+	).map((a) => {
+		const rowWa = workingAperture(a.exact, cam.magnification, P);
+		const scale = (wa / rowWa) ** 2;
+		const airy = airyDiskUm(rowWa, lambda);
+		return {
+			aperture: a.exact,
+			label: a.label,
+			workingAperture: rowWa,
+			exposureOffsetStops: stopsOf(totalX * scale),
+			flashOffsetStops: stopsOf(flashX * scale),
+			ambientOffsetStops: stopsOf(shutterX * scale),
+			dofMm: cam.magnification > 0 ? closeUpDepthOfFieldMm(a.exact, cam.magnification, coc, P) : null,
+			airyDiskUm: airy,
+			diffractionLimited: airy > coc * 1000
+		};
+	});
+
+	const warnings: string[] = [];
+	const flashes = scene.lights.filter((l): l is FlashLight => l.kind === 'flash');
+	if (flashes.length && fasterThanSync) {
+		const hss = flashes.filter((f) => f.highSpeedSync).map((f) => f.id);
+		const plain = flashes.filter((f) => !f.highSpeedSync).map((f) => f.id);
+		const head = `Shutter ${formatShutter(cam.shutter)} is faster than the sync speed ${formatShutter(sync)}`;
+		if (plain.length) {
+			warnings.push(`${head}: flash ${plain.map((id) => `“${id}”`).join(', ')} will light only part of the frame. Use ${formatShutter(sync)} or slower, or high-speed sync.`);
+		}
+		if (hss.length) {
+			const cost = -Math.log2(highSpeedSyncFactor(cam.shutter, sync));
+			warnings.push(`${head}: high-speed sync on ${hss.map((id) => `“${id}”`).join(', ')} costs about ${cost.toFixed(1)} stops (${HSS_ENTRY_LOSS_STOPS} stop for pulsed output plus the shutter's share of the slit travel; the flash's manual has the real figure).`);
+		}
+	}
+	const totalStops = stopsOf(totalX);
+	if (totalStops === null) {
+		warnings.push('No light reaches the subject.');
+	} else if (Math.abs(totalStops) > EXPOSURE_WARNING_STOPS) {
+		warnings.push(`The exposure is ${formatStops(totalStops)} at ${formatFNumber(cam.aperture)}: more than ${EXPOSURE_WARNING_STOPS} stops ${totalStops > 0 ? 'over' : 'under'}.`);
+	}
+	const unblockedKey = [...results].sort((a, b) => b.unblockedX - a.unblockedX)[0];
+	if (unblockedKey && unblockedKey.blocked && unblockedKey.unblockedX > 0) {
+		warnings.push(`The key light “${unblockedKey.id}” is blocked by flag “${unblockedKey.blockedBy}”.`);
+	}
+	const airyHere = airyDiskUm(wa, lambda);
+	if (airyHere > coc * 1000) {
+		warnings.push(`Diffraction: at ${formatFNumber(wa)} working the Airy disk is ${airyHere.toFixed(0)} µm, larger than the ${(coc * 1000).toFixed(0)} µm circle of confusion. Open up or accept softer detail.`);
+	}
+	const shareByKelvin = results
+		.map((r, i) => ({ kelvin: kelvins[i]?.kelvin, share: r.x }))
+		.filter((s): s is { kelvin: number; share: number } => s.kelvin !== undefined);
+	const whiteBalance = shareByKelvin.length ? mixedWhiteBalance(shareByKelvin) : null;
+	if (whiteBalance?.mixed) warnings.push(mixedLightWarning(whiteBalance));
+
+	const cautionDetails = sceneCautions(scene);
+	return {
+		workingAperture: wa,
+		lights: results.map(({ unblockedX: _u, ...r }) => r),
+		total: { x: totalX, exposureOffsetStops: totalStops },
+		keyLightId: key?.id ?? null,
+		lightingRatio,
+		apertureTable,
+		whiteBalance,
+		warnings,
+		cautions: cautionDetails.map((c) => c.message),
+		cautionDetails
+	};
+}
