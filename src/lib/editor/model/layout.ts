@@ -1,0 +1,239 @@
+/**
+ * From an exposure scene (and whatever plan entries a document has) to the editor model. The scene
+ * wins on everything the exposure depends on (positions, powers, aims, normals, areas, flags); the
+ * plan supplies what only the drawing needs (labels, sizes, rotations of bare lights, lock, order) and
+ * the elements the scene has no place for (camera, diffusers, background). What the plan lacks is laid
+ * out: each light and card turned toward the subject, a camera in front of the subject at the lens's
+ * working distance, default sizes.
+ */
+import type { ExposureScene, SceneLight } from '$lib/light/schema';
+import { defaultElement, KIND_LABELS } from './defaults';
+import { aimAngles, normaliseDeg, panelFromSegment } from './geometry';
+import { diffuserLossStops, reflectorProblem } from './scene';
+import type {
+	CameraElement,
+	ContinuousElement,
+	DiffuserElement,
+	EditorElement,
+	FlagElement,
+	FlashElement,
+	Modifier,
+	ReflectorElement,
+	SubjectElement
+} from './schema';
+import type { EditorModel, Vec3 } from './types';
+
+/** Focal length assumed for a camera laid out from a scene alone (a common macro lens length). */
+export const LAYOUT_FOCAL_LENGTH_MM = 100;
+
+/** Working distance (subject to lens) for a magnification, thin lens: u = f·(1 + 1/m); 0.6 m at m = 0. */
+export function layoutCameraDistanceM(magnification: number, focalLengthMm = LAYOUT_FOCAL_LENGTH_MM): number {
+	if (!(magnification > 0)) return 0.6;
+	return Math.min(2, Math.max(0.12, (focalLengthMm * (1 + 1 / magnification)) / 1000));
+}
+
+const SCENE_MODIFIER_NAME = 'Modifier';
+const BARE_SIZE_M = 0.075;
+
+function modifierFromScene(light: { lossStops?: number; beamAngleDeg?: number }, planModifier: Modifier | null | undefined): Modifier | null {
+	const beam = light.beamAngleDeg ?? null;
+	if (planModifier) return planModifier.beamAngleDeg === beam ? planModifier : { ...planModifier, beamAngleDeg: beam };
+	if (beam !== null || (light.lossStops ?? 0) > 0) {
+		return { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, lossStops: light.lossStops ?? 0, sizeM: BARE_SIZE_M };
+	}
+	return null;
+}
+
+/** The scene of a setup that has nothing on it yet: a subject, a camera at 1:2, f/16, no light. */
+export function emptySetupScene(): ExposureScene {
+	return {
+		camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
+		subject: { position: [0, 0, 0.03] },
+		lights: []
+	};
+}
+
+export interface LayoutResult {
+	model: EditorModel;
+	/** Plan entries that could not be used, and why. */
+	notes: string[];
+}
+
+/**
+ * @param planElements valid plan entries by id (already parsed); `{}` lays out everything.
+ */
+export function modelFromScene(scene: ExposureScene, planElements: Readonly<Record<string, EditorElement>> = {}): LayoutResult {
+	const notes: string[] = [];
+	const planEmpty = Object.keys(planElements).length === 0;
+	const elements: Record<string, EditorElement> = {};
+	let z = Math.max(0, ...Object.values(planElements).map((e) => e.zIndex));
+	const nextZ = () => ++z;
+	const subjectPos = scene.subject.position as Vec3;
+
+	// The subject: the plan's, moved to where the scene puts it.
+	const planSubject = Object.values(planElements).find((e): e is SubjectElement => e.kind === 'subject');
+	const subjectBase: SubjectElement =
+		planSubject ??
+		defaultElement('subject', { id: 'subject', label: KIND_LABELS.subject, xM: 0, yM: 0, rotationDeg: 90, zIndex: nextZ() });
+	const subject: SubjectElement = {
+		...subjectBase,
+		xM: subjectPos[0],
+		yM: subjectPos[1],
+		heightM: subjectPos[2],
+		living: scene.subject.living ?? false,
+		normal: scene.subject.normal
+	};
+	if (!subject.normal) delete subject.normal;
+	elements[subject.id] = subject;
+
+	// What only the plan holds.
+	const diffusers: DiffuserElement[] = [];
+	for (const el of Object.values(planElements)) {
+		if (el.kind === 'camera' || el.kind === 'diffuser' || el.kind === 'background') {
+			if (el.id in elements) continue;
+			elements[el.id] = el;
+			if (el.kind === 'diffuser') diffusers.push(el);
+		}
+	}
+	if (planEmpty) {
+		const u = layoutCameraDistanceM(scene.camera.magnification);
+		const camera: CameraElement = defaultElement('camera', {
+			id: 'camera',
+			label: KIND_LABELS.camera,
+			xM: subjectPos[0],
+			yM: subjectPos[1] + u,
+			heightM: subjectPos[2],
+			rotationDeg: -90,
+			zIndex: nextZ()
+		});
+		camera.focalLengthMm = LAYOUT_FOCAL_LENGTH_MM;
+		elements[camera.id] = camera;
+	}
+
+	const byId = new Map(scene.lights.map((l) => [l.id, l]));
+	const labelFor = (kind: EditorElement['kind'], id: string) => {
+		const plan = planElements[id];
+		// A scene's ids are its own names for its lights ("key", "card"): they make good labels.
+		return plan && plan.kind === kind ? plan.label : id;
+	};
+
+	for (const light of scene.lights) {
+		if (elements[light.id]) {
+			notes.push(`light “${light.id}” has the id of another element; the plan entry was replaced`);
+		}
+		const plan = planElements[light.id];
+		const samePlan = plan && plan.kind === light.kind ? plan : undefined;
+		if (light.kind === 'flash' || light.kind === 'continuous') {
+			elements[light.id] = emitterFromScene(light, samePlan as FlashElement | ContinuousElement | undefined, subjectPos, diffusers, labelFor(light.kind, light.id), nextZ);
+		} else {
+			elements[light.id] = reflectorFromScene(light, samePlan as ReflectorElement | undefined, byId, subjectPos, labelFor('reflector', light.id), nextZ);
+		}
+	}
+	for (const flag of scene.flags ?? []) {
+		const plan = planElements[flag.id];
+		const samePlan = plan?.kind === 'flag' ? plan : undefined;
+		const seg = panelFromSegment(flag.from, flag.to);
+		const base: FlagElement = samePlan ?? defaultElement('flag', { id: flag.id, label: labelFor('flag', flag.id), xM: 0, yM: 0, zIndex: nextZ() });
+		elements[flag.id] = { ...base, xM: seg.xM, yM: seg.yM, widthM: Math.max(0.001, seg.widthM), rotationDeg: keepTurn(base.rotationDeg, seg.rotationDeg) };
+	}
+
+	const model: EditorModel = {
+		elements,
+		camera: { ...scene.camera },
+		ambient: scene.ambient ? { ...scene.ambient } : null
+	};
+	// Reflectors the scene could not hold (no usable source) live in the plan only: keep them.
+	for (const el of Object.values(planElements)) {
+		if (el.kind !== 'reflector' || el.id in elements) continue;
+		if (reflectorProblem(model, el) !== null) elements[el.id] = el;
+		else notes.push(`plan entry “${el.id}” has no light in the scene and was left out`);
+	}
+	for (const el of Object.values(planElements)) {
+		if ((el.kind === 'flash' || el.kind === 'continuous' || el.kind === 'flag') && !(el.id in elements)) {
+			notes.push(`plan entry “${el.id}” has no ${el.kind === 'flag' ? 'flag' : 'light'} in the scene and was left out`);
+		}
+	}
+	return { model, notes };
+}
+
+/** The scene's angle, but turned the way the plan had it when they agree (a flag's 0° and 180° are one line). */
+function keepTurn(planDeg: number, sceneDeg: number): number {
+	return Math.abs(normaliseDeg(planDeg - sceneDeg - 180)) < 1e-6 ? planDeg : sceneDeg;
+}
+
+function emitterFromScene(
+	light: Extract<SceneLight, { kind: 'flash' | 'continuous' }>,
+	plan: FlashElement | ContinuousElement | undefined,
+	subject: Vec3,
+	diffusers: DiffuserElement[],
+	label: string,
+	nextZ: () => number
+): FlashElement | ContinuousElement {
+	const pos = light.position as Vec3;
+	const modifier = modifierFromScene(light, plan?.modifier);
+	const modLoss = modifier?.lossStops ?? 0;
+	const otherLossStops = Math.max(0, round6((light.lossStops ?? 0) - modLoss - diffuserLossStops(diffusers, [pos[0], pos[1]], [subject[0], subject[1]])));
+	const aim = light.aim ? aimAngles(pos, light.aim as Vec3) : plan && !light.beamAngleDeg ? { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg } : aimAngles(pos, subject);
+	const common = {
+		xM: pos[0],
+		yM: pos[1],
+		heightM: pos[2],
+		rotationDeg: aim.rotationDeg,
+		tiltDeg: aim.tiltDeg,
+		modifier,
+		otherLossStops,
+		kelvin: light.kelvin ?? null,
+		gelMired: light.gelMired ?? 0
+	};
+	if (light.kind === 'flash') {
+		const base = (plan as FlashElement | undefined) ?? defaultElement('flash', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
+		return { ...base, ...common, guideNumber: light.guideNumber, power: light.power, highSpeedSync: light.highSpeedSync ?? false, mainsPowered: light.mainsPowered ?? false };
+	}
+	const base = (plan as ContinuousElement | undefined) ?? defaultElement('continuous', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
+	return { ...base, ...common, luxAt1m: light.luxAt1m, runsHot: light.runsHot ?? true };
+}
+
+function reflectorFromScene(
+	light: Extract<SceneLight, { kind: 'reflector' }>,
+	plan: ReflectorElement | undefined,
+	byId: Map<string, SceneLight>,
+	subject: Vec3,
+	label: string,
+	nextZ: () => number
+): ReflectorElement {
+	const pos = light.position as Vec3;
+	const base = plan ?? defaultElement('reflector', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
+	// Keep the plan's proportions; scale them to the scene's area.
+	const planArea = base.widthM * base.panelHeightM;
+	const scale = Math.sqrt(light.areaM2 / planArea);
+	const sized = plan ? { widthM: base.widthM * scale, panelHeightM: base.panelHeightM * scale } : { widthM: Math.sqrt(light.areaM2), panelHeightM: Math.sqrt(light.areaM2) };
+	let facing: { rotationDeg: number; tiltDeg: number };
+	if (light.normal) {
+		facing = aimAngles([0, 0, 0], light.normal as Vec3);
+	} else if (plan) {
+		facing = { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg };
+	} else {
+		// Drawn turned halfway between its source and the subject, the way an ideal card faces.
+		const source = light.source === 'ambient' ? undefined : byId.get(light.source);
+		const toSubject = aimAngles(pos, subject).rotationDeg;
+		const toSource = source ? aimAngles(pos, source.position as Vec3).rotationDeg : toSubject;
+		const half = normaliseDeg(toSource - toSubject) / 2;
+		facing = { rotationDeg: normaliseDeg(toSubject + half), tiltDeg: 0 };
+	}
+	return {
+		...base,
+		...sized,
+		xM: pos[0],
+		yM: pos[1],
+		heightM: pos[2],
+		...facing,
+		surface: light.surface,
+		reflectance: light.reflectance,
+		source: light.source,
+		facingSet: light.normal !== undefined
+	};
+}
+
+function round6(n: number): number {
+	return Math.round(n * 1e6) / 1e6;
+}
