@@ -32,8 +32,11 @@ export class History {
 		if (isEmptyDiff(diff)) return;
 		this.#redos = [];
 		const top = this.#undos.at(-1);
-		if (top?.type === 'diff') squashInto(top.diff, diff);
-		else this.#undos.push({ type: 'diff', diff: squashInto(emptyDiff(), diff) });
+		if (top?.type === 'diff') {
+			squashInto(top.diff, diff);
+			// Changes that cancel out (added then removed) leave no step behind.
+			if (isEmptyDiff(top.diff)) this.#undos.pop();
+		} else this.#undos.push({ type: 'diff', diff: squashInto(emptyDiff(), diff) });
 		this.#trim();
 	}
 

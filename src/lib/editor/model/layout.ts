@@ -8,7 +8,7 @@
  */
 import type { ExposureScene, SceneLight } from '$lib/light/schema';
 import { defaultElement, KIND_LABELS } from './defaults';
-import { aimAngles, normaliseDeg, panelFromSegment } from './geometry';
+import { aimAngles, direction3, normaliseDeg, panelFromSegment, panelSegment } from './geometry';
 import { diffuserLossStops, reflectorProblem } from './scene';
 import type {
 	CameraElement,
@@ -21,7 +21,7 @@ import type {
 	ReflectorElement,
 	SubjectElement
 } from './schema';
-import type { EditorModel, Vec3 } from './types';
+import type { EditorModel, Vec2, Vec3 } from './types';
 
 /** Focal length assumed for a camera laid out from a scene alone (a common macro lens length). */
 export const LAYOUT_FOCAL_LENGTH_MM = 100;
@@ -133,6 +133,10 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 		const plan = planElements[flag.id];
 		const samePlan = plan?.kind === 'flag' ? plan : undefined;
 		const seg = panelFromSegment(flag.from, flag.to);
+		if (samePlan && sameSegment(panelSegment(samePlan), [flag.from as Vec2, flag.to as Vec2])) {
+			elements[flag.id] = samePlan;
+			continue;
+		}
 		const base: FlagElement = samePlan ?? defaultElement('flag', { id: flag.id, label: labelFor('flag', flag.id), xM: 0, yM: 0, zIndex: nextZ() });
 		elements[flag.id] = { ...base, xM: seg.xM, yM: seg.yM, widthM: Math.max(0.001, seg.widthM), rotationDeg: keepTurn(base.rotationDeg, seg.rotationDeg) };
 	}
@@ -156,6 +160,23 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 	return { model, notes };
 }
 
+/**
+ * Floating point does not survive a trip through the scene exactly (an aim point is a position plus a
+ * direction): where the plan's value and the scene's agree to far below anything measurable, the
+ * plan's is kept, so a saved document reads back as the very same model.
+ */
+function keepAngles(plan: { rotationDeg: number; tiltDeg: number } | null, scene: { rotationDeg: number; tiltDeg: number }) {
+	if (!plan) return scene;
+	const a = direction3(plan.rotationDeg, plan.tiltDeg);
+	const b = direction3(scene.rotationDeg, scene.tiltDeg);
+	return Math.hypot(a[0] - b[0], a[1] - b[1], a[2] - b[2]) < 1e-9 ? plan : scene;
+}
+
+function sameSegment(a: readonly [Vec2, Vec2], b: readonly [Vec2, Vec2]): boolean {
+	const d = (p: Vec2, q: Vec2) => Math.hypot(p[0] - q[0], p[1] - q[1]);
+	return d(a[0], b[0]) < 1e-9 && d(a[1], b[1]) < 1e-9;
+}
+
 /** The scene's angle, but turned the way the plan had it when they agree (a flag's 0° and 180° are one line). */
 function keepTurn(planDeg: number, sceneDeg: number): number {
 	return Math.abs(normaliseDeg(planDeg - sceneDeg - 180)) < 1e-6 ? planDeg : sceneDeg;
@@ -173,7 +194,12 @@ function emitterFromScene(
 	const modifier = modifierFromScene(light, plan?.modifier);
 	const modLoss = modifier?.lossStops ?? 0;
 	const otherLossStops = Math.max(0, round6((light.lossStops ?? 0) - modLoss - diffuserLossStops(diffusers, [pos[0], pos[1]], [subject[0], subject[1]])));
-	const aim = light.aim ? aimAngles(pos, light.aim as Vec3) : plan && !light.beamAngleDeg ? { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg } : aimAngles(pos, subject);
+	const planAim = plan ? { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg } : null;
+	const aim = light.aim
+		? keepAngles(planAim, aimAngles(pos, light.aim as Vec3))
+		: planAim && !light.beamAngleDeg
+			? planAim
+			: keepAngles(planAim, aimAngles(pos, subject));
 	const common = {
 		xM: pos[0],
 		yM: pos[1],
@@ -205,11 +231,11 @@ function reflectorFromScene(
 	const base = plan ?? defaultElement('reflector', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
 	// Keep the plan's proportions; scale them to the scene's area.
 	const planArea = base.widthM * base.panelHeightM;
-	const scale = Math.sqrt(light.areaM2 / planArea);
+	const scale = Math.abs(light.areaM2 / planArea - 1) < 1e-9 ? 1 : Math.sqrt(light.areaM2 / planArea);
 	const sized = plan ? { widthM: base.widthM * scale, panelHeightM: base.panelHeightM * scale } : { widthM: Math.sqrt(light.areaM2), panelHeightM: Math.sqrt(light.areaM2) };
 	let facing: { rotationDeg: number; tiltDeg: number };
 	if (light.normal) {
-		facing = aimAngles([0, 0, 0], light.normal as Vec3);
+		facing = keepAngles(plan ? { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg } : null, aimAngles([0, 0, 0], light.normal as Vec3));
 	} else if (plan) {
 		facing = { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg };
 	} else {

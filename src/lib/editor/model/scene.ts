@@ -20,12 +20,7 @@ export interface ExcludedElement {
 	reason: string;
 }
 
-function round(n: number): number {
-	// Plan positions come from pointer maths: keep a tenth of a micrometre, enough for any table.
-	return Math.round(n * 1e7) / 1e7 || 0;
-}
-
-const pos3 = (el: EditorElement): [number, number, number] => [round(el.xM), round(el.yM), round(el.heightM)];
+const pos3 = (el: EditorElement): [number, number, number] => [el.xM, el.yM, el.heightM];
 
 /** Stops lost to diffusers whose plan segment the straight path from `from` to `to` crosses. */
 export function diffuserLossStops(diffusers: readonly DiffuserElement[], from: Vec2, to: Vec2): number {
@@ -63,7 +58,7 @@ function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElem
 	const beam: Partial<{ aim: [number, number, number]; beamAngleDeg: number }> = {};
 	if (el.modifier?.beamAngleDeg != null) {
 		const d = direction3(el.rotationDeg, el.tiltDeg);
-		beam.aim = [round(el.xM + d[0]), round(el.yM + d[1]), round(el.heightM + d[2])];
+		beam.aim = [el.xM + d[0], el.yM + d[1], el.heightM + d[2]];
 		beam.beamAngleDeg = el.modifier.beamAngleDeg;
 	}
 	const colour = {
@@ -107,7 +102,7 @@ function reflectorLight(el: ReflectorElement): SceneLight {
 		reflectance: el.reflectance,
 		surface: el.surface,
 		source: el.source,
-		...(el.facingSet ? { normal: [round(n[0]), round(n[1]), round(n[2])] as [number, number, number] } : {})
+		...(el.facingSet ? { normal: [n[0], n[1], n[2]] as [number, number, number] } : {})
 	};
 }
 
@@ -123,7 +118,7 @@ export function toExposureScene(model: EditorModel): ExposureScene {
 		else if (el.kind === 'reflector' && reflectorProblem(model, el) === null) lights.push(reflectorLight(el));
 		else if (el.kind === 'flag') {
 			const [from, to] = panelSegment(el);
-			flags.push({ id: el.id, from: [round(from[0]), round(from[1])], to: [round(to[0]), round(to[1])] });
+			flags.push({ id: el.id, from: [from[0], from[1]], to: [to[0], to[1]] });
 		}
 	}
 	return {

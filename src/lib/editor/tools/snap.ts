@@ -3,6 +3,7 @@
  * element's x or y, each axis on its own), otherwise to the grid. Returns the guides to draw.
  */
 import { snapToGrid } from '../grid';
+import { normaliseDeg } from '../model/geometry';
 import type { Vec2 } from '../model/types';
 
 export interface SnapLine {
@@ -62,7 +63,7 @@ export function snapRotation(rotationDeg: number, opts: { stepDeg: number | null
 	if (opts.stepDeg) return { rotationDeg: Math.round(rotationDeg / opts.stepDeg) * opts.stepDeg, snapped: 'step' };
 	if (opts.towardDeg !== null) {
 		const gap = ((rotationDeg - opts.towardDeg + 540) % 360) - 180;
-		if (Math.abs(gap) <= (opts.captureDeg ?? 3)) return { rotationDeg: rotationDeg - gap, snapped: 'toward' };
+		if (Math.abs(gap) <= (opts.captureDeg ?? 3)) return { rotationDeg: normaliseDeg(rotationDeg - gap), snapped: 'toward' };
 	}
 	return { rotationDeg, snapped: null };
 }
