@@ -11,10 +11,12 @@ import type { ExposureScene } from '$lib/light/schema';
 import * as commands from './commands';
 import type { Command, CommandError, CommandResult } from './commands';
 import { falloffGrid, type FalloffGrid } from './falloff';
-import { gridSteps, scaleBar } from './grid';
+import { FalloffService } from './falloff-service.svelte';
+import { gridLines, gridSteps, scaleBar } from './grid';
 import { HIT_MARGIN_PX, ROTATION_HANDLE_HIT_PX, rotationHandlePosition } from './handles';
 import { History } from './history';
-import { dimensionLines } from './model/dimensions';
+import { dimensionLines, type DimensionLine } from './model/dimensions';
+import { beams, bouncePaths, keepUnchanged, type Beam, type BouncePath } from './model/light-paths';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
 import { documentFromModel, modelFromDocument, type Plan, type SetupDocument } from './model/document';
 import { boundsContain, boundsOfElements, elementBounds, expandBounds, hitTest, type Bounds } from './model/geometry';
@@ -79,6 +81,8 @@ export class Editor implements ToolHost {
 	#pinch: PinchGesture | null = null;
 	#whatIfMark: string | null = null;
 	#destroyed = false;
+	readonly #falloffService = new FalloffService();
+	#stopEffects: (() => void) | null = null;
 
 	constructor(options: EditorOptions = {}) {
 		this.#tools = { select: new SelectTool(this), hand: new HandTool(this), place: new PlaceTool(this) };
@@ -88,6 +92,14 @@ export class Editor implements ToolHost {
 		if (options.viewport) {
 			this.#viewport = options.viewport;
 			this.#fitPending = false;
+		}
+		if (this.#falloffService.usesWorker) {
+			this.#stopEffects = $effect.root(() => {
+				$effect(() => {
+					if (this.falloffVisible) this.#falloffService.request(this.scene, this.planBounds);
+					else this.#falloffService.clear();
+				});
+			});
 		}
 	}
 
@@ -149,15 +161,50 @@ export class Editor implements ToolHost {
 		return this.gridSteps.minorM;
 	}
 	readonly scaleBar = $derived(scaleBar(this.unitSystem, this.#viewport.zoom));
-	readonly dimensions = $derived(dimensionLines(this.#model, this.unitSystem));
+	/** Grid lines in view (plan metres), for the stage. */
+	readonly gridLines = $derived.by(() => {
+		const size = this.#stageSize ?? { widthPx: 800, heightPx: 600 };
+		return gridLines(this.#viewport, size.widthPx, size.heightPx, this.gridSteps);
+	});
+	// What the stage draws for every element is worked out here; an entry that has not changed keeps
+	// its object, so the stage leaves its drawing alone while something else is dragged.
+	#dimensionCache = new Map<string, DimensionLine>();
+	#beamCache = new Map<string, Beam>();
+	#bounceCache = new Map<string, BouncePath>();
+	/** Dimension lines from each light and card to the subject, with true 3-D distances. */
+	readonly dimensions = $derived.by(() => {
+		const { list, byId } = keepUnchanged(this.#dimensionCache, dimensionLines(this.#model, this.unitSystem));
+		this.#dimensionCache = byId;
+		return list;
+	});
+	/** Each light's beam (angle, reach, kelvin). */
+	readonly beams = $derived.by(() => {
+		const { list, byId } = keepUnchanged(this.#beamCache, beams(this.#model));
+		this.#beamCache = byId;
+		return list;
+	});
+	/** Each card's path from its light to the subject. */
+	readonly bouncePaths = $derived.by(() => {
+		const { list, byId } = keepUnchanged(this.#bounceCache, bouncePaths(this.#model));
+		this.#bounceCache = byId;
+		return list;
+	});
 	/** The plan's extent with a margin: where the falloff map is computed. */
 	readonly planBounds = $derived.by(() => {
 		const b = boundsOfElements(Object.values(this.#model.elements)) ?? { minX: -0.2, minY: -0.2, maxX: 0.2, maxY: 0.2 };
 		const margin = Math.max(0.1, 0.25 * Math.max(b.maxX - b.minX, b.maxY - b.minY));
 		return expandBounds(b, margin);
 	});
-	/** The falloff map (stops relative to the subject), while it is switched on. */
-	readonly falloff = $derived<FalloffGrid | null>(this.falloffVisible ? falloffGrid(this.scene, this.planBounds) : null);
+	readonly #falloffHere = $derived<FalloffGrid | null>(
+		this.falloffVisible && !this.#falloffService.usesWorker ? falloffGrid(this.scene, this.planBounds) : null
+	);
+	/**
+	 * The falloff map (stops relative to the subject), while it is switched on. In a browser it is
+	 * computed in a worker and may lag a dragged light by one map; elsewhere it is computed on read.
+	 */
+	get falloff(): FalloffGrid | null {
+		return this.#falloffService.usesWorker ? this.#falloffService.grid : this.#falloffHere;
+	}
 
 	readonly canUndo = $derived.by(() => (this.#historyVersion, this.#history.canUndo));
 	readonly canRedo = $derived.by(() => (this.#historyVersion, this.#history.canRedo));
@@ -412,7 +459,9 @@ export class Editor implements ToolHost {
 		return this.elements.filter((el) => boundsContain(bounds, elementBounds(el)));
 	}
 	setSnapLines(lines: readonly SnapLine[]) {
-		if (lines.length || this.#snapLines.length) this.#snapLines = lines;
+		// The same guides again are left alone (no redraw).
+		if (lines.length === this.#snapLines.length && JSON.stringify(lines) === JSON.stringify(this.#snapLines)) return;
+		this.#snapLines = lines;
 	}
 	setMarquee(bounds: Bounds | null) {
 		this.#marquee = bounds;
@@ -677,6 +726,9 @@ export class Editor implements ToolHost {
 
 	/** Ends every gesture and stops taking input. */
 	destroy() {
+		this.#stopEffects?.();
+		this.#stopEffects = null;
+		this.#falloffService.destroy();
 		this.#cancelGesture();
 		this.#pointers.clear();
 		this.#pinch = null;

@@ -99,3 +99,31 @@ describe('falloff colours', () => {
 		expect(a0).toBeGreaterThan(0);
 	});
 });
+
+describe('falloff colours on the dim-studio scheme', () => {
+	it('glows stronger with more light and not at all where none arrives', async () => {
+		const { FALLOFF_PALETTE_DARK } = await import('./falloff');
+		const a = (s: number) => falloffColour(s, FALLOFF_PALETTE_DARK)[3];
+		expect(a(1)).toBeGreaterThan(a(0));
+		expect(a(0)).toBeGreaterThan(a(-2));
+		expect(a(-Infinity)).toBe(0);
+	});
+});
+
+describe('the map’s flag test', () => {
+	it('agrees with the engine’s segmentsIntersect, touching included', async () => {
+		const fc = await import('fast-check');
+		const { segmentsIntersect } = await import('$lib/light/geometry');
+		const { crossesAnyFlag } = await import('./falloff');
+		// Coordinates on a coarse lattice so that touching and collinear cases come up often.
+		const c = fc.integer({ min: -4, max: 4 }).map((n) => n / 4);
+		const seg = fc.tuple(c, c, c, c);
+		fc.assert(
+			fc.property(seg, seg, ([ax, ay, bx, by], [cx, cy, dx, dy]) => {
+				const engine = segmentsIntersect([ax, ay], [bx, by], [cx, cy], [dx, dy]);
+				return crossesAnyFlag(new Float64Array([cx, cy, dx, dy]), ax, ay, bx, by) === engine;
+			}),
+			{ numRuns: 5000 }
+		);
+	});
+});
