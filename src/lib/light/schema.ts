@@ -73,7 +73,8 @@ export type FlashCalcBody = z.input<typeof flashCalcSchema>;
 // ---------- POST /api/v1/calc/optics ----------
 export const opticsCalcSchema = z.object({
 	aperture: apertureField,
-	magnification: above(0, 100),
+	// Above 0 (API.md); from 1:10 000 up, so the close-up depth of field stays finite.
+	magnification: range(0.0001, 100),
 	pupilMagnification: pupilMagnificationField.default(1),
 	cocMm: cocMmField.default(0.03),
 	wavelengthNm: wavelengthNmField.default(550),
