@@ -1,0 +1,130 @@
+// `npm test`: the same set-up as `npm start` against a separate test database, then the type check,
+// vitest (unit and integration tests against the real PostgreSQL and the running app) and Playwright
+// in Debian's Chromium. Ends with each runner's summary and a non-zero exit on any failure.
+import fs from 'node:fs';
+import path from 'node:path';
+import { spawnSync } from 'node:child_process';
+import { dataDir, ensureChromium, ensurePackages, log, root } from './lib/bootstrap.mjs';
+
+ensurePackages();
+const chromium = ensureChromium();
+const { appEnv, build, prepareDatabase, profiles, seed, serve, startMail } = await import('./lib/stack.mjs');
+
+const profile = profiles.test;
+const cleanups = [];
+const results = [];
+let exitCode = 0;
+
+async function cleanup() {
+	for (const fn of cleanups.reverse()) {
+		try {
+			await fn();
+		} catch {
+			/* keep going */
+		}
+	}
+}
+process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
+
+function step(name, cmd, args, env) {
+	log(`── ${name} ──`);
+	const started = Date.now();
+	const r = spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+	const ok = r.status === 0;
+	results.push({ name, ok, seconds: Math.round((Date.now() - started) / 1000) });
+	if (!ok) exitCode = 1;
+	return ok;
+}
+
+function readJson(file) {
+	try {
+		return JSON.parse(fs.readFileSync(file, 'utf8'));
+	} catch {
+		return null;
+	}
+}
+
+try {
+	const db = await prepareDatabase(profile, { fresh: true });
+	if (db.stopCluster) cleanups.push(db.stopCluster);
+	await seed(db.url);
+	const mail = await startMail(profile);
+	cleanups.push(() => mail.stop());
+	build();
+	const env = appEnv(profile, { ...db, mail });
+	const logFile = path.join(dataDir, 'test-app.log');
+	const { child, origin } = await serve(profile, env, { quiet: true });
+	const out = fs.createWriteStream(logFile);
+	child.stdout.pipe(out);
+	child.stderr.pipe(out);
+	cleanups.push(
+		() =>
+			new Promise((resolve) => {
+				child.once('exit', resolve);
+				child.kill('SIGTERM');
+				setTimeout(resolve, 5000).unref();
+			})
+	);
+	log(`test app at ${origin} (its log: .data/test-app.log)`);
+
+	const testEnv = {
+		...env,
+		NODE_ENV: 'test',
+		TEST_BASE_URL: origin,
+		CHROMIUM_PATH: chromium,
+		CI: process.env.CI ?? ''
+	};
+	const reports = path.join(dataDir, 'reports');
+	fs.mkdirSync(reports, { recursive: true });
+
+	step('type check (svelte-check)', 'npx', ['svelte-check', '--tsconfig', './tsconfig.json', '--threshold', 'error'], testEnv);
+	step(
+		'unit and integration tests (vitest)',
+		'npx',
+		['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.join(reports, 'vitest.json')}`],
+		testEnv
+	);
+	step('browser tests (Playwright, Chromium)', 'npx', ['playwright', 'test', '-c', 'tests/playwright.config.ts'], {
+		...testEnv,
+		PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(reports, 'playwright.json')
+	});
+
+	const vitest = readJson(path.join(reports, 'vitest.json'));
+	const pw = readJson(path.join(reports, 'playwright.json'));
+	let passed = 0;
+	let failed = 0;
+	let skipped = 0;
+	if (vitest) {
+		passed += vitest.numPassedTests ?? 0;
+		failed += vitest.numFailedTests ?? 0;
+		skipped += (vitest.numPendingTests ?? 0) + (vitest.numTodoTests ?? 0);
+		log(`vitest: ${vitest.numPassedTests} passed, ${vitest.numFailedTests} failed`);
+	} else {
+		exitCode = 1;
+		log('vitest wrote no report');
+	}
+	if (pw?.stats) {
+		const pwPassed = (pw.stats.expected ?? 0) + (pw.stats.flaky ?? 0);
+		const pwFailed = pw.stats.unexpected ?? 0;
+		passed += pwPassed;
+		failed += pwFailed;
+		skipped += pw.stats.skipped ?? 0;
+		log(`playwright: ${pwPassed} passed, ${pwFailed} failed`);
+	} else {
+		exitCode = 1;
+		log('Playwright wrote no report');
+	}
+	for (const r of results) log(`${r.ok ? 'ok  ' : 'FAIL'} ${r.name} (${r.seconds} s)`);
+	if (skipped > 0) {
+		log(`${skipped} tests were skipped; a skipped test is a defect here`);
+		exitCode = 1;
+	}
+	if (passed === 0) exitCode = 1;
+	process.stdout.write(`\ntotal: ${passed} passed, ${failed} failed\n`);
+} catch (e) {
+	process.stderr.write(`\n[squarelaw] ${e instanceof Error ? e.stack : String(e)}\n`);
+	exitCode = 1;
+} finally {
+	await cleanup();
+	process.exit(exitCode);
+}

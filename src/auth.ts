@@ -1,0 +1,51 @@
+// Sign-in, kept in one file so the provider can be swapped later. E-mail links through Auth.js's
+// Nodemailer provider, database sessions through the Drizzle adapter.
+import { SvelteKitAuth } from '@auth/sveltekit';
+import Nodemailer from '@auth/sveltekit/providers/nodemailer';
+import { DrizzleAdapter } from '@auth/drizzle-adapter';
+import { env } from '$env/dynamic/private';
+import { db } from '$lib/server/db';
+import { accounts, sessions, users, verificationTokens } from '$lib/server/db/schema';
+import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
+import { sendMail } from '$lib/server/mail';
+import { signInLetter } from '$lib/server/mail/letters';
+
+export const SIGN_IN_LINK_MINUTES = 15;
+
+const secureCookies = (env.ORIGIN ?? '').startsWith('https://');
+
+export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
+	adapter: DrizzleAdapter(db, {
+		usersTable: users,
+		accountsTable: accounts,
+		sessionsTable: sessions,
+		verificationTokensTable: verificationTokens
+	}),
+	providers: [
+		Nodemailer({
+			server: env.EMAIL_SERVER || 'smtp://127.0.0.1:2525',
+			from: env.EMAIL_FROM || 'Squarelaw <no-reply@squarelaw.localhost>',
+			maxAge: SIGN_IN_LINK_MINUTES * 60,
+			async sendVerificationRequest({ identifier, url }) {
+				await sendMail(signInLetter(identifier, url, new URL(url).host));
+			}
+		})
+	],
+	session: { strategy: 'database', maxAge: 30 * 24 * 3600, updateAge: 24 * 3600 },
+	secret: env.AUTH_SECRET,
+	// A production build ignores AUTH_TRUST_HOST; ORIGIN fixes the host anyway.
+	trustHost: true,
+	useSecureCookies: secureCookies,
+	pages: { signIn: '/signin', verifyRequest: '/signin/check', error: '/signin/error' },
+	callbacks: {
+		session({ session, user }) {
+			session.user.id = user.id;
+			return session;
+		}
+	},
+	events: {
+		async createUser({ user }) {
+			if (user.id) await ensurePersonalStudio(user.id, user.name || user.email?.split('@')[0] || 'My');
+		}
+	}
+});

@@ -1,0 +1,67 @@
+import { redirect, type Handle } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { authHandle } from './auth';
+import { emailSchema } from '$lib/schemas/account';
+import { getUserById } from '$lib/server/db/queries/users';
+import { userForAccessToken } from '$lib/server/db/queries/tokens';
+import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+
+const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
+
+/**
+ * Checks a sign-in link request before Auth.js sees it: a malformed address is sent back to the form
+ * with a message, and requests are limited per address and per IP. The answer is the same whether or
+ * not the address has an account.
+ */
+const guardSignInRequests: Handle = async ({ event, resolve }) => {
+	if (event.request.method === 'POST' && event.url.pathname === '/auth/signin/nodemailer') {
+		let raw = '';
+		try {
+			const form = await event.request.clone().formData();
+			raw = String(form.get('email') ?? '');
+		} catch {
+			redirect(303, '/signin?error=InvalidEmail');
+		}
+		const parsed = emailSchema.safeParse(raw);
+		if (!parsed.success) redirect(303, `/signin?error=InvalidEmail&email=${encodeURIComponent(raw.slice(0, 254))}`);
+		const limits = await hitRateLimits([
+			{ bucket: `signin:addr:${parsed.data}`, limit: 5, windowMs: 15 * 60_000 },
+			{ bucket: `signin:ip:${event.getClientAddress()}`, limit: 30, windowMs: 15 * 60_000 }
+		]);
+		if (!limits.allowed) redirect(303, `/signin?error=RateLimited&email=${encodeURIComponent(parsed.data)}`);
+	}
+	return resolve(event);
+};
+
+/** Puts the caller on `locals.user`: from a bearer token for scripts, else from the session cookie. */
+const identify: Handle = async ({ event, resolve }) => {
+	event.locals.user = null;
+	event.locals.authMethod = null;
+	const header = event.request.headers.get('authorization');
+	if (header?.toLowerCase().startsWith('bearer ')) {
+		const user = await userForAccessToken(header.slice(7).trim());
+		if (user) {
+			event.locals.user = user;
+			event.locals.authMethod = 'token';
+		}
+	} else if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
+		// Only ask Auth.js (and the database) when a session cookie is present.
+		const session = await event.locals.auth();
+		const id = session?.user?.id;
+		if (id) {
+			event.locals.user = await getUserById(id);
+			event.locals.authMethod = event.locals.user ? 'session' : null;
+		}
+	}
+	return resolve(event);
+};
+
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	response.headers.set('x-content-type-options', 'nosniff');
+	response.headers.set('referrer-policy', 'same-origin');
+	if (!response.headers.has('x-frame-options')) response.headers.set('x-frame-options', 'DENY');
+	return response;
+};
+
+export const handle = sequence(guardSignInRequests, authHandle, identify, securityHeaders);

@@ -1,0 +1,32 @@
+import { building } from '$app/environment';
+import { env } from '$env/dynamic/private';
+import { drizzle } from 'drizzle-orm/postgres-js';
+import postgres from 'postgres';
+import * as schema from './schema';
+
+function connect() {
+	const url = env.DATABASE_URL;
+	if (!url) {
+		// Fail fast at start-up, but not while `vite build` analyses the server modules.
+		if (building) return postgres('postgres://build-time-placeholder/none', { max: 0 });
+		throw new Error('DATABASE_URL is not set: point it at the PostgreSQL database (see README, Configuration).');
+	}
+	return postgres(url, {
+		max: Number(env.DATABASE_POOL_SIZE ?? 10),
+		idle_timeout: 30,
+		connect_timeout: 10,
+		onnotice: () => {}
+	});
+}
+
+export const client = connect();
+export const db = drizzle(client, { schema, casing: 'snake_case' });
+export type Db = typeof db;
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];
+
+if (!building && typeof process !== 'undefined') {
+	// adapter-node emits this on SIGTERM/SIGINT; without it the pool keeps `node build` alive.
+	process.on('sveltekit:shutdown', () => {
+		void client.end({ timeout: 5 });
+	});
+}

@@ -1,0 +1,55 @@
+// The tables Auth.js's Drizzle adapter needs, with our naming (plural tables, snake_case columns).
+import { boolean, integer, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+export const users = pgTable('users', {
+	id: uuid().primaryKey().defaultRandom(),
+	name: text(),
+	email: text().notNull().unique(),
+	emailVerified: timestamp({ mode: 'date', withTimezone: true }),
+	image: text(),
+	/** The operator's flag: sees and manages every studio. */
+	isAdmin: boolean().notNull().default(false),
+	unitSystem: text({ enum: ['metric', 'imperial'] }).notNull().default('metric'),
+	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+});
+
+export const accounts = pgTable(
+	'accounts',
+	{
+		userId: uuid()
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		type: text().notNull(),
+		provider: text().notNull(),
+		providerAccountId: text().notNull(),
+		refresh_token: text(),
+		access_token: text(),
+		expires_at: integer(),
+		token_type: text(),
+		scope: text(),
+		id_token: text(),
+		session_state: text()
+	},
+	(t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })]
+);
+
+export const sessions = pgTable('sessions', {
+	sessionToken: text().primaryKey(),
+	userId: uuid()
+		.notNull()
+		.references(() => users.id, { onDelete: 'cascade' }),
+	expires: timestamp({ mode: 'date', withTimezone: true }).notNull()
+});
+
+export const verificationTokens = pgTable(
+	'verification_tokens',
+	{
+		identifier: text().notNull(),
+		token: text().notNull(),
+		expires: timestamp({ mode: 'date', withTimezone: true }).notNull()
+	},
+	(t) => [primaryKey({ columns: [t.identifier, t.token] })]
+);
+
+export type User = typeof users.$inferSelect;
+export type NewUser = typeof users.$inferInsert;

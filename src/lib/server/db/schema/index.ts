@@ -1,0 +1,4 @@
+export * from './auth';
+export * from './studios';
+export * from './security';
+export * from './relations';

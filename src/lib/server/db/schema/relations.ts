@@ -1,0 +1,33 @@
+import { relations } from 'drizzle-orm';
+import { accessTokens } from './security';
+import { sessions, users } from './auth';
+import { invitations, memberships, studios } from './studios';
+
+export const usersRelations = relations(users, ({ many }) => ({
+	memberships: many(memberships),
+	sessions: many(sessions),
+	accessTokens: many(accessTokens)
+}));
+
+export const studiosRelations = relations(studios, ({ many }) => ({
+	memberships: many(memberships),
+	invitations: many(invitations)
+}));
+
+export const membershipsRelations = relations(memberships, ({ one }) => ({
+	studio: one(studios, { fields: [memberships.studioId], references: [studios.id] }),
+	user: one(users, { fields: [memberships.userId], references: [users.id] })
+}));
+
+export const invitationsRelations = relations(invitations, ({ one }) => ({
+	studio: one(studios, { fields: [invitations.studioId], references: [studios.id] }),
+	invitedBy: one(users, { fields: [invitations.invitedById], references: [users.id] })
+}));
+
+export const sessionsRelations = relations(sessions, ({ one }) => ({
+	user: one(users, { fields: [sessions.userId], references: [users.id] })
+}));
+
+export const accessTokensRelations = relations(accessTokens, ({ one }) => ({
+	user: one(users, { fields: [accessTokens.userId], references: [users.id] })
+}));

@@ -1,0 +1,37 @@
+import { bigserial, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { users } from './auth';
+
+/** Personal access tokens for the API; only a sha-256 of the secret is kept. */
+export const accessTokens = pgTable(
+	'access_tokens',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		userId: uuid()
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		name: text().notNull(),
+		tokenHash: text().notNull().unique(),
+		/** The first characters, shown in lists so the owner can tell tokens apart. */
+		tokenPrefix: text().notNull(),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		lastUsedAt: timestamp({ withTimezone: true }),
+		revokedAt: timestamp({ withTimezone: true })
+	},
+	(t) => [index('access_tokens_user_idx').on(t.userId)]
+);
+
+/**
+ * One row per rate-limited request (sign-in links, invitations). Kept in PostgreSQL rather than
+ * in memory so that several app servers behind a load balancer share the count.
+ */
+export const rateLimitHits = pgTable(
+	'rate_limit_hits',
+	{
+		id: bigserial({ mode: 'number' }).primaryKey(),
+		bucket: text().notNull(),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('rate_limit_hits_bucket_idx').on(t.bucket, t.createdAt)]
+);
+
+export type AccessToken = typeof accessTokens.$inferSelect;

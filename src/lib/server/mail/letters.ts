@@ -1,0 +1,36 @@
+import { letterHtml, type Letter } from './index';
+
+export function signInLetter(to: string, url: string, host: string): Letter {
+	const lines = [
+		'Here is your link to sign in to Squarelaw.',
+		'It works once and for the next 15 minutes.'
+	];
+	const footer = `If you did not ask to sign in at ${host}, you can ignore this message; nothing changes.`;
+	return {
+		to,
+		subject: 'Your Squarelaw sign-in link',
+		text: `${lines.join('\n')}\n\n${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: 'Sign in to Squarelaw' }, footer)
+	};
+}
+
+export function invitationLetter(
+	to: string,
+	url: string,
+	studioName: string,
+	inviterName: string,
+	role: string,
+	expiresAt: Date
+): Letter {
+	const lines = [
+		`${inviterName} invites you to the studio "${studioName}" on Squarelaw as ${role}.`,
+		`The invitation works once and until ${expiresAt.toUTCString()}.`
+	];
+	const footer = 'If you were not expecting this, ignore the message and nothing changes.';
+	return {
+		to,
+		subject: `Invitation to the studio "${studioName}"`,
+		text: `${lines.join('\n')}\n\nAccept: ${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: 'Accept the invitation' }, footer)
+	};
+}

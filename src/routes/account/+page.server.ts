@@ -1,0 +1,48 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { displayNameSchema, fieldErrors, tokenNameSchema } from '$lib/schemas/account';
+import { renameUser, saveUnitPreference } from '$lib/server/db/queries/users';
+import { createAccessToken, listAccessTokens, revokeAccessToken } from '$lib/server/db/queries/tokens';
+import { myStudios } from '$lib/server/studios';
+
+export async function load({ locals, url }) {
+	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
+	return {
+		account: locals.user,
+		tokens: await listAccessTokens(locals.user.id),
+		studios: await myStudios(locals.user)
+	};
+}
+
+export const actions = {
+	rename: async ({ locals, request }) => {
+		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
+		const parsed = displayNameSchema.safeParse((await request.formData()).get('name') ?? '');
+		if (!parsed.success) return fail(400, { action: 'rename', errors: { name: parsed.error.issues[0].message } });
+		await renameUser(locals.user.id, parsed.data);
+		return { action: 'rename', saved: true };
+	},
+	units: async ({ locals, request, cookies }) => {
+		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
+		const value = (await request.formData()).get('unitSystem');
+		if (value !== 'metric' && value !== 'imperial') {
+			return fail(400, { action: 'units', errors: { unitSystem: 'Choose metric or imperial.' } });
+		}
+		await saveUnitPreference(locals.user.id, value);
+		cookies.set('squarelaw-units', value, { path: '/', httpOnly: false, sameSite: 'lax', maxAge: 365 * 24 * 3600 });
+		return { action: 'units', saved: true };
+	},
+	createToken: async ({ locals, request }) => {
+		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
+		const parsed = tokenNameSchema.safeParse((await request.formData()).get('tokenName') ?? '');
+		if (!parsed.success) return fail(400, { action: 'createToken', errors: fieldErrors(parsed.error), tokenNameField: true });
+		const token = await createAccessToken(locals.user.id, parsed.data);
+		return { action: 'createToken', newToken: { name: token.name, secret: token.secret } };
+	},
+	revokeToken: async ({ locals, request }) => {
+		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
+		const id = String((await request.formData()).get('tokenId') ?? '');
+		const done = /^[0-9a-f-]{36}$/i.test(id) && (await revokeAccessToken(locals.user.id, id));
+		if (!done) return fail(400, { action: 'revokeToken', errors: { tokenId: 'That token is already revoked or is not yours.' } });
+		return { action: 'revokeToken', revoked: true };
+	}
+};

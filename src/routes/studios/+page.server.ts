@@ -1,0 +1,17 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { studioNameSchema } from '$lib/schemas/account';
+import { createStudio, myStudios } from '$lib/server/studios';
+
+export async function load({ locals, url }) {
+	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
+	return { studios: await myStudios(locals.user) };
+}
+
+export const actions = {
+	create: async ({ locals, request }) => {
+		const parsed = studioNameSchema.safeParse((await request.formData()).get('name') ?? '');
+		if (!parsed.success) return fail(400, { action: 'create', errors: { name: parsed.error.issues[0].message } });
+		const studio = await createStudio(locals.user, parsed.data);
+		redirect(303, `/studios/${studio.id}`);
+	}
+};

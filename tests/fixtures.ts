@@ -1,0 +1,62 @@
+// Shared Playwright fixtures. Every test gets a page whose requests are watched: any request to a host
+// other than this machine fails the test, so fonts, styles and scripts must all be served by the app.
+import { test as base, expect, type Page } from '@playwright/test';
+
+const LOCAL_HOSTS = new Set(['127.0.0.1', 'localhost', '[::1]']);
+
+export const test = base.extend<{ offsiteRequests: string[] }>({
+	offsiteRequests: [
+		async ({ context }, use) => {
+			const offsite: string[] = [];
+			context.on('request', (request) => {
+				const url = new URL(request.url());
+				if (url.protocol === 'data:' || url.protocol === 'blob:' || url.protocol === 'about:') return;
+				if (!LOCAL_HOSTS.has(url.hostname)) offsite.push(request.url());
+			});
+			await use(offsite);
+			expect(offsite, 'requests that left 127.0.0.1').toEqual([]);
+		},
+		{ auto: true }
+	]
+});
+
+export { expect };
+
+interface MailMessage {
+	to: string;
+	subject: string;
+	text: string;
+	receivedAt: string;
+}
+
+/** The newest message to `to` whose subject matches, read from the local mail fake. */
+export async function waitForMail(page: Page, to: string, subject: RegExp, after = 0): Promise<MailMessage> {
+	for (let i = 0; i < 50; i++) {
+		const res = await page.request.get('/api/dev/mail');
+		expect(res.status()).toBe(200);
+		const messages = (await res.json()) as MailMessage[];
+		const hit = messages.find(
+			(m) => m.to.includes(to) && subject.test(m.subject) && Date.parse(m.receivedAt) >= after
+		);
+		if (hit) return hit;
+		await page.waitForTimeout(200);
+	}
+	throw new Error(`no mail to ${to} matching ${subject}`);
+}
+
+export function firstLink(text: string): string {
+	const match = text.match(/https?:\/\/\S+/);
+	if (!match) throw new Error('the message holds no link');
+	return match[0];
+}
+
+/** Signs in through the real e-mail link flow: the form, the mail fake, the link. */
+export async function signIn(page: Page, email: string, returnTo = '/studios') {
+	const before = Date.now() - 1000;
+	await page.goto(`/signin?callbackUrl=${encodeURIComponent(returnTo)}`);
+	await page.getByLabel('E-mail address').fill(email);
+	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
+	await expect(page.getByRole('heading', { name: 'Check your mail' })).toBeVisible();
+	const mail = await waitForMail(page, email, /sign-in link/i, before);
+	await page.goto(firstLink(mail.text));
+}
