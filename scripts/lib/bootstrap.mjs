@@ -3,6 +3,7 @@
 import { execFileSync, spawn, spawnSync } from 'node:child_process';
 import { createHash, randomBytes } from 'node:crypto';
 import fs from 'node:fs';
+import net from 'node:net';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
@@ -166,7 +167,7 @@ function pgIsRunning(bin, dir) {
  * Makes sure a local cluster runs on 127.0.0.1:port. Returns a stop function when this call started
  * it, or null when it was already running (a second `npm start` reuses it and leaves it up).
  */
-export function ensureCluster({ port, password }) {
+export async function ensureCluster({ port, password }) {
 	const bin = ensurePostgresBinaries();
 	const dir = clusterDir();
 	if (!fs.existsSync(path.join(dir, 'PG_VERSION'))) {
@@ -186,6 +187,12 @@ export function ensureCluster({ port, password }) {
 	if (pgIsRunning(bin, dir)) {
 		log(`PostgreSQL already running (${dir})`);
 		return null;
+	}
+	if (await portInUse(port)) {
+		fail(
+			`Port ${port} on 127.0.0.1 is taken by another program (perhaps a cluster of another checkout).\n` +
+				'Set SQUARELAW_DB_PORT to a free port, or set DATABASE_URL to use that server.'
+		);
 	}
 	log(`starting PostgreSQL on 127.0.0.1:${port} (${dir})`);
 	const options = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories= -c fsync=on`;
@@ -244,4 +251,15 @@ export async function waitForHttp(url, timeoutMs = 60_000) {
 		await new Promise((r) => setTimeout(r, 250));
 	}
 	throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
+}
+
+export function portInUse(port, host = '127.0.0.1') {
+	return new Promise((resolve) => {
+		const socket = net.connect({ port, host });
+		socket.once('connect', () => {
+			socket.destroy();
+			resolve(true);
+		});
+		socket.once('error', () => resolve(false));
+	});
 }
