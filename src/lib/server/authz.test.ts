@@ -197,6 +197,8 @@ const ACTIONS = {
 	}
 } satisfies Record<string, StudioAction>;
 type ActionName = keyof typeof ACTIONS;
+const perform = (action: ActionName, w: World, as: SessionUser | null) => (ACTIONS[action] as StudioAction).run(w, as);
+const effectOf = (action: ActionName): StudioAction['effect'] => (ACTIONS[action] as StudioAction).effect;
 
 /**
  * What the product promises (issue 2, Studios and roles): owners do everything, editors and viewers only
@@ -221,10 +223,10 @@ describe('authorization matrix: role × studio action', () => {
 			it(`${role} → ${action}: ${expected === 'ok' ? 'allowed' : `refused (${expected})`}`, async () => {
 				const w = await makeWorld(role);
 				const before = await snapshot(w.studioId);
-				const { outcome, result } = await attempt(() => ACTIONS[action].run(w, w.actor));
+				const { outcome, result } = await attempt(() => perform(action, w, w.actor));
 				const after = await snapshot(w.studioId);
 				expect(outcome).toBe(expected);
-				if (expected === 'ok') ACTIONS[action].effect(w, before, after, result);
+				if (expected === 'ok') effectOf(action)(w, before, after, result);
 				else expect(after).toEqual(before);
 			});
 		}
@@ -234,7 +236,7 @@ describe('authorization matrix: role × studio action', () => {
 		const w = await makeWorld('none');
 		const before = await snapshot(w.studioId);
 		for (const action of Object.keys(ACTIONS) as ActionName[]) {
-			const { outcome } = await attempt(() => ACTIONS[action].run(w, null));
+			const { outcome } = await attempt(() => perform(action, w, null));
 			expect(outcome, action).toBe(401);
 		}
 		expect(await snapshot(w.studioId)).toEqual(before);
@@ -246,7 +248,7 @@ describe('authorization matrix: role × studio action', () => {
 			await db.update(studios).set({ deletedAt: new Date() }).where(eq(studios.id, w.studioId));
 			const before = await snapshot(w.studioId);
 			for (const action of Object.keys(ACTIONS) as ActionName[]) {
-				const { outcome } = await attempt(() => ACTIONS[action].run(w, w.actor));
+				const { outcome } = await attempt(() => perform(action, w, w.actor));
 				expect(outcome, `${role} ${action}`).toBe(404);
 			}
 			expect(await snapshot(w.studioId)).toEqual(before);

@@ -25,6 +25,7 @@ const studioRules = await import('$lib/server/studios');
 
 type SessionUser = import('$lib/server/session').SessionUser;
 type StudioRole = import('$lib/server/db/schema').StudioRole;
+type Refusal = InstanceType<typeof RuleViolation> | Error;
 
 afterAll(async () => {
 	await client.end({ timeout: 5 });
@@ -64,7 +65,7 @@ async function ownersOf(studioId: string) {
 	return (await membersOf(studioId)).filter((m) => m.role === 'owner').length;
 }
 
-async function refusal(work: () => Promise<unknown>): Promise<RuleViolation | Error> {
+async function refusal(work: () => Promise<unknown>): Promise<Refusal> {
 	try {
 		await work();
 	} catch (e) {
