@@ -152,13 +152,13 @@ test('an expired invitation says so, cannot be accepted and leaves the open list
 });
 
 test('a malformed e-mail on sign-in gets a clear message and sends nothing', async ({ page }) => {
-	await page.goto('/signin?callbackUrl=%2Fstudios');
+	await page.goto('/signin?callbackUrl=%2Faccount');
 	const field = page.getByLabel('E-mail address');
 
 	// The browser's own check stops an address without an @ before it is sent.
 	await field.fill('pebble.finch');
 	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
-	await expect(page).toHaveURL(/\/signin\?callbackUrl=%2Fstudios$/);
+	await expect(page).toHaveURL(/\/signin\?callbackUrl=%2Faccount$/);
 	expect(await field.evaluate((el: HTMLInputElement) => el.validity.typeMismatch)).toBe(true);
 
 	// One the browser lets through (no dot in the domain) is refused by the server, with the field named.
@@ -182,7 +182,7 @@ test('a malformed e-mail on sign-in gets a clear message and sends nothing', asy
 	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
 	await expect(page.getByRole('heading', { name: 'Check your mail' })).toBeVisible();
 	const link = firstLink((await waitForMail(page, fixed, /sign-in link/i, before)).text);
-	expect(new URL(link).searchParams.get('callbackUrl')).toMatch(/\/studios$/);
+	expect(new URL(link).searchParams.get('callbackUrl')).toMatch(/\/account$/);
 });
 
 test('a sign-in link works once: used again it shows the message and does not sign in', async ({ page, newPage }) => {
@@ -190,6 +190,9 @@ test('a sign-in link works once: used again it shows the message and does not si
 	const link = await signIn(page, email);
 	await expect(page).toHaveURL(/\/studios$/);
 	await expect(page.getByRole('link', { name: 'Account' })).toBeVisible();
+	// The session cookie is out of reach of scripts and not sent on cross-site requests.
+	const session = (await page.context().cookies()).find((c) => c.name.endsWith('authjs.session-token'));
+	expect(session).toMatchObject({ httpOnly: true, sameSite: 'Lax' });
 
 	const other = await newPage();
 	await other.goto(link);

@@ -12,6 +12,11 @@ test('home, sign-in and calculator pages load everything from 127.0.0.1, Work Sa
 	for (const path of ['/', '/signin', '/calc']) {
 		const response = await page.goto(path, { waitUntil: 'networkidle' });
 		expect(response?.status(), path).toBe(200);
+		// The content security policy lets the browser fetch only from the app itself.
+		const csp = response!.headers()['content-security-policy'] ?? '';
+		for (const directive of ["default-src 'self'", "font-src 'self'", "connect-src 'self'"]) {
+			expect(csp, path).toContain(directive);
+		}
 		// The page's text is set in Work Sans, and the face is really loaded (not a fallback).
 		const family = await page.evaluate(() => getComputedStyle(document.body).fontFamily);
 		expect(family, path).toMatch(/^"?Work Sans"?/);
