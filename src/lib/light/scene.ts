@@ -92,6 +92,8 @@ export interface ExposureResult {
 }
 
 const stopsOf = (x: number) => (x > 0 ? Math.log2(x) : null);
+/** At a vanishing magnification the close-up depth of field has no finite value: say so with null. */
+const finiteOrNull = (v: number | null) => (v !== null && Number.isFinite(v) ? v : null);
 
 function crossingFlag(a: Vec3, b: Vec3, flags: readonly Flag[]): string | undefined {
 	const pa = plan(a);
@@ -226,7 +228,7 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 			exposureOffsetStops: stopsOf(totalX * scale),
 			flashOffsetStops: stopsOf(flashX * scale),
 			ambientOffsetStops: stopsOf(shutterX * scale),
-			dofMm: cam.magnification > 0 ? closeUpDepthOfFieldMm(a.exact, cam.magnification, coc, P) : null,
+			dofMm: finiteOrNull(cam.magnification > 0 ? closeUpDepthOfFieldMm(a.exact, cam.magnification, coc, P) : null),
 			airyDiskUm: airy,
 			diffractionLimited: airy > coc * 1000
 		};

@@ -7,8 +7,8 @@
  * Field names and units are those of API.md and never change; extra fields are ours.
  */
 import { z } from 'zod';
-import { SKY_PRESET_NAMES } from './ambient';
-import { GEL_NAMES } from './colour';
+import { SKY_PRESET_NAMES, type SkyPreset } from './ambient';
+import { GEL_NAMES, type GelName } from './colour';
 
 export const MAX_LIGHTS = 100;
 export const MAX_FLAGS = 100;
@@ -73,7 +73,8 @@ export type FlashCalcBody = z.input<typeof flashCalcSchema>;
 // ---------- POST /api/v1/calc/optics ----------
 export const opticsCalcSchema = z.object({
 	aperture: apertureField,
-	magnification: above(0, 100),
+	// Above 0 (API.md); from 1:10 000 up, so the close-up depth of field stays finite.
+	magnification: range(0.0001, 100),
 	pupilMagnification: pupilMagnificationField.default(1),
 	cocMm: cocMmField.default(0.03),
 	wavelengthNm: wavelengthNmField.default(550),
@@ -97,7 +98,7 @@ export const ambientCalcSchema = z
 		calibrationC: range(50, 1000).default(250),
 		luminanceCdM2: range(0.000001, 10_000_000, 'cd/m²').optional(),
 		calibrationK: range(5, 50).default(12.5),
-		skyPreset: z.enum(SKY_PRESET_NAMES as [string, ...string[]], { error: `must be one of ${SKY_PRESET_NAMES.join(', ')}` }).optional(),
+		skyPreset: z.enum(SKY_PRESET_NAMES as [SkyPreset, ...SkyPreset[]], { error: `must be one of ${SKY_PRESET_NAMES.join(', ')}` }).optional(),
 		meter: z.object({ aperture: apertureField, shutter: shutterField, iso: isoField.default(100) }).optional(),
 		iso: isoField.default(100),
 		aperture: apertureField,
@@ -126,7 +127,7 @@ export const colourCalcSchema = z
 		toKelvin: kelvinField.optional(),
 		kelvin: kelvinField.optional(),
 		gelMired: gelMiredField.optional(),
-		gel: z.enum(GEL_NAMES as [string, ...string[]], { error: `must be one of ${GEL_NAMES.join(', ')}` }).optional(),
+		gel: z.enum(GEL_NAMES as [GelName, ...GelName[]], { error: `must be one of ${GEL_NAMES.join(', ')}` }).optional(),
 		sources: z
 			.array(z.object({ kelvin: kelvinField, share: range(0, 1e12) }))
 			.min(1, 'must name at least one source')
