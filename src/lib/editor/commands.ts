@@ -316,7 +316,8 @@ export function setElementProperties(id: string, patch: Readonly<Record<string, 
 			const key = GEOMETRY_KEYS.find((k) => k in patch && patch[k] !== (el as Record<string, unknown>)[k]);
 			if (key) return refuse(`“${el.label}” is locked: unlock it to change ${key}`, [key]);
 		}
-		const checked = checkElement({ ...el, ...patch, id, kind: el.kind } as EditorElement);
+		const turned = typeof patch.rotationDeg === 'number' && Number.isFinite(patch.rotationDeg) ? { rotationDeg: normaliseDeg(patch.rotationDeg) } : {};
+		const checked = checkElement({ ...el, ...patch, ...turned, id, kind: el.kind } as EditorElement);
 		if (!checked.ok) return checked.result;
 		let next = checked.element;
 		if (next.kind === 'reflector' && next.source !== 'ambient') {

@@ -149,7 +149,8 @@ describe('Editor: document and session state', () => {
 		expect(doc.notes).toBe('Quartz on velvet');
 		expect(JSON.stringify(doc)).not.toMatch(/selected|zoom|hand/);
 		const again = new Editor({ document: JSON.parse(JSON.stringify(doc)) });
-		expect(again.model).toEqual(e.model);
+		expect(again.model.elements).toEqual(e.model.elements);
+		expect(again.toDocument()).toEqual(JSON.parse(JSON.stringify(doc)));
 		expect(again.selectedIds).toEqual([]);
 	});
 

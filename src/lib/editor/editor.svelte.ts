@@ -19,6 +19,7 @@ import { dimensionLines, type DimensionLine } from './model/dimensions';
 import { beams, bouncePaths, keepUnchanged, type Beam, type BouncePath } from './model/light-paths';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
 import { documentFromModel, modelFromDocument, type Plan, type SetupDocument } from './model/document';
+import type { GearSnapshot } from '$lib/scene/document';
 import { boundsContain, boundsOfElements, elementBounds, expandBounds, hitTest, type Bounds } from './model/geometry';
 import { emptySetupScene, modelFromScene } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
@@ -34,9 +35,17 @@ import type { Tool } from './tools/tool';
 import type { PlanKeyInput, PlanPointer, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
 import { DEFAULT_VIEWPORT, fitBounds, panBy, screenToPlan, zoomAt, ZOOM_STEP, type Viewport } from './viewport';
 
+/** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
+export interface DocumentIn {
+	scene: ExposureScene;
+	plan?: Plan | Record<string, unknown>;
+	notes?: string;
+	gear?: readonly GearSnapshot[];
+}
+
 export interface EditorOptions {
 	/** The setup document to edit (a plan of `{}` is laid out from the scene); none: an empty setup. */
-	document?: { scene: ExposureScene; plan: Plan };
+	document?: DocumentIn;
 	unitSystem?: UnitSystem;
 	/** Session state to start from (e.g. kept by the page across a reload). */
 	viewport?: Viewport;
@@ -54,6 +63,9 @@ export class Editor implements ToolHost {
 	#historyVersion = $state(0);
 	#savedSignature = $state('');
 	#loadNotes = $state.raw<string[]>([]);
+	/** The document's notes and gear copies: the page edits notes, the server fills gear; both go back as given. */
+	#notes = '';
+	#gear: readonly GearSnapshot[] = [];
 
 	// ----- session state (never saved) -----
 	#selectedIds = $state.raw<readonly string[]>([]);
@@ -224,9 +236,11 @@ export class Editor implements ToolHost {
 
 	// ===== the document =====
 
-	loadDocument(doc: { scene: ExposureScene; plan: Plan }) {
+	loadDocument(doc: DocumentIn) {
 		this.#cancelGesture();
 		const { model, notes } = modelFromDocument(doc);
+		this.#notes = doc.notes ?? '';
+		this.#gear = doc.gear ?? [];
 		this.#model = model;
 		this.#loadNotes = notes;
 		this.#history.clear();
@@ -237,9 +251,9 @@ export class Editor implements ToolHost {
 		if (this.#stageSize) this.zoomToFit();
 	}
 
-	/** The document to save: `{ schemaVersion, scene, plan, notes }`. */
-	toDocument(notes = ''): SetupDocument {
-		return documentFromModel(this.#model, notes);
+	/** The document to save: `{ schemaVersion, scene, plan, notes, gear }` (notes: the loaded ones unless given). */
+	toDocument(notes = this.#notes): SetupDocument {
+		return documentFromModel(this.#model, notes, this.#gear);
 	}
 
 	/** After a successful save: the current state is the saved one. */
@@ -508,10 +522,23 @@ export class Editor implements ToolHost {
 	zoomOut() {
 		this.zoomBy(1 / ZOOM_STEP);
 	}
+	/** The plan's own frame of the table (the document's `plan.viewport`), if it has one. */
+	get planFrame(): Bounds | null {
+		const v = this.#model.kept.rest.viewport as { center?: [number, number]; widthM?: number; depthM?: number } | undefined;
+		if (!v?.center || !v.widthM || !v.depthM) return null;
+		return { minX: v.center[0] - v.widthM / 2, maxX: v.center[0] + v.widthM / 2, minY: v.center[1] - v.depthM / 2, maxY: v.center[1] + v.depthM / 2 };
+	}
+
+	/** Shows the whole plan: its elements, and the document's frame of the table when it has one. */
 	zoomToFit() {
 		const size = this.#stageSize;
 		if (!size) return;
-		const b = boundsOfElements(Object.values(this.#model.elements).filter((e) => e.kind !== 'background')) ?? boundsOfElements(this.elements);
+		const content = boundsOfElements(Object.values(this.#model.elements).filter((e) => e.kind !== 'background')) ?? boundsOfElements(this.elements);
+		const frame = this.planFrame;
+		const b =
+			content && frame
+				? { minX: Math.min(content.minX, frame.minX), minY: Math.min(content.minY, frame.minY), maxX: Math.max(content.maxX, frame.maxX), maxY: Math.max(content.maxY, frame.maxY) }
+				: (content ?? frame);
 		if (!b) return;
 		this.#viewport = fitBounds(expandBounds(b, 0.03), size.widthPx, size.heightPx);
 		this.#fitPending = false;

@@ -1,5 +1,5 @@
 /** The plan editor's public surface for the page (the Konva components are imported on their own, in the browser). */
-export { Editor, type EditorOptions, type LengthParse } from './editor.svelte';
+export { Editor, type DocumentIn, type EditorOptions, type LengthParse } from './editor.svelte';
 export { setEditorContext, getEditorContext, hasEditorContext } from './context';
 export * as commands from './commands';
 export type { Command, CommandError, CommandResult } from './commands';
@@ -10,7 +10,7 @@ export { ELEMENT_KINDS } from './model/schema';
 export type * from './model/schema';
 export type { EditorModel } from './model/types';
 export { toExposureScene, excludedElements } from './model/scene';
-export { modelFromDocument, documentFromModel, setupDocumentSchema, type SetupDocument, type Plan } from './model/document';
+export { modelFromDocument, documentFromModel, planFromModel, type SetupDocument, type Plan } from './model/document';
 export { modelFromScene, emptySetupScene } from './model/layout';
 export { FALLOFF_LEGEND_STOPS, falloffColour, FALLOFF_PALETTE_LIGHT, FALLOFF_PALETTE_DARK } from './falloff';
 export { kelvinToHex, kelvinToRgb } from './kelvin-colour';

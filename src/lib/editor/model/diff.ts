@@ -80,6 +80,7 @@ export function applyDiff(model: EditorModel, diff: ModelDiff): EditorModel {
 	for (const [id, el] of Object.entries(diff.added)) elements[id] = el;
 	for (const [id, [, after]] of Object.entries(diff.updated)) elements[id] = after;
 	return {
+		...model,
 		elements,
 		camera: diff.camera ? diff.camera[1] : model.camera,
 		ambient: diff.ambient ? diff.ambient[1] : model.ambient

@@ -21,7 +21,7 @@ import type {
 	ReflectorElement,
 	SubjectElement
 } from './schema';
-import type { EditorModel, Vec2, Vec3 } from './types';
+import { EMPTY_KEPT_PLAN, type EditorModel, type Vec2, type Vec3 } from './types';
 
 /** Focal length assumed for a camera laid out from a scene alone (a common macro lens length). */
 export const LAYOUT_FOCAL_LENGTH_MM = 100;
@@ -35,9 +35,15 @@ export function layoutCameraDistanceM(magnification: number, focalLengthMm = LAY
 const SCENE_MODIFIER_NAME = 'Modifier';
 const BARE_SIZE_M = 0.075;
 
-function modifierFromScene(light: { lossStops?: number; beamAngleDeg?: number }, planModifier: Modifier | null | undefined): Modifier | null {
+/**
+ * A light's modifier: the scene holds its beam angle and its loss, the plan its name and size.
+ * `planModifier` undefined (no plan entry): all of the scene's loss is put down to a modifier;
+ * null (the plan says none): only a beam the scene gives makes one, with no loss of its own.
+ */
+export function modifierFromScene(light: { lossStops?: number; beamAngleDeg?: number }, planModifier: Modifier | null | undefined): Modifier | null {
 	const beam = light.beamAngleDeg ?? null;
 	if (planModifier) return planModifier.beamAngleDeg === beam ? planModifier : { ...planModifier, beamAngleDeg: beam };
+	if (planModifier === null) return beam === null ? null : { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, lossStops: 0, sizeM: BARE_SIZE_M };
 	if (beam !== null || (light.lossStops ?? 0) > 0) {
 		return { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, lossStops: light.lossStops ?? 0, sizeM: BARE_SIZE_M };
 	}
@@ -144,7 +150,8 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 	const model: EditorModel = {
 		elements,
 		camera: { ...scene.camera },
-		ambient: scene.ambient ? { ...scene.ambient } : null
+		ambient: scene.ambient ? { ...scene.ambient } : null,
+		kept: EMPTY_KEPT_PLAN
 	};
 	// Reflectors the scene could not hold (no usable source) live in the plan only: keep them.
 	for (const el of Object.values(planElements)) {
@@ -191,7 +198,7 @@ function emitterFromScene(
 	nextZ: () => number
 ): FlashElement | ContinuousElement {
 	const pos = light.position as Vec3;
-	const modifier = modifierFromScene(light, plan?.modifier);
+	const modifier = modifierFromScene(light, plan ? plan.modifier : undefined);
 	const modLoss = modifier?.lossStops ?? 0;
 	const otherLossStops = Math.max(0, round6((light.lossStops ?? 0) - modLoss - diffuserLossStops(diffusers, [pos[0], pos[1]], [subject[0], subject[1]])));
 	const planAim = plan ? { rotationDeg: plan.rotationDeg, tiltDeg: plan.tiltDeg } : null;

@@ -29,7 +29,8 @@ const coordinateM = range(-1000, 1000, 'm');
 const heightM = range(-100, 100, 'm');
 /** A size on the plan: 1 mm to 100 m. */
 const sizeM = range(0.001, 100, 'm');
-const rotationDeg = range(-100_000, 100_000, '°');
+/** The document's plan takes −360° to 360°; commands keep rotations in (−180°, 180°]. */
+const rotationDeg = range(-360, 360, '°');
 const tiltDeg = range(-90, 90, '°');
 
 export const ELEMENT_KINDS = ['subject', 'camera', 'flash', 'continuous', 'reflector', 'diffuser', 'flag', 'background'] as const;
@@ -37,7 +38,7 @@ export type ElementKind = (typeof ELEMENT_KINDS)[number];
 
 const base = {
 	id: z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(100, 'must be at most 100 characters'),
-	label: z.string({ error: 'must be a string' }).max(80, 'must be at most 80 characters'),
+	label: z.string({ error: 'must be a string' }).max(200, 'must be at most 200 characters'),
 	xM: coordinateM,
 	yM: coordinateM,
 	heightM,
@@ -146,7 +147,7 @@ export const backgroundElementSchema = z.object({
 	kind: z.literal('background'),
 	widthM: sizeM,
 	depthM: sizeM,
-	colour: z.string().regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #1a1a1a')
+	colour: z.string({ error: 'must be a colour such as "#1a1a1a"' }).regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour such as "#1a1a1a"')
 });
 
 export const editorElementSchema = z.discriminatedUnion('kind', [

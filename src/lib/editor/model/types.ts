@@ -3,10 +3,23 @@ import type { AmbientSettings, CameraSettings, EditorElement } from './schema';
 
 export type * from './schema';
 
+/**
+ * What the editor keeps from a document's plan without editing it: the entries as read (with fields
+ * it does not use, such as a gear id), entries of kinds it does not draw (a modifier fitted to a light,
+ * a written label, the table), and the plan's other keys (its print frame). Written back on save.
+ */
+export interface KeptPlan {
+	readonly entries: Readonly<Record<string, Readonly<Record<string, unknown>>>>;
+	readonly rest: Readonly<Record<string, unknown>>;
+}
+
+export const EMPTY_KEPT_PLAN: KeptPlan = { entries: {}, rest: {} };
+
 export interface EditorModel {
 	readonly elements: Readonly<Record<string, EditorElement>>;
 	readonly camera: CameraSettings;
 	readonly ambient: AmbientSettings | null;
+	readonly kept: KeptPlan;
 }
 
 export type Vec2 = readonly [number, number];
