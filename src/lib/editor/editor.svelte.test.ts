@@ -154,15 +154,16 @@ describe('Editor: document and session state', () => {
 		expect(again.selectedIds).toEqual([]);
 	});
 
-	it('reads typed lengths in the unit system: a bare number is cm or inches', () => {
+	it('reads typed lengths in the unit system: a bare number is cm or inches', async () => {
 		const e = editor();
-		expect(e.parseLength('30 cm')).toEqual({ ok: true, valueM: expect.closeTo(0.3, 12) });
-		expect(e.parseLength('30')).toEqual({ ok: true, valueM: expect.closeTo(0.3, 12) });
+		expect(await e.parseLength('30 cm')).toEqual({ ok: true, valueM: expect.closeTo(0.3, 12) });
+		expect(await e.parseLength('30')).toEqual({ ok: true, valueM: expect.closeTo(0.3, 12) });
 		e.unitSystem = 'imperial';
 		// 1 in = 25.4 mm exactly (international inch, 1959).
-		expect(e.parseLength('12')).toEqual({ ok: true, valueM: expect.closeTo(0.3048, 12) });
+		expect(await e.parseLength('12')).toEqual({ ok: true, valueM: expect.closeTo(0.3048, 12) });
+		expect(await e.parseLength('1 ft + 2 in')).toEqual({ ok: true, valueM: expect.closeTo(0.3556, 12) });
 		expect(e.formatLength(0.3048)).toBe('12 in');
-		const bad = e.parseLength('twelve');
+		const bad = await e.parseLength('twelve');
 		expect(bad.ok).toBe(false);
 		expect(e.gridStepM).toBeCloseTo(0.5 * 0.0254); // 12.7 px at 1000 px/m
 	});

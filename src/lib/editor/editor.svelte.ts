@@ -6,7 +6,6 @@
  * the page goes.
  */
 import { formatDistance, type UnitSystem } from '$lib/light/format';
-import { parseLengthM as parseLengthText, UnitParseError } from '$lib/light/units';
 import type { ExposureScene } from '$lib/light/schema';
 import * as commands from './commands';
 import type { Command, CommandError, CommandResult } from './commands';
@@ -386,6 +385,10 @@ export class Editor implements ToolHost {
 	deleteSelected() {
 		return this.execute(commands.removeElements(this.#selectedIds));
 	}
+	/** Deletes elements by id (the element list); locked ones and the subject stay. */
+	deleteElements(ids: readonly string[]) {
+		return this.execute(commands.removeElements(ids));
+	}
 	duplicateSelected() {
 		const step = this.gridStepM;
 		const offset = Math.max(0.02, Math.ceil(0.03 / step) * step);
@@ -552,10 +555,15 @@ export class Editor implements ToolHost {
 	formatLength(m: number): string {
 		return formatDistance(m, this.unitSystem);
 	}
-	/** A typed length (`30 cm`, `1 ft 2 in`, `12`): a bare number is cm in metric, inches in imperial. */
-	parseLength(text: string): LengthParse {
+	/**
+	 * A typed length (`30 cm`, `1 ft + 2 in`, `12`): a bare number is cm in metric, inches in imperial.
+	 * The parser (mathjs, through the engine's units module) is loaded on first use, so the plan does
+	 * not wait for it.
+	 */
+	async parseLength(text: string): Promise<LengthParse> {
+		const { parseLengthM, UnitParseError } = await import('$lib/light/units');
 		try {
-			return { ok: true, valueM: parseLengthText(text, this.unitSystem === 'imperial' ? 'in' : 'cm') };
+			return { ok: true, valueM: parseLengthM(text, this.unitSystem === 'imperial' ? 'in' : 'cm') };
 		} catch (e) {
 			if (e instanceof UnitParseError) return { ok: false, message: e.message };
 			throw e;
