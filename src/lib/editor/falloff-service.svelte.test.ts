@@ -40,11 +40,13 @@ describe('FalloffService', () => {
 
 	it('sends one map at a time and, of the requests that wait, only the newest', () => {
 		globalThis.Worker = HeldWorker as unknown as typeof Worker;
+		HeldWorker.last = null;
 		const s = new FalloffService(true);
-		const w = HeldWorker.last!;
 		expect(s.usesWorker).toBe(true);
+		expect(HeldWorker.last).toBeNull(); // no worker until a map is asked for
 		const scene = quartzScene();
 		s.request(scene, bounds, 100);
+		const w = HeldWorker.last!;
 		s.request(scene, bounds, 200);
 		s.request(scene, bounds, 300);
 		expect(w.posted.map((r) => r.maxCells)).toEqual([100]);
@@ -58,8 +60,8 @@ describe('FalloffService', () => {
 	it('ignores an answer that arrives after the map was hidden; destroy() ends the worker', () => {
 		globalThis.Worker = HeldWorker as unknown as typeof Worker;
 		const s = new FalloffService(true);
-		const w = HeldWorker.last!;
 		s.request(quartzScene(), bounds, 100);
+		const w = HeldWorker.last!;
 		s.clear();
 		w.answer(w.posted[0]);
 		expect(s.grid).toBeNull();

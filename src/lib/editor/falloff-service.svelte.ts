@@ -24,15 +24,23 @@ export class FalloffService {
 	#nextId = 1;
 	#failed = false;
 
+	readonly #canUseWorker: boolean;
+
 	constructor(useWorker = typeof Worker !== 'undefined') {
-		if (!useWorker) return;
+		this.#canUseWorker = useWorker;
+	}
+
+	/** The worker starts with the first map asked for (a plan never shown with its map costs nothing). */
+	#ensureWorker(): Worker | null {
+		if (this.#worker || !this.#canUseWorker || this.#failed) return this.#worker;
 		try {
 			this.#worker = new Worker(new URL('./falloff.worker.ts', import.meta.url), { type: 'module' });
 			this.#worker.onmessage = (e: MessageEvent<FalloffResponse>) => this.#answer(e.data);
 			this.#worker.onerror = () => this.#fallBack();
 		} catch {
-			this.#worker = null;
+			this.#failed = true;
 		}
+		return this.#worker;
 	}
 
 	/** The latest map (it may lag the plan by one computation while a light is dragged). */
@@ -41,7 +49,7 @@ export class FalloffService {
 	}
 
 	get usesWorker(): boolean {
-		return this.#worker !== null && !this.#failed;
+		return this.#canUseWorker && !this.#failed;
 	}
 
 	request(scene: ExposureScene, bounds: Bounds, maxCells = DEFAULT_MAX_CELLS) {
@@ -65,8 +73,13 @@ export class FalloffService {
 	}
 
 	#send(req: FalloffRequest) {
+		const worker = this.#ensureWorker();
+		if (!worker) {
+			this.#grid = falloffGrid(req.scene, req.bounds, req.maxCells);
+			return;
+		}
 		this.#inFlight = req.id;
-		this.#worker!.postMessage(req);
+		worker.postMessage(req);
 	}
 
 	#answer(res: FalloffResponse) {
@@ -81,6 +94,8 @@ export class FalloffService {
 	/** A worker that cannot start (a strict content policy): compute on the main thread instead. */
 	#fallBack() {
 		this.#failed = true;
+		this.#worker?.terminate();
+		this.#worker = null;
 		const next = this.#waiting;
 		this.#inFlight = null;
 		this.#waiting = null;
