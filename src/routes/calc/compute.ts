@@ -3,8 +3,9 @@
  * answer. The page's form actions run it on the server (no JavaScript needed); the live client runs the
  * same steps in the browser with `fetch` and an AbortSignal.
  */
-import type { UnitSystem } from '$lib/light/units';
-import { readFields, type FieldErrors, type FieldValues } from './fields';
+import type { UnitSystem } from '$lib/light/format';
+import type { FieldErrors, FieldValues } from './fields';
+import { readFields } from './parse';
 import type { Answer, Question } from './questions';
 
 export type Outcome = { ok: true; answer: Answer } | { ok: false; errors: FieldErrors };

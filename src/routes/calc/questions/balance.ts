@@ -1,6 +1,6 @@
 import { SKY_PRESETS, SKY_PRESET_NAMES, type AmbientCalcResult } from '$lib/light/ambient';
 import type { AmbientCalcBody } from '$lib/light/schema';
-import { formatFNumber, formatShutter, formatStops, type UnitSystem } from '$lib/light/units';
+import { formatFNumber, formatShutter, formatStops, type UnitSystem } from '$lib/light/format';
 import { hints } from '../fields';
 import { n, type Answer, type Question } from './types';
 
