@@ -1,0 +1,25 @@
+import { it } from 'vitest';
+import { z } from 'zod';
+import { sixLightScene } from '../../../scripts/bench/calc.mjs';
+import { exposureSceneSchema, sceneLightSchema, vec3Schema, sceneCameraSchema } from './schema';
+import { computeExposure } from './scene';
+import { findNonFinite } from './finite';
+import { sceneCautions } from './cautions';
+it('prof', () => {
+	const text = JSON.stringify(sixLightScene);
+	const N = 20000;
+	const t = (name: string, fn: () => unknown) => { const s = performance.now(); for (let i = 0; i < N; i++) fn(); console.log(name, ((performance.now() - s) / N * 1000).toFixed(1), 'µs'); };
+	const raw = JSON.parse(text);
+	const parsed = exposureSceneSchema.parse(raw);
+	const res = computeExposure(parsed);
+	t('zod', () => exposureSceneSchema.parse(raw));
+	t('zod lights only', () => z.array(sceneLightSchema).parse(raw.lights));
+	t('zod camera', () => sceneCameraSchema.parse(raw.camera));
+	t('zod vec3 x 10', () => { for (let i = 0; i < 10; i++) vec3Schema.parse([1, 2, 3]); });
+	const arr3 = z.array(z.number().min(-1e4).max(1e4)).length(3);
+	t('zod arr3 x 10', () => { for (let i = 0; i < 10; i++) arr3.parse([1, 2, 3]); });
+	t('compute', () => computeExposure(parsed));
+	t('cautions', () => sceneCautions(parsed));
+	t('finite', () => findNonFinite(res));
+	t('stringify', () => JSON.stringify(res));
+});
