@@ -25,6 +25,8 @@ export interface PlanElementLike {
 	kind?: string;
 	label?: string;
 	position?: readonly number[];
+	xM?: number;
+	yM?: number;
 	rotationDeg?: number;
 	widthM?: number;
 	depthM?: number;
@@ -146,6 +148,13 @@ export function elementName(kind: string, label: string): string {
 	return `${kindWord(kind)} “${label}”`;
 }
 
+/** Where a plan-only element stands: `position` [x, y, z], or the editor's `xM`, `yM`, `heightM`. */
+export function planElementPosition(el: PlanElementLike): Vec3 | null {
+	if (el.position) return vec3(el.position);
+	if (typeof el.xM === 'number' && typeof el.yM === 'number') return [el.xM, el.yM, typeof el.heightM === 'number' ? el.heightM : 0];
+	return null;
+}
+
 function vec3(p: readonly number[] | undefined | null): Vec3 | null {
 	if (!p || p.length < 2) return null;
 	return [Number(p[0]) || 0, Number(p[1]) || 0, Number(p[2] ?? 0) || 0];
@@ -188,7 +197,7 @@ export function placedElements(doc: ComparableDocument): Map<string, Placed> {
 			id,
 			kind: el.kind ?? 'label',
 			label: el.label?.trim() || id,
-			position: vec3(el.position),
+			position: planElementPosition(el),
 			rotationDeg: el.rotationDeg
 		});
 	}
