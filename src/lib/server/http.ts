@@ -1,5 +1,6 @@
-import { json } from '@sveltejs/kit';
+import { isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { RuleViolation } from './errors';
 
 /** The error shape fixed by API.md for every JSON route. */
 export interface ApiErrorBody {
@@ -84,4 +85,43 @@ async function readLimited(request: Request, maxBytes: number): Promise<string> 
 		chunks.push(value);
 	}
 	return new TextDecoder().decode(Buffer.concat(chunks));
+}
+
+/**
+ * Reads a body as text with a size limit (for uploads such as a setup file). Returns null when the
+ * body is over `maxBytes`.
+ */
+export async function readBodyText(request: Request, maxBytes: number): Promise<string | null> {
+	const declared = Number(request.headers.get('content-length') ?? '0');
+	if (declared > maxBytes) return null;
+	try {
+		return await readLimited(request, maxBytes);
+	} catch (e) {
+		if (e instanceof BodyTooLarge) return null;
+		throw e;
+	}
+}
+
+type IssueList = { path: string[]; message: string }[];
+
+/**
+ * Wraps a JSON route handler so that a refusal thrown with SvelteKit's `error()` (401, 403, 404, …) or a
+ * `RuleViolation` becomes API.md's error body with the same status. A RuleViolation may carry `issues`
+ * (else its `field` names the one at fault) and `extra` fields for the body (e.g. `latestRevision` on a
+ * 409). Anything else is a bug and is left to SvelteKit.
+ */
+export function apiRoute<E extends RequestEvent>(handler: (event: E) => Response | Promise<Response>) {
+	return async (event: E): Promise<Response> => {
+		try {
+			return await handler(event);
+		} catch (e) {
+			if (isHttpError(e)) return apiError(e.status, e.body.message);
+			if (e instanceof RuleViolation) {
+				const detail = e as RuleViolation & { issues?: IssueList; extra?: Record<string, unknown> };
+				const issues = detail.issues ?? (e.field ? [{ path: [e.field], message: e.message }] : []);
+				return apiError(e.status, e.message, issues, detail.extra ?? {});
+			}
+			throw e;
+		}
+	};
 }

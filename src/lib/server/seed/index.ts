@@ -4,6 +4,7 @@ import { and, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { memberships, studios, users, type StudioRole } from '$lib/server/db/schema';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
+import { seedNotebook } from './notebook';
 
 export const CLUB_STUDIO_ID = '0f3e8a52-6d1b-4c8e-9a51-2f7c0d4b9e11';
 export const CLUB_STUDIO_NAME = 'Fernhill Geology Circle';
@@ -42,5 +43,6 @@ export async function seedDemo() {
 			studio: demo.isAdmin ? 'every studio' : CLUB_STUDIO_NAME
 		});
 	}
-	return { users: seeded };
+	const notebook = await seedNotebook(CLUB_STUDIO_ID);
+	return { users: seeded, notebook };
 }

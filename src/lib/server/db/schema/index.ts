@@ -2,3 +2,5 @@ export * from './auth';
 export * from './studios';
 export * from './security';
 export * from './relations';
+export * from './setups';
+export * from './gear';

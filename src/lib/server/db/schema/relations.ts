@@ -2,6 +2,8 @@ import { relations } from 'drizzle-orm';
 import { accessTokens } from './security';
 import { sessions, users } from './auth';
 import { invitations, memberships, studios } from './studios';
+import { setupRevisions, setups } from './setups';
+import { gear } from './gear';
 
 export const usersRelations = relations(users, ({ many }) => ({
 	memberships: many(memberships),
@@ -30,4 +32,26 @@ export const sessionsRelations = relations(sessions, ({ one }) => ({
 
 export const accessTokensRelations = relations(accessTokens, ({ one }) => ({
 	user: one(users, { fields: [accessTokens.userId], references: [users.id] })
+}));
+
+export const setupsRelations = relations(setups, ({ one, many }) => ({
+	studio: one(studios, { fields: [setups.studioId], references: [studios.id] }),
+	revisions: many(setupRevisions),
+	derivedFrom: one(setups, {
+		fields: [setups.derivedFromSetupId],
+		references: [setups.id],
+		relationName: 'lineage'
+	}),
+	derivatives: many(setups, { relationName: 'lineage' }),
+	createdBy: one(users, { fields: [setups.createdById], references: [users.id] })
+}));
+
+export const setupRevisionsRelations = relations(setupRevisions, ({ one }) => ({
+	setup: one(setups, { fields: [setupRevisions.setupId], references: [setups.id] }),
+	author: one(users, { fields: [setupRevisions.authorId], references: [users.id] })
+}));
+
+export const gearRelations = relations(gear, ({ one }) => ({
+	studio: one(studios, { fields: [gear.studioId], references: [studios.id] }),
+	createdBy: one(users, { fields: [gear.createdById], references: [users.id] })
 }));

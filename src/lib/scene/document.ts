@@ -1,0 +1,152 @@
+/**
+ * The setup document: what one revision of a setup stores, as plain JSON.
+ *
+ *   { schemaVersion, scene, plan, notes, gear }
+ *
+ * - `scene` is exactly the body of `POST /api/v1/exposure` (the light engine's `exposureSceneSchema`):
+ *   positions [x, y, z] in metres, so heights live here and distances are true 3-D distances.
+ * - `plan` is what only the drawing needs (labels, rotation, sizes, colours), keyed by element id. It may
+ *   be `{}`: the editor lays out whatever the plan lacks.
+ * - `notes` is Markdown (rendered sanitised by the pages).
+ * - `gear` holds copies of the gear-shelf items the plan refers to (`plan.elements[id].gearId`), taken
+ *   when the gear was attached, so a later change on the gear shelf never rewrites a saved revision.
+ *
+ * Selection, zoom and the active tool are session state and never saved here.
+ * Older `schemaVersion`s are migrated on read (see migrations.ts).
+ */
+import { z } from 'zod';
+import { exposureSceneSchema, vec2Schema, vec3Schema } from '$lib/light/schema';
+import { gearKindSchema, gearSpecSchemas } from './gear';
+
+export const CURRENT_SCHEMA_VERSION = 1;
+
+export const MAX_NOTES_CHARS = 20_000;
+export const MAX_PLAN_ELEMENTS = 500;
+export const MAX_GEAR_SNAPSHOTS = 100;
+export const MAX_LABEL_CHARS = 200;
+
+/** Kinds of drawn element. The scene's lights and flags have their own ids; plan-only elements (a
+ * background sweep, the table edge, a written label) exist only here. */
+export const PLAN_ELEMENT_KINDS = [
+	'subject',
+	'camera',
+	'flash',
+	'continuous',
+	'reflector',
+	'flag',
+	'modifier',
+	'diffuser',
+	'background',
+	'table',
+	'label'
+] as const;
+
+const finite = (min: number, max: number, unit = '') =>
+	z
+		.number({ error: 'must be a number' })
+		.min(min, `must be at least ${min}${unit ? ' ' + unit : ''}`)
+		.max(max, `must be at most ${max}${unit ? ' ' + unit : ''}`);
+
+const sizeM = finite(0, 100, 'm');
+
+export const elementIdSchema = z
+	.string()
+	.min(1, 'must not be empty')
+	.max(100, 'must be at most 100 characters');
+
+export const colourSchema = z
+	.string({ error: 'must be a colour such as "#f2c14e"' })
+	.regex(/^#(?:[0-9a-fA-F]{3}|[0-9a-fA-F]{6})$/, 'must be a hex colour such as "#f2c14e"');
+
+/**
+ * One drawn element. Known fields are checked; further fields the editor may add later are kept
+ * (a loose object), so an older server does not strip what a newer editor wrote.
+ */
+export const planElementSchema = z.looseObject({
+	kind: z.enum(PLAN_ELEMENT_KINDS, { error: `must be one of ${PLAN_ELEMENT_KINDS.join(', ')}` }).optional(),
+	label: z.string({ error: 'must be text' }).max(MAX_LABEL_CHARS, `must be at most ${MAX_LABEL_CHARS} characters`).optional(),
+	rotationDeg: finite(-360, 360, '°').optional(),
+	widthM: sizeM.optional(),
+	depthM: sizeM.optional(),
+	heightM: sizeM.optional(),
+	/** Plan-only elements (background, table, label) have no scene position of their own. */
+	position: vec3Schema.optional(),
+	colour: colourSchema.optional(),
+	locked: z.boolean({ error: 'must be true or false' }).optional(),
+	gearId: z.uuid({ error: 'must be the id of an item on the gear shelf' }).optional(),
+	/** A modifier or diffuser is drawn on the light it is fitted to. */
+	attachedTo: elementIdSchema.optional()
+});
+
+/** The part of the table the plan frames by default (also the print frame); not a session's zoom. */
+export const planViewportSchema = z.looseObject({
+	center: vec2Schema.optional(),
+	widthM: finite(0.01, 1000, 'm').optional(),
+	depthM: finite(0.01, 1000, 'm').optional()
+});
+
+export const planSchema = z.looseObject({
+	elements: z
+		.record(elementIdSchema, planElementSchema)
+		.refine((r) => Object.keys(r).length <= MAX_PLAN_ELEMENTS, `at most ${MAX_PLAN_ELEMENTS} elements`)
+		.optional(),
+	viewport: planViewportSchema.optional()
+});
+
+/** A copy of a gear-shelf item as it was when the setup took it. */
+export const gearSnapshotSchema = z
+	.object({
+		id: z.uuid({ error: 'must be a gear id' }),
+		kind: gearKindSchema,
+		name: z.string().min(1, 'must not be empty').max(200, 'must be at most 200 characters'),
+		spec: z.record(z.string(), z.unknown()),
+		copiedAt: z.iso.datetime({ error: 'must be an ISO date-time', offset: true })
+	})
+	.superRefine((snap, ctx) => {
+		const parsed = gearSpecSchemas[snap.kind].safeParse(snap.spec);
+		if (!parsed.success) {
+			for (const issue of parsed.error.issues) {
+				ctx.addIssue({ code: 'custom', path: ['spec', ...issue.path.map(String)], message: issue.message });
+			}
+		}
+	});
+
+export const setupDocumentSchema = z
+	.object({
+		schemaVersion: z.literal(CURRENT_SCHEMA_VERSION, { error: `must be ${CURRENT_SCHEMA_VERSION}` }),
+		scene: exposureSceneSchema,
+		plan: planSchema.default({}),
+		notes: z
+			.string({ error: 'must be text (Markdown)' })
+			.max(MAX_NOTES_CHARS, `must be at most ${MAX_NOTES_CHARS} characters`)
+			.default(''),
+		gear: z
+			.array(gearSnapshotSchema)
+			.max(MAX_GEAR_SNAPSHOTS, `at most ${MAX_GEAR_SNAPSHOTS} gear items`)
+			.default([])
+	})
+	.superRefine((doc, ctx) => {
+		const seen = new Set<string>();
+		doc.gear.forEach((g, i) => {
+			if (seen.has(g.id)) ctx.addIssue({ code: 'custom', path: ['gear', i, 'id'], message: `gear ${g.id} is copied twice` });
+			seen.add(g.id);
+		});
+	});
+
+export type SetupDocument = z.output<typeof setupDocumentSchema>;
+export type SetupDocumentInput = z.input<typeof setupDocumentSchema>;
+export type PlanElement = z.output<typeof planElementSchema>;
+export type Plan = z.output<typeof planSchema>;
+export type GearSnapshot = z.output<typeof gearSnapshotSchema>;
+
+/** Every gear id the plan refers to, in a stable order. */
+export function referencedGearIds(doc: Pick<SetupDocument, 'plan'>): string[] {
+	const ids = new Set<string>();
+	for (const el of Object.values(doc.plan.elements ?? {})) if (el.gearId) ids.add(el.gearId);
+	return [...ids].sort();
+}
+
+/** The plan element id that refers to a gear id (for error paths). */
+export function elementUsingGear(doc: Pick<SetupDocument, 'plan'>, gearId: string): string | undefined {
+	return Object.entries(doc.plan.elements ?? {}).find(([, el]) => el.gearId === gearId)?.[0];
+}

@@ -1,0 +1,156 @@
+/**
+ * What the gear shelf knows about each kind of equipment: one zod schema per kind, shared by the gear
+ * forms, the gear API and the copies of gear kept inside setup documents. Units are in the names.
+ */
+import { z } from 'zod';
+import {
+	apertureField,
+	cocMmField,
+	focalLengthMmField,
+	guideNumberField,
+	kelvinField,
+	lossStopsField,
+	pupilMagnificationField
+} from '$lib/light/schema';
+
+export const GEAR_KINDS = ['flash', 'modifier', 'reflector', 'lens', 'camera'] as const;
+export type GearKind = (typeof GEAR_KINDS)[number];
+export const gearKindSchema = z.enum(GEAR_KINDS, { error: `must be one of ${GEAR_KINDS.join(', ')}` });
+
+const num = (min: number, max: number, unit = '') =>
+	z
+		.number({ error: 'must be a number' })
+		.min(min, `must be at least ${min}${unit ? ' ' + unit : ''}`)
+		.max(max, `must be at most ${max}${unit ? ' ' + unit : ''}`);
+const positive = (max: number, unit = '') =>
+	z
+		.number({ error: 'must be a number' })
+		.gt(0, 'must be greater than 0')
+		.max(max, `must be at most ${max}${unit ? ' ' + unit : ''}`);
+
+const syncSpeedS = positive(10, 's');
+
+export const flashSpecSchema = z.object({
+	/** Guide number in metres at ISO 100 and full power, as the head is set (API.md). */
+	guideNumberM: guideNumberField,
+	/** The lowest power the flash offers, as a fraction of full power (1/128 = 0.0078125). */
+	lowestPower: z
+		.number({ error: 'must be a number' })
+		.gt(0, 'must be greater than 0')
+		.max(1, 'must be at most 1 (full power)'),
+	syncSpeedS,
+	/** Measured against a meter or a test shot: positive means the flash gives more light than its
+	 * guide number says (stops). */
+	calibrationOffsetStops: num(-5, 5, 'stops').default(0),
+	/** Zoom head position the guide number was measured at, when it has one. */
+	zoomMm: num(1, 1000, 'mm').optional(),
+	kelvin: kelvinField.optional(),
+	/** Runs from the mains (a studio strobe): shown with the usual caution. */
+	mainsPowered: z.boolean({ error: 'must be true or false' }).default(false)
+});
+
+export const MODIFIER_SHAPES = ['softbox', 'umbrella', 'dome', 'diffusion panel', 'snoot', 'grid', 'other'] as const;
+
+export const modifierSpecSchema = z.object({
+	shape: z.enum(MODIFIER_SHAPES, { error: `must be one of ${MODIFIER_SHAPES.join(', ')}` }).default('other'),
+	/** Light lost through the modifier, in stops. */
+	lossStops: lossStopsField,
+	/** Full beam angle at half intensity, degrees. */
+	beamAngleDeg: num(1, 180, '°'),
+	widthM: positive(20, 'm').optional(),
+	heightM: positive(20, 'm').optional()
+});
+
+export const reflectorSpecSchema = z.object({
+	widthM: positive(20, 'm'),
+	heightM: positive(20, 'm'),
+	/** Fraction of the light returned, 0–1. */
+	reflectance: z.number({ error: 'must be a number' }).gt(0, 'must be greater than 0').max(1, 'must be at most 1'),
+	surface: z.enum(['diffuse', 'specular'], { error: 'must be "diffuse" or "specular"' })
+});
+
+export const lensSpecSchema = z
+	.object({
+		focalLengthMm: focalLengthMmField,
+		maxMagnification: positive(100),
+		pupilMagnification: pupilMagnificationField.default(1),
+		/** The aperture range as marked: the widest opening (smallest f-number) and the narrowest. */
+		widestAperture: apertureField,
+		narrowestAperture: apertureField
+	})
+	.superRefine((lens, ctx) => {
+		if (lens.widestAperture > lens.narrowestAperture) {
+			ctx.addIssue({
+				code: 'custom',
+				path: ['narrowestAperture'],
+				message: 'must be a larger f-number than widestAperture'
+			});
+		}
+	});
+
+export const cameraSpecSchema = z.object({
+	sensorWidthMm: positive(200, 'mm'),
+	sensorHeightMm: positive(200, 'mm'),
+	/** Circle of confusion used for depth of field, mm. */
+	cocMm: cocMmField,
+	syncSpeedS
+});
+
+export const gearSpecSchemas = {
+	flash: flashSpecSchema,
+	modifier: modifierSpecSchema,
+	reflector: reflectorSpecSchema,
+	lens: lensSpecSchema,
+	camera: cameraSpecSchema
+} as const satisfies Record<GearKind, z.ZodType>;
+
+export type GearSpec<K extends GearKind = GearKind> = z.output<(typeof gearSpecSchemas)[K]>;
+
+const nameField = z
+	.string({ error: 'must be text' })
+	.trim()
+	.min(1, 'must not be empty')
+	.max(200, 'must be at most 200 characters');
+const gearNotesField = z.string({ error: 'must be text' }).max(2000, 'must be at most 2000 characters');
+
+/** A new item on the gear shelf: `{ studioId?, kind, name, spec, notes? }`. */
+export const gearCreateSchema = z
+	.object({
+		studioId: z.uuid({ error: 'must be a studio id' }).optional(),
+		kind: gearKindSchema,
+		name: nameField,
+		spec: z.record(z.string(), z.unknown(), { error: 'must be an object' }),
+		notes: gearNotesField.default('')
+	})
+	.transform((input, ctx) => {
+		const spec = gearSpecSchemas[input.kind].safeParse(input.spec);
+		if (!spec.success) {
+			for (const issue of spec.error.issues) {
+				ctx.addIssue({ code: 'custom', path: ['spec', ...issue.path.map(String)], message: issue.message });
+			}
+			return z.NEVER;
+		}
+		return { ...input, spec: spec.data as Record<string, unknown> };
+	});
+export type GearCreateInput = z.output<typeof gearCreateSchema>;
+
+/** A change to an item: any of name, spec (whole, checked against the item's kind), notes, retired. */
+export const gearUpdateSchema = z
+	.object({
+		name: nameField.optional(),
+		spec: z.record(z.string(), z.unknown(), { error: 'must be an object' }).optional(),
+		notes: gearNotesField.optional(),
+		retired: z.boolean({ error: 'must be true or false' }).optional()
+	})
+	.refine((u) => Object.values(u).some((v) => v !== undefined), { message: 'give at least one of name, spec, notes, retired' });
+export type GearUpdateInput = z.output<typeof gearUpdateSchema>;
+
+/** Checks a spec against its kind; issues carry paths under `spec`. */
+export function parseGearSpec(kind: GearKind, spec: unknown) {
+	const r = gearSpecSchemas[kind].safeParse(spec);
+	if (r.success) return { ok: true as const, spec: r.data as Record<string, unknown> };
+	return {
+		ok: false as const,
+		issues: r.error.issues.map((i) => ({ path: ['spec', ...i.path.map(String)], message: i.message }))
+	};
+}

@@ -1,0 +1,123 @@
+/**
+ * Numbered migrations of the setup document, applied on read: a revision saved under an older
+ * `schemaVersion` is brought up to `CURRENT_SCHEMA_VERSION` step by step, then checked with
+ * `setupDocumentSchema`. Stored revisions are never rewritten; the migration runs each time one is read.
+ *
+ * To change the document: bump CURRENT_SCHEMA_VERSION in document.ts, add a step here that turns a
+ * version n document into version n + 1 (plain JSON in, plain JSON out), and add its test.
+ */
+import { CURRENT_SCHEMA_VERSION, setupDocumentSchema, type SetupDocument } from './document';
+
+export interface DocumentIssue {
+	path: string[];
+	message: string;
+}
+
+export type MigrationResult =
+	| { ok: true; document: SetupDocument; migratedFrom: number | null }
+	| { ok: false; message: string; issues: DocumentIssue[] };
+
+type Json = Record<string, unknown>;
+
+/** A step found the old document in a shape it cannot migrate. */
+export class MigrationError extends Error {
+	constructor(
+		message: string,
+		readonly path: string[]
+	) {
+		super(message);
+	}
+}
+
+interface Migration {
+	from: number;
+	describe: string;
+	up(doc: Json): Json;
+}
+
+const isRecord = (v: unknown): v is Json => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * Version 0 never shipped: it is an invented earlier shape, kept so the migration path is exercised from
+ * the first release. In it, notes were an array of lines, the drawing lived under `layout` (keyed by
+ * element id, with `angle`, `w`, `d`, `color`), and there were no gear copies.
+ */
+const v0ToV1: Migration = {
+	from: 0,
+	describe: 'notes from an array of lines to one Markdown string; layout to plan.elements',
+	up(doc) {
+		const { layout, notes, ...rest } = doc;
+		let text = '';
+		if (notes !== undefined) {
+			if (!Array.isArray(notes) || notes.some((l) => typeof l !== 'string')) {
+				throw new MigrationError('in a version 0 document, notes must be an array of lines', ['notes']);
+			}
+			text = (notes as string[]).join('\n');
+		}
+		const elements: Json = {};
+		if (layout !== undefined) {
+			if (!isRecord(layout)) throw new MigrationError('in a version 0 document, layout must be an object', ['layout']);
+			for (const [id, raw] of Object.entries(layout)) {
+				if (!isRecord(raw)) throw new MigrationError('must be an object', ['layout', id]);
+				const { angle, w, d, color, ...more } = raw;
+				elements[id] = {
+					...more,
+					...(angle !== undefined ? { rotationDeg: angle } : {}),
+					...(w !== undefined ? { widthM: w } : {}),
+					...(d !== undefined ? { depthM: d } : {}),
+					...(color !== undefined ? { colour: color } : {})
+				};
+			}
+		}
+		return { ...rest, schemaVersion: 1, plan: Object.keys(elements).length ? { elements } : {}, notes: text, gear: [] };
+	}
+};
+
+/** In order; MIGRATIONS[i] takes version i to version i + 1. */
+export const MIGRATIONS: readonly Migration[] = [v0ToV1];
+
+if (MIGRATIONS.length !== CURRENT_SCHEMA_VERSION || MIGRATIONS.some((m, i) => m.from !== i)) {
+	throw new Error('setup document migrations must run 0 → 1 → … → CURRENT_SCHEMA_VERSION without gaps');
+}
+
+/** Brings a stored or imported document of any known version up to date and validates it. */
+export function migrateDocument(raw: unknown): MigrationResult {
+	if (!isRecord(raw)) {
+		return fail('The setup document must be a JSON object.', [[], 'expected an object with schemaVersion, scene, plan and notes']);
+	}
+	const version = raw.schemaVersion;
+	if (version === undefined) return fail('The setup document has no schemaVersion.', [['schemaVersion'], 'is required']);
+	if (typeof version !== 'number' || !Number.isInteger(version) || version < 0) {
+		return fail('The setup document has an unknown schemaVersion.', [['schemaVersion'], 'must be a whole number from 0']);
+	}
+	if (version > CURRENT_SCHEMA_VERSION) {
+		return fail(
+			`The setup document was written by a newer version of Squarelaw (schemaVersion ${version}); this one reads up to ${CURRENT_SCHEMA_VERSION}.`,
+			[['schemaVersion'], `must be at most ${CURRENT_SCHEMA_VERSION}`]
+		);
+	}
+	let doc: Json = raw;
+	try {
+		for (let v = version; v < CURRENT_SCHEMA_VERSION; v++) doc = MIGRATIONS[v].up(doc);
+	} catch (e) {
+		if (e instanceof MigrationError) {
+			return fail(`The version ${version} setup document cannot be migrated: ${e.path.join('.')} ${e.message}.`, [e.path, e.message]);
+		}
+		throw e;
+	}
+	const parsed = setupDocumentSchema.safeParse(doc);
+	if (!parsed.success) {
+		const issues = parsed.error.issues.map((i) => ({ path: i.path.map(String), message: i.message }));
+		const first = issues[0];
+		return {
+			ok: false,
+			message: `The setup document is not valid: ${first.path.join('.') || 'document'} ${first.message}.`,
+			issues
+		};
+	}
+	return { ok: true, document: parsed.data, migratedFrom: version === CURRENT_SCHEMA_VERSION ? null : version };
+}
+
+function fail(message: string, [path, issue]: [string[], string]): MigrationResult {
+	return { ok: false, message, issues: [{ path, message: issue }] };
+}

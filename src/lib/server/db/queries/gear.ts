@@ -1,0 +1,56 @@
+// Named queries for the gear shelf. Callers have asked authz first (src/lib/server/gear.ts).
+import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
+import { db } from '../index';
+import { gear, type NewGear } from '../schema';
+import type { GearKind } from '$lib/scene/gear';
+
+export async function listGearRows(studioId: string, { kind, includeRetired = false }: { kind?: GearKind; includeRetired?: boolean } = {}) {
+	return db
+		.select()
+		.from(gear)
+		.where(
+			and(
+				eq(gear.studioId, studioId),
+				kind ? eq(gear.kind, kind) : undefined,
+				includeRetired ? undefined : isNull(gear.retiredAt)
+			)
+		)
+		.orderBy(asc(gear.kind), asc(gear.name), asc(gear.id));
+}
+
+export async function findGearRow(id: string) {
+	const [row] = await db.select().from(gear).where(eq(gear.id, id));
+	return row ?? null;
+}
+
+/** The studio's gear among `ids` (retired included: a setup may keep using retired gear). */
+export async function gearRowsByIds(studioId: string, ids: string[]) {
+	if (ids.length === 0) return [];
+	return db
+		.select()
+		.from(gear)
+		.where(and(eq(gear.studioId, studioId), inArray(gear.id, ids)));
+}
+
+export async function insertGearRow(values: NewGear) {
+	const [row] = await db.insert(gear).values(values).returning();
+	return row;
+}
+
+export async function updateGearRow(
+	id: string,
+	changes: { name?: string; spec?: Record<string, unknown>; notes?: string; retired?: boolean }
+) {
+	const [row] = await db
+		.update(gear)
+		.set({
+			...(changes.name !== undefined ? { name: changes.name } : {}),
+			...(changes.spec !== undefined ? { spec: changes.spec } : {}),
+			...(changes.notes !== undefined ? { notes: changes.notes } : {}),
+			...(changes.retired !== undefined ? { retiredAt: changes.retired ? sql`coalesce(${gear.retiredAt}, now())` : null } : {}),
+			updatedAt: sql`now()`
+		})
+		.where(eq(gear.id, id))
+		.returning();
+	return row ?? null;
+}
