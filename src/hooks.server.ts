@@ -16,19 +16,28 @@ const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'
 const guardSignInRequests: Handle = async ({ event, resolve }) => {
 	if (event.request.method === 'POST' && event.url.pathname === '/auth/signin/nodemailer') {
 		let raw = '';
+		let callbackUrl = '';
 		try {
 			const form = await event.request.clone().formData();
 			raw = String(form.get('email') ?? '');
+			callbackUrl = String(form.get('callbackUrl') ?? '');
 		} catch {
 			redirect(303, '/signin?error=InvalidEmail');
 		}
+		// Back to the form with the address as typed and where the person was going (the sign-in page
+		// only accepts a path on this site as callbackUrl).
+		const back = (code: string, email: string) => {
+			const params = new URLSearchParams({ error: code, email: email.slice(0, 254) });
+			if (callbackUrl) params.set('callbackUrl', callbackUrl.slice(0, 2048));
+			return `/signin?${params}`;
+		};
 		const parsed = emailSchema.safeParse(raw);
-		if (!parsed.success) redirect(303, `/signin?error=InvalidEmail&email=${encodeURIComponent(raw.slice(0, 254))}`);
+		if (!parsed.success) redirect(303, back('InvalidEmail', raw));
 		const limits = await hitRateLimits([
 			{ bucket: `signin:addr:${parsed.data}`, limit: 5, windowMs: 15 * 60_000 },
 			{ bucket: `signin:ip:${event.getClientAddress()}`, limit: 30, windowMs: 15 * 60_000 }
 		]);
-		if (!limits.allowed) redirect(303, `/signin?error=RateLimited&email=${encodeURIComponent(parsed.data)}`);
+		if (!limits.allowed) redirect(303, back('RateLimited', parsed.data));
 	}
 	return resolve(event);
 };

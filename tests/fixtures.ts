@@ -1,23 +1,39 @@
 // Shared Playwright fixtures. Every test gets a page whose requests are watched: any request to a host
 // other than this machine fails the test, so fonts, styles and scripts must all be served by the app.
-import { test as base, expect, type Page } from '@playwright/test';
+import { test as base, expect, type BrowserContext, type Page } from '@playwright/test';
 
 const LOCAL_HOSTS = new Set(['127.0.0.1', 'localhost', '[::1]']);
 
-export const test = base.extend<{ offsiteRequests: string[] }>({
+/** Records every request of `context` that goes to a host other than this machine. */
+function watchOffsite(context: BrowserContext, offsite: string[]) {
+	context.on('request', (request) => {
+		const url = new URL(request.url());
+		if (url.protocol === 'data:' || url.protocol === 'blob:' || url.protocol === 'about:') return;
+		if (!LOCAL_HOSTS.has(url.hostname)) offsite.push(request.url());
+	});
+}
+
+export const test = base.extend<{ offsiteRequests: string[]; newPage: () => Promise<Page> }>({
 	offsiteRequests: [
 		async ({ context }, use) => {
 			const offsite: string[] = [];
-			context.on('request', (request) => {
-				const url = new URL(request.url());
-				if (url.protocol === 'data:' || url.protocol === 'blob:' || url.protocol === 'about:') return;
-				if (!LOCAL_HOSTS.has(url.hostname)) offsite.push(request.url());
-			});
+			watchOffsite(context, offsite);
 			await use(offsite);
 			expect(offsite, 'requests that left 127.0.0.1').toEqual([]);
 		},
 		{ auto: true }
-	]
+	],
+	/** A page in a fresh browser context (a second person, with their own cookies), watched the same way. */
+	newPage: async ({ browser, baseURL, offsiteRequests }, use) => {
+		const contexts: BrowserContext[] = [];
+		await use(async () => {
+			const context = await browser.newContext({ baseURL });
+			watchOffsite(context, offsiteRequests);
+			contexts.push(context);
+			return context.newPage();
+		});
+		for (const context of contexts) await context.close();
+	}
 });
 
 export { expect };
@@ -50,13 +66,20 @@ export function firstLink(text: string): string {
 	return match[0];
 }
 
-/** Signs in through the real e-mail link flow: the form, the mail fake, the link. */
-export async function signIn(page: Page, email: string, returnTo = '/studios') {
+/** Asks for a sign-in link through the form and returns the link from the mail fake, unopened. */
+export async function requestSignInLink(page: Page, email: string, returnTo = '/studios'): Promise<string> {
 	const before = Date.now() - 1000;
 	await page.goto(`/signin?callbackUrl=${encodeURIComponent(returnTo)}`);
 	await page.getByLabel('E-mail address').fill(email);
 	await page.getByRole('button', { name: 'Send me a sign-in link' }).click();
 	await expect(page.getByRole('heading', { name: 'Check your mail' })).toBeVisible();
 	const mail = await waitForMail(page, email, /sign-in link/i, before);
-	await page.goto(firstLink(mail.text));
+	return firstLink(mail.text);
+}
+
+/** Signs in through the real e-mail link flow: the form, the mail fake, the link. Returns the used link. */
+export async function signIn(page: Page, email: string, returnTo = '/studios'): Promise<string> {
+	const link = await requestSignInLink(page, email, returnTo);
+	await page.goto(link);
+	return link;
 }

@@ -1,7 +1,7 @@
 // Studio rules: who may do what is asked of authz; what must stay true (an owner always remains,
 // an invitation works once and expires) is kept here.
 import { error } from '@sveltejs/kit';
-import { authorizeStudio, isUuid, requireUser } from '$lib/server/authz';
+import { authorizeStudio, can, isUuid, requireUser } from '$lib/server/authz';
 import { RuleViolation } from '$lib/server/errors';
 import { sendMail } from '$lib/server/mail';
 import { invitationLetter } from '$lib/server/mail/letters';
@@ -38,7 +38,7 @@ export async function createStudio(user: SessionUser | null, name: string) {
 export async function studioOverview(user: SessionUser | null, studioId: string) {
 	const access = await authorizeStudio(user, studioId, 'studio.view');
 	const members = await listMembers(studioId);
-	const canManage = access.isAdmin || access.role === 'owner';
+	const canManage = can(access, 'members.manage');
 	const invitations = canManage ? await listOpenInvitations(studioId) : [];
 	return { access, members, invitations, canManage };
 }
@@ -61,6 +61,9 @@ export async function inviteToStudio(
 	context: { origin: string; ip: string }
 ) {
 	const access = await authorizeStudio(user, studioId, 'invitations.manage');
+	if (access.isPersonal) {
+		throw new RuleViolation('A personal studio is yours alone. Make a shared studio to invite people.', 'email');
+	}
 	const limits = await hitRateLimits([
 		{ bucket: `invite:addr:${input.email}`, limit: 5, windowMs: 3600_000 },
 		{ bucket: `invite:ip:${context.ip}`, limit: 30, windowMs: 3600_000 }

@@ -100,7 +100,14 @@ export async function revokeInvitationRow(studioId: string, invitationId: string
 	const rows = await db
 		.update(invitations)
 		.set({ revokedAt: new Date() })
-		.where(and(eq(invitations.id, invitationId), eq(invitations.studioId, studioId), isNull(invitations.acceptedAt)))
+		.where(
+			and(
+				eq(invitations.id, invitationId),
+				eq(invitations.studioId, studioId),
+				isNull(invitations.acceptedAt),
+				isNull(invitations.revokedAt)
+			)
+		)
 		.returning({ id: invitations.id });
 	return rows.length > 0;
 }

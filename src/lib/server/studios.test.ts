@@ -1,0 +1,475 @@
+// Studio rules on the real database and through the running app: a studio always keeps an owner (also
+// when two owners act at once), an invitation works once and not after it expires, sign-in and
+// invitation requests are rate-limited with a clear message, and a malformed e-mail changes nothing.
+import { afterAll, describe, expect, it } from 'vitest';
+import { isHttpError } from '@sveltejs/kit';
+import { randomUUID } from 'node:crypto';
+import { and, asc, count, eq, sql } from 'drizzle-orm';
+
+const BASE = process.env.TEST_BASE_URL;
+if (!process.env.DATABASE_URL) {
+	throw new Error('DATABASE_URL is not set: these tests run against the real PostgreSQL (run them through `npm test`).');
+}
+if (!BASE || !process.env.DEV_MAIL_URL) {
+	throw new Error('TEST_BASE_URL and DEV_MAIL_URL are not set: run these tests through `npm test`, which starts the app.');
+}
+
+const { client, db } = await import('$lib/server/db');
+const { invitations, memberships, rateLimitHits, sessions, studios, users, verificationTokens } = await import(
+	'$lib/server/db/schema'
+);
+const { ensurePersonalStudio, listOpenInvitations } = await import('$lib/server/db/queries/studios');
+const { toSessionUser } = await import('$lib/server/db/queries/users');
+const { RuleViolation } = await import('$lib/server/errors');
+const studioRules = await import('$lib/server/studios');
+
+type SessionUser = import('$lib/server/session').SessionUser;
+type StudioRole = import('$lib/server/db/schema').StudioRole;
+type Refusal = InstanceType<typeof RuleViolation> | Error;
+
+afterAll(async () => {
+	await client.end({ timeout: 5 });
+});
+
+const tag = () => randomUUID().slice(0, 8);
+const address = (name: string) => `${name}+${tag()}@fernhill.example`;
+const context = () => ({ origin: BASE!, ip: `studios-test-${randomUUID()}` });
+
+async function makeUser(name: string): Promise<SessionUser> {
+	const [row] = await db.insert(users).values({ email: address(name), name, emailVerified: new Date() }).returning();
+	await ensurePersonalStudio(row.id, name);
+	return toSessionUser(row);
+}
+
+/** A shared studio whose members have the given roles, in order. */
+async function makeStudio(roles: StudioRole[]) {
+	const [studio] = await db.insert(studios).values({ name: `Fernhill Geology Circle ${tag()}` }).returning();
+	const people: { user: SessionUser; membershipId: string }[] = [];
+	for (const [i, role] of roles.entries()) {
+		const user = await makeUser(['mara.quill', 'tobias.wren', 'ines.marlow', 'pebble.finch'][i % 4]);
+		const [m] = await db.insert(memberships).values({ studioId: studio.id, userId: user.id, role }).returning();
+		people.push({ user, membershipId: m.id });
+	}
+	return { studioId: studio.id, people };
+}
+
+async function membersOf(studioId: string) {
+	return db
+		.select({ id: memberships.id, userId: memberships.userId, role: memberships.role })
+		.from(memberships)
+		.where(eq(memberships.studioId, studioId))
+		.orderBy(asc(memberships.id));
+}
+
+async function ownersOf(studioId: string) {
+	return (await membersOf(studioId)).filter((m) => m.role === 'owner').length;
+}
+
+async function refusal(work: () => Promise<unknown>): Promise<Refusal> {
+	try {
+		await work();
+	} catch (e) {
+		if (e instanceof RuleViolation || isHttpError(e)) return e as Error;
+		throw e;
+	}
+	throw new Error('expected the request to be refused, but it went through');
+}
+
+/** The invitation token as the invitee would read it in the mail fake. */
+async function invitationLink(email: string): Promise<string> {
+	for (let i = 0; i < 50; i++) {
+		const messages = (await (await fetch(`${process.env.DEV_MAIL_URL}/messages`)).json()) as { to: string; text: string }[];
+		const hit = messages.find((m) => m.to.includes(email) && m.text.includes('/invitations/'));
+		if (hit) return hit.text.match(/https?:\/\/\S+\/invitations\/(\S+)/)![1];
+		await new Promise((r) => setTimeout(r, 100));
+	}
+	throw new Error(`no invitation mail to ${email}`);
+}
+
+async function mailsTo(email: string): Promise<number> {
+	const messages = (await (await fetch(`${process.env.DEV_MAIL_URL}/messages`)).json()) as { to: string }[];
+	return messages.filter((m) => m.to.includes(email)).length;
+}
+
+describe('a studio always keeps at least one owner', () => {
+	it('the only owner cannot remove, demote or take themselves out, and nothing changes', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'editor']);
+		const [owner] = people;
+		const before = await membersOf(studioId);
+		for (const work of [
+			() => studioRules.removeMember(owner.user, studioId, owner.membershipId),
+			() => studioRules.changeMemberRole(owner.user, studioId, owner.membershipId, 'editor'),
+			() => studioRules.changeMemberRole(owner.user, studioId, owner.membershipId, 'viewer'),
+			() => studioRules.leaveStudio(owner.user, studioId)
+		]) {
+			const e = await refusal(work);
+			expect(e).toBeInstanceOf(RuleViolation);
+			expect(e.message).toMatch(/at least one owner/);
+		}
+		expect(await membersOf(studioId)).toEqual(before);
+	});
+
+	it('the site admin cannot remove or demote the last owner either', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'viewer']);
+		const [admin] = await db.insert(users).values({ email: address('operator'), isAdmin: true }).returning();
+		const before = await membersOf(studioId);
+		const e1 = await refusal(() => studioRules.removeMember(toSessionUser(admin), studioId, people[0].membershipId));
+		const e2 = await refusal(() =>
+			studioRules.changeMemberRole(toSessionUser(admin), studioId, people[0].membershipId, 'viewer')
+		);
+		expect(e1.message).toMatch(/at least one owner/);
+		expect(e2.message).toMatch(/at least one owner/);
+		expect(await membersOf(studioId)).toEqual(before);
+	});
+
+	it('with two owners one may step down, and then the other is the last', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'owner']);
+		const [a, b] = people;
+		await studioRules.changeMemberRole(a.user, studioId, a.membershipId, 'editor');
+		expect(await ownersOf(studioId)).toBe(1);
+		const e = await refusal(() => studioRules.removeMember(b.user, studioId, b.membershipId));
+		expect(e.message).toMatch(/at least one owner/);
+		expect(await ownersOf(studioId)).toBe(1);
+		// Promoting someone first makes room to step down.
+		await studioRules.changeMemberRole(b.user, studioId, a.membershipId, 'owner');
+		await studioRules.leaveStudio(b.user, studioId);
+		expect(await membersOf(studioId)).toEqual([{ id: a.membershipId, userId: a.user.id, role: 'owner' }]);
+	});
+
+	const races: [string, (a: Member, b: Member, studioId: string) => Promise<unknown>[]][] = [
+		[
+			'two owners demote each other at once',
+			(a, b, s) => [
+				studioRules.changeMemberRole(a.user, s, b.membershipId, 'editor'),
+				studioRules.changeMemberRole(b.user, s, a.membershipId, 'viewer')
+			]
+		],
+		[
+			'two owners remove each other at once',
+			(a, b, s) => [studioRules.removeMember(a.user, s, b.membershipId), studioRules.removeMember(b.user, s, a.membershipId)]
+		],
+		[
+			'two owners demote themselves at once',
+			(a, b, s) => [
+				studioRules.changeMemberRole(a.user, s, a.membershipId, 'editor'),
+				studioRules.changeMemberRole(b.user, s, b.membershipId, 'editor')
+			]
+		],
+		['two owners leave at once', (a, b, s) => [studioRules.leaveStudio(a.user, s), studioRules.leaveStudio(b.user, s)]]
+	];
+	type Member = { user: SessionUser; membershipId: string };
+	for (const [name, race] of races) {
+		it(`${name}: exactly one succeeds and one owner remains (10 rounds)`, async () => {
+			for (let round = 0; round < 10; round++) {
+				const { studioId, people } = await makeStudio(['owner', 'owner', 'viewer']);
+				const results = await Promise.allSettled(race(people[0], people[1], studioId));
+				const done = results.filter((r) => r.status === 'fulfilled');
+				const refused = results.filter((r) => r.status === 'rejected') as PromiseRejectedResult[];
+				expect(done, `round ${round}`).toHaveLength(1);
+				expect(refused).toHaveLength(1);
+				// Refused by the owner rule or, when the other change landed first, by authz: 403 once
+				// demoted, 404 once removed (the studio is no longer theirs to see).
+				const why = refused[0].reason;
+				const byRule = why instanceof RuleViolation && /at least one owner/.test(why.message);
+				expect(byRule || isHttpError(why, 403) || isHttpError(why, 404), JSON.stringify(why)).toBe(true);
+				expect(await ownersOf(studioId), `round ${round}`).toBe(1);
+			}
+		});
+	}
+});
+
+describe('invitations', () => {
+	it('work once: the invitee joins with the invited role, a second use is refused', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const invitee = await makeUser('pebble.finch');
+		await studioRules.inviteToStudio(people[0].user, studioId, { email: invitee.email, role: 'viewer' }, context());
+		const token = await invitationLink(invitee.email);
+
+		const open = await studioRules.lookUpInvitation(token);
+		expect(open).toMatchObject({ state: 'open', role: 'viewer', email: invitee.email });
+
+		expect(await studioRules.acceptInvitation(invitee, token)).toEqual({ studioId, role: 'viewer' });
+		const joined = (await membersOf(studioId)).find((m) => m.userId === invitee.id);
+		expect(joined?.role).toBe('viewer');
+		expect(await studioRules.lookUpInvitation(token)).toEqual({ state: 'used' });
+		expect(await listOpenInvitations(studioId)).toEqual([]);
+
+		const before = await membersOf(studioId);
+		const again = await refusal(() => studioRules.acceptInvitation(invitee, token));
+		expect(again).toBeInstanceOf(RuleViolation);
+		expect((again as InstanceType<typeof RuleViolation>).status).toBe(410);
+		expect(again.message).toMatch(/expired or has already been used/);
+		expect(await membersOf(studioId)).toEqual(before);
+	});
+
+	it('cannot be used by someone signed in with another address', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const email = address('pebble.finch');
+		await studioRules.inviteToStudio(people[0].user, studioId, { email, role: 'editor' }, context());
+		const token = await invitationLink(email);
+		const stranger = await makeUser('tobias.wren');
+		const e = await refusal(() => studioRules.acceptInvitation(stranger, token));
+		expect(e.message).toMatch(/sent to another address/);
+		expect((await membersOf(studioId)).some((m) => m.userId === stranger.id)).toBe(false);
+		expect(await studioRules.lookUpInvitation(token)).toMatchObject({ state: 'open' });
+	});
+
+	it('do not work after they expire', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const invitee = await makeUser('ines.marlow');
+		const inv = await studioRules.inviteToStudio(people[0].user, studioId, { email: invitee.email, role: 'editor' }, context());
+		const token = await invitationLink(invitee.email);
+		expect(inv.expiresAt.getTime() - Date.now()).toBeGreaterThan(6 * 24 * 3600_000);
+		await db
+			.update(invitations)
+			.set({ expiresAt: sql`now() - interval '1 minute'` })
+			.where(eq(invitations.id, inv.id));
+
+		expect(await studioRules.lookUpInvitation(token)).toEqual({ state: 'expired' });
+		expect(await listOpenInvitations(studioId)).toEqual([]);
+		const before = await membersOf(studioId);
+		const e = await refusal(() => studioRules.acceptInvitation(invitee, token));
+		expect(e.message).toMatch(/expired/);
+		expect(await membersOf(studioId)).toEqual(before);
+		const [row] = await db.select().from(invitations).where(eq(invitations.id, inv.id));
+		expect(row.acceptedAt).toBeNull();
+	});
+
+	it('a withdrawn invitation cannot be accepted, and cannot be withdrawn twice', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const invitee = await makeUser('ines.marlow');
+		const inv = await studioRules.inviteToStudio(people[0].user, studioId, { email: invitee.email, role: 'viewer' }, context());
+		const token = await invitationLink(invitee.email);
+		await studioRules.revokeInvitation(people[0].user, studioId, inv.id);
+		expect(await studioRules.lookUpInvitation(token)).toEqual({ state: 'revoked' });
+		const [revoked] = await db.select().from(invitations).where(eq(invitations.id, inv.id));
+
+		const e = await refusal(() => studioRules.acceptInvitation(invitee, token));
+		expect(e).toBeInstanceOf(RuleViolation);
+		expect((await membersOf(studioId)).some((m) => m.userId === invitee.id)).toBe(false);
+
+		const twice = await refusal(() => studioRules.revokeInvitation(people[0].user, studioId, inv.id));
+		expect(twice.message).toMatch(/no longer open/);
+		const [after] = await db.select().from(invitations).where(eq(invitations.id, inv.id));
+		expect(after.revokedAt).toEqual(revoked.revokedAt);
+	});
+
+	it('an invitation of another studio cannot be withdrawn through this one', async () => {
+		const mine = await makeStudio(['owner']);
+		const theirs = await makeStudio(['owner']);
+		const inv = await studioRules.inviteToStudio(
+			theirs.people[0].user,
+			theirs.studioId,
+			{ email: address('pebble.finch'), role: 'viewer' },
+			context()
+		);
+		const e = await refusal(() => studioRules.revokeInvitation(mine.people[0].user, mine.studioId, inv.id));
+		expect(e.message).toMatch(/no longer open/);
+		const [row] = await db.select().from(invitations).where(eq(invitations.id, inv.id));
+		expect(row.revokedAt).toBeNull();
+	});
+
+	it('an unknown or mangled token is reported as unknown', async () => {
+		expect(await studioRules.lookUpInvitation('x'.repeat(43))).toEqual({ state: 'unknown' });
+		expect(await studioRules.lookUpInvitation("' or 1=1 --")).toEqual({ state: 'unknown' });
+		const someone = await makeUser('tobias.wren');
+		const e = await refusal(() => studioRules.acceptInvitation(someone, 'x'.repeat(43)));
+		expect(isHttpError(e, 404)).toBe(true);
+	});
+
+	it('more than 5 invitations to one address within the hour are refused with a message', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const email = address('pebble.finch');
+		for (let i = 0; i < 5; i++) {
+			await studioRules.inviteToStudio(people[0].user, studioId, { email, role: 'viewer' }, context());
+		}
+		const e = await refusal(() => studioRules.inviteToStudio(people[0].user, studioId, { email, role: 'viewer' }, context()));
+		expect(e).toBeInstanceOf(RuleViolation);
+		expect((e as InstanceType<typeof RuleViolation>).status).toBe(429);
+		expect(e.message).toMatch(/Too many invitations/);
+		const [{ n }] = await db.select({ n: count() }).from(invitations).where(eq(invitations.email, email));
+		expect(n).toBe(5);
+		expect(await mailsTo(email)).toBe(5);
+	});
+});
+
+// ── through the running app, as a browser or a script would call it
+
+/** A form post as a browser without JavaScript sends it (so SvelteKit answers with the page, not JSON). */
+function post(path: string, form: Record<string, string>, cookie?: string) {
+	return fetch(new URL(path, BASE), {
+		method: 'POST',
+		redirect: 'manual',
+		headers: {
+			origin: BASE!,
+			accept: 'text/html',
+			'content-type': 'application/x-www-form-urlencoded',
+			...(cookie ? { cookie } : {})
+		},
+		body: new URLSearchParams(form)
+	});
+}
+
+async function sessionCookie(user: SessionUser): Promise<string> {
+	const token = randomUUID();
+	await db.insert(sessions).values({ sessionToken: token, userId: user.id, expires: new Date(Date.now() + 3600_000) });
+	return `authjs.session-token=${token}`;
+}
+
+async function signInTraces(email: string) {
+	const [tokens] = await db.select({ n: count() }).from(verificationTokens).where(eq(verificationTokens.identifier, email));
+	const [hits] = await db.select({ n: count() }).from(rateLimitHits).where(eq(rateLimitHits.bucket, `signin:addr:${email}`));
+	const [accounts] = await db.select({ n: count() }).from(users).where(eq(users.email, email));
+	return { tokens: tokens.n, rateLimitHits: hits.n, users: accounts.n, mails: await mailsTo(email) };
+}
+
+describe('sign-in link requests', () => {
+	it('the 6th request for one address within 15 minutes is refused and the page says why', async () => {
+		const email = address('pebble.finch');
+		for (let i = 1; i <= 5; i++) {
+			const res = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
+			expect(res.status, `request ${i}`).toBe(302);
+			expect(res.headers.get('location')).toMatch(/\/verify-request/);
+		}
+		const refused = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
+		expect(refused.status).toBe(303);
+		const location = new URL(refused.headers.get('location')!, BASE);
+		expect(location.pathname).toBe('/signin');
+		expect(location.searchParams.get('error')).toBe('RateLimited');
+
+		const page = await (await fetch(location)).text();
+		expect(page).toContain('Too many sign-in links were asked for just now. Wait 15 minutes, then try again.');
+		// The address is kept in the field, so nothing typed is lost.
+		expect(page).toContain(`value="${email}"`);
+
+		const traces = await signInTraces(email);
+		expect(traces.tokens).toBe(5);
+		expect(traces.mails).toBe(5);
+
+		// The limit is per address: another address from the same machine still gets its link.
+		const other = address('ines.marlow');
+		const ok = await post('/auth/signin/nodemailer', { email: other, callbackUrl: '/studios' });
+		expect(ok.status).toBe(302);
+		expect(ok.headers.get('location')).toMatch(/\/verify-request/);
+	});
+
+	for (const bad of ['pebble.finch', 'pebble.finch@fernhill', 'pebble finch@fernhill.example', '']) {
+		it(`a malformed address (${JSON.stringify(bad)}) gets a clear message and changes nothing`, async () => {
+			const before = await signInTraces(bad.toLowerCase());
+			const res = await post('/auth/signin/nodemailer', { email: bad, callbackUrl: '/invitations/abc' });
+			expect(res.status).toBe(303);
+			const location = new URL(res.headers.get('location')!, BASE);
+			expect(location.pathname).toBe('/signin');
+			expect(location.searchParams.get('error')).toBe('InvalidEmail');
+			// Where the person was going is kept, so fixing the address still lands them there.
+			expect(location.searchParams.get('callbackUrl')).toBe('/invitations/abc');
+			const page = await (await fetch(location)).text();
+			expect(page).toContain('That is not an e-mail address. It should look like name@example.org.');
+			expect(page).toContain('value="/invitations/abc"');
+			expect(await signInTraces(bad.toLowerCase())).toEqual(before);
+		});
+	}
+
+	it('the answer is the same whether or not the address has an account', async () => {
+		const known = await makeUser('mara.quill');
+		const unknown = address('mara.quill');
+		const answers = [];
+		for (const email of [known.email, unknown]) {
+			const res = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
+			answers.push({ status: res.status, location: res.headers.get('location'), body: await res.text() });
+		}
+		expect(answers[0]).toEqual(answers[1]);
+		expect(answers[0].location).toMatch(/\/verify-request/);
+		// Asking for a link makes no account; following it does.
+		const [{ n }] = await db.select({ n: count() }).from(users).where(eq(users.email, unknown));
+		expect(n).toBe(0);
+	});
+
+	it('a burst of simultaneous requests cannot get past the limit', async () => {
+		const { hitRateLimits } = await import('$lib/server/db/queries/rate-limits');
+		const bucket = `signin:addr:${address('pebble.finch')}`;
+		const rules = [{ bucket, limit: 5, windowMs: 15 * 60_000 }];
+		const answers = await Promise.all(Array.from({ length: 12 }, () => hitRateLimits(rules)));
+		expect(answers.filter((a) => a.allowed)).toHaveLength(5);
+		expect(answers.filter((a) => !a.allowed).every((a) => a.retryAfterS > 0)).toBe(true);
+		const [{ n }] = await db.select({ n: count() }).from(rateLimitHits).where(eq(rateLimitHits.bucket, bucket));
+		expect(n).toBe(5);
+	});
+
+	it('a form post from another origin is refused (403) and sends nothing', async () => {
+		const email = address('pebble.finch');
+		const res = await fetch(new URL('/auth/signin/nodemailer', BASE), {
+			method: 'POST',
+			redirect: 'manual',
+			headers: { origin: 'http://evil.example', 'content-type': 'application/x-www-form-urlencoded' },
+			body: new URLSearchParams({ email })
+		});
+		expect(res.status).toBe(403);
+		expect(await signInTraces(email)).toEqual({ tokens: 0, rateLimitHits: 0, users: 0, mails: 0 });
+	});
+});
+
+describe('studio forms over HTTP', () => {
+	it('a malformed invitation address is a 400 naming the field, and no invitation is made', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const cookie = await sessionCookie(people[0].user);
+		const res = await post(`/studios/${studioId}?/invite`, { email: 'pebble.finch@', role: 'viewer' }, cookie);
+		expect(res.status).toBe(400);
+		const page = await res.text();
+		expect(page).toContain('That is not an e-mail address (it should look like name@example.org).');
+		expect(page).toContain('value="pebble.finch@"');
+		const badRole = await post(`/studios/${studioId}?/invite`, { email: address('pebble.finch'), role: 'wizard' }, cookie);
+		expect(badRole.status).toBe(400);
+		expect(await badRole.text()).toContain('The role must be owner, editor or viewer.');
+		const [{ n }] = await db.select({ n: count() }).from(invitations).where(eq(invitations.studioId, studioId));
+		expect(n).toBe(0);
+	});
+
+	it('an empty studio name is refused with a message and the old name stays', async () => {
+		const { studioId, people } = await makeStudio(['owner']);
+		const cookie = await sessionCookie(people[0].user);
+		const [before] = await db.select().from(studios).where(eq(studios.id, studioId));
+		const res = await post(`/studios/${studioId}?/rename`, { name: '   ' }, cookie);
+		expect(res.status).toBe(400);
+		expect(await res.text()).toContain('Give the studio a name.');
+		const [after] = await db.select().from(studios).where(eq(studios.id, studioId));
+		expect(after.name).toBe(before.name);
+	});
+
+	it('removing the last owner over HTTP is refused with the message and nothing changes', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'viewer']);
+		const cookie = await sessionCookie(people[0].user);
+		const before = await membersOf(studioId);
+		const res = await post(`/studios/${studioId}?/removeMember`, { membershipId: people[0].membershipId }, cookie);
+		expect(res.status).toBe(400);
+		expect(await res.text()).toContain('A studio must keep at least one owner');
+		expect(await membersOf(studioId)).toEqual(before);
+	});
+
+	it('a viewer posting any studio action gets 403 and nothing changes', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'viewer']);
+		const [owner, viewer] = people;
+		const inv = await studioRules.inviteToStudio(owner.user, studioId, { email: address('ines.marlow'), role: 'viewer' }, context());
+		const cookie = await sessionCookie(viewer.user);
+		const snapshot = async () => ({
+			studio: (await db.select().from(studios).where(eq(studios.id, studioId)))[0],
+			members: await membersOf(studioId),
+			invites: await db.select().from(invitations).where(and(eq(invitations.studioId, studioId)))
+		});
+		const before = await snapshot();
+		const attempts: [string, Record<string, string>][] = [
+			['rename', { name: 'Taken over' }],
+			['delete', { confirm: 'delete' }],
+			['invite', { email: address('pebble.finch'), role: 'owner' }],
+			['revokeInvitation', { invitationId: inv.id }],
+			['changeRole', { membershipId: viewer.membershipId, role: 'owner' }],
+			['changeRole', { membershipId: owner.membershipId, role: 'viewer' }],
+			['removeMember', { membershipId: owner.membershipId }]
+		];
+		for (const [action, form] of attempts) {
+			const res = await post(`/studios/${studioId}?/${action}`, form, cookie);
+			expect(res.status, action).toBe(403);
+		}
+		expect(await snapshot()).toEqual(before);
+	});
+});

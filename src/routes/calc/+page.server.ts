@@ -1,0 +1,50 @@
+import { fail, type Actions } from '@sveltejs/kit';
+import { saveUnitPreference } from '$lib/server/db/queries/users';
+import { initialValues, type FieldValues } from './fields';
+import { answerQuestion } from './compute';
+import { QUESTIONS, questionById } from './questions';
+import { isUnitSystem, rememberUnitSystem, unitSystemFor } from './units';
+import type { PageServerLoad } from './$types';
+
+export const load: PageServerLoad = async ({ locals, cookies, fetch }) => {
+	const units = unitSystemFor(locals, cookies);
+	// Every question is answered for its starting values, so the page is useful before anyone types and
+	// without JavaScript.
+	const initial = await Promise.all(
+		QUESTIONS.map(async (q) => {
+			const values = initialValues(q.fields, units);
+			return [q.id, { values, outcome: await answerQuestion(q, values, units, fetch) }] as const;
+		})
+	);
+	return { units, initial: Object.fromEntries(initial) };
+};
+
+function formValues(data: FormData): FieldValues {
+	const values: FieldValues = {};
+	for (const [k, v] of data) if (typeof v === 'string') values[k] = v.slice(0, 200);
+	return values;
+}
+
+/** One named action per question: the no-JavaScript path, through the same API route. */
+function questionAction(id: string): Actions[string] {
+	return async ({ request, locals, cookies, fetch }) => {
+		const question = questionById(id)!;
+		const units = unitSystemFor(locals, cookies);
+		const values = formValues(await request.formData());
+		const outcome = await answerQuestion(question, values, units, fetch);
+		if (!outcome.ok) return fail(400, { question: id, values, errors: outcome.errors });
+		return { question: id, values, answer: outcome.answer };
+	};
+}
+
+export const actions: Actions = {
+	...Object.fromEntries(QUESTIONS.map((q) => [q.id, questionAction(q.id)])),
+	units: async ({ request, locals, cookies }) => {
+		const value = (await request.formData()).get('units');
+		if (!isUnitSystem(value)) return fail(400, { question: 'units', errors: { units: 'Choose metric or imperial.' } });
+		rememberUnitSystem(cookies, value);
+		// lead: persist per user (the account page's saveUnitPreference, used here for signed-in users).
+		if (locals.user) await saveUnitPreference(locals.user.id, value);
+		return { question: 'units', units: value };
+	}
+};
