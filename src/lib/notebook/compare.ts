@@ -212,7 +212,8 @@ function turnDeg(before: number, after: number): number {
 	return d;
 }
 
-function powerLabel(power: number): string {
+/** A flash power as the ladder labels it (`1/4`, `1/8 +0.3`), or a plain fraction between steps. */
+export function powerLabel(power: number): string {
 	const step = nearestPowerStep(power);
 	if (Math.abs(step.residualStops) < 0.02) return step.label;
 	return `${roundSig(power, 2)} of full`;
