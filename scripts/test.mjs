@@ -3,7 +3,7 @@
 // in Debian's Chromium. Ends with each runner's summary and a non-zero exit on any failure.
 import fs from 'node:fs';
 import path from 'node:path';
-import { spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import { dataDir, ensureChromium, ensurePackages, log, root } from './lib/bootstrap.mjs';
 
 ensurePackages();
@@ -26,11 +26,19 @@ async function cleanup() {
 }
 process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
 
-function step(name, cmd, args, env) {
+/**
+ * Runs one test runner. Asynchronous on purpose: the mail fake lives in this process and must keep
+ * answering while the runners send mail through the app.
+ */
+async function step(name, cmd, args, env) {
 	log(`── ${name} ──`);
 	const started = Date.now();
-	const r = spawnSync(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
-	const ok = r.status === 0;
+	const status = await new Promise((resolve) => {
+		const child = spawn(cmd, args, { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
+		child.on('error', () => resolve(1));
+		child.on('exit', (code) => resolve(code ?? 1));
+	});
+	const ok = status === 0;
 	results.push({ name, ok, seconds: Math.round((Date.now() - started) / 1000) });
 	if (!ok) exitCode = 1;
 	return ok;
@@ -77,14 +85,14 @@ try {
 	const reports = path.join(dataDir, 'reports');
 	fs.mkdirSync(reports, { recursive: true });
 
-	step('type check (svelte-check)', 'npx', ['svelte-check', '--tsconfig', './tsconfig.json', '--threshold', 'error'], testEnv);
-	step(
+	await step('type check (svelte-check)', 'npx', ['svelte-check', '--tsconfig', './tsconfig.json', '--threshold', 'error'], testEnv);
+	await step(
 		'unit and integration tests (vitest)',
 		'npx',
 		['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.join(reports, 'vitest.json')}`],
 		testEnv
 	);
-	step('browser tests (Playwright, Chromium)', 'npx', ['playwright', 'test', '-c', 'tests/playwright.config.ts'], {
+	await step('browser tests (Playwright, Chromium)', 'npx', ['playwright', 'test', '-c', 'tests/playwright.config.ts'], {
 		...testEnv,
 		PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(reports, 'playwright.json')
 	});

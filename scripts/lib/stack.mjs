@@ -1,7 +1,7 @@
 // The part of the set-up that needs npm packages: database, migrations, seed, mail fake, build, serve.
 import fs from 'node:fs';
 import path from 'node:path';
-import { ensureCluster, loadSecrets, log, root, run, startChild, waitForHttp } from './bootstrap.mjs';
+import { ensureCluster, loadSecrets, log, portInUse, root, run, startChild, waitForHttp } from './bootstrap.mjs';
 
 export const profiles = {
 	dev: {
@@ -138,6 +138,9 @@ export function appEnv(profile, { url, secrets, mail }) {
 
 export async function serve(profile, env, { quiet = false } = {}) {
 	if (!fs.existsSync(path.join(root, 'build', 'index.js'))) throw new Error('build/index.js is missing: build first');
+	if (await portInUse(profile.port, profile.host)) {
+		throw new Error(`Port ${profile.port} on ${profile.host} is already taken (an earlier run still going?). Stop it or choose another port.`);
+	}
 	const child = await startChild('app', process.execPath, ['build'], { env, quiet });
 	const origin = `http://${profile.host}:${profile.port}`;
 	await waitForHttp(`${origin}/api/v1/health`);

@@ -78,12 +78,11 @@ async function readLimited(request: Request, maxBytes: number): Promise<string> 
 		const { done, value } = await reader.read();
 		if (done) break;
 		total += value.byteLength;
-		if (total > maxBytes) {
-			await reader.cancel().catch(() => {});
-			throw new BodyTooLarge();
-		}
-		chunks.push(value);
+		// Past the limit the rest is read and dropped rather than cut off, so the client, still sending,
+		// receives the 413 instead of a reset connection. adapter-node's BODY_SIZE_LIMIT caps the drain.
+		if (total <= maxBytes) chunks.push(value);
 	}
+	if (total > maxBytes) throw new BodyTooLarge();
 	return new TextDecoder().decode(Buffer.concat(chunks));
 }
 
