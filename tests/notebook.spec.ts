@@ -5,33 +5,44 @@
 import { randomUUID } from 'node:crypto';
 import { expect, signIn, test } from './fixtures';
 import type { Browser, BrowserContext, Cookie, Page } from '@playwright/test';
+import fs from 'node:fs';
+import path from 'node:path';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
 const QUARTZ = 'Quartz cluster on black velvet';
 const tag = () => randomUUID().slice(0, 8);
 
-// Sign-in links are rate-limited per address, so each demo user signs in once for this file and the
-// tests reuse the session cookie.
-const sessions = new Map<string, Cookie[]>();
-async function sessionOf(browser: Browser, baseURL: string, email: string): Promise<Cookie[]> {
-	const cached = sessions.get(email);
-	if (cached) return cached;
+// Sign-in links are rate-limited per address, so each demo user signs in once for the run and the
+// tests reuse the session cookie (kept in the test output folder, so a new worker after a failure
+// reuses it too; a cookie the server no longer knows is replaced by a fresh sign-in).
+async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
+	const file = path.join(test.info().project.outputDir, '.sessions', `${email}.json`);
+	if (fs.existsSync(file)) {
+		await context.addCookies(JSON.parse(fs.readFileSync(file, 'utf8')) as Cookie[]);
+		const probe = await context.request.get('/api/v1/setups?pageSize=1');
+		if (probe.status() === 200) return;
+		await context.clearCookies();
+	}
 	const ctx = await browser.newContext({ baseURL });
 	const page = await ctx.newPage();
 	await signIn(page, email, '/setups');
 	await expect(page.getByRole('heading', { level: 1, name: 'Notebook' })).toBeVisible();
 	const cookies = await ctx.cookies();
 	await ctx.close();
-	sessions.set(email, cookies);
-	return cookies;
+	fs.mkdirSync(path.dirname(file), { recursive: true });
+	fs.writeFileSync(file, JSON.stringify(cookies));
+	await context.addCookies(cookies);
 }
-async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
-	await context.addCookies(await sessionOf(browser, baseURL!, email));
+
+/** Opens a page and waits until its scripts have loaded, so a click is never undone by hydration. */
+async function visit(page: Page, url: string) {
+	await page.goto(url);
+	await page.waitForLoadState('networkidle');
 }
 
 async function openSetup(page: Page, title: string) {
-	await page.goto('/setups');
+	await visit(page, '/setups');
 	await page.getByRole('link', { name: title, exact: true }).click();
 	await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
 	return new URL(page.url()).pathname.split('/')[2];
@@ -122,7 +133,7 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	await expect(page.getByTestId('notes-diff')).toContainText('Smoky quartz: card 5 cm closer');
 
 	// The original lists its new derivative.
-	await page.goto(`/setups/${quartzId}`);
+	await visit(page, `/setups/${quartzId}`);
 	await expect(page.getByTestId('lineage').getByRole('link', { name: `“${title}”` })).toBeVisible();
 });
 
@@ -135,7 +146,7 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await signedInAs(context, browser, baseURL, OWNER);
 	// A new setup from the notebook's small form.
 	const title = `Pyrite cube test ${tag()}`;
-	await page.goto('/setups');
+	await visit(page, '/setups');
 	await page.getByText('New setup', { exact: true }).click();
 	await page.getByLabel('Title').fill(title);
 	await page.getByLabel('Subject').first().fill('Pyrite cube');
@@ -172,10 +183,10 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await page.getByRole('button', { name: 'Move to the trash' }).click();
 	await expect(page.getByRole('status').filter({ hasText: `“${title}” is in the trash` })).toBeVisible();
 	await expect(page.getByRole('link', { name: title, exact: true })).toHaveCount(0);
-	await page.goto('/setups/trash');
+	await visit(page, '/setups/trash');
 	await page.getByRole('button', { name: `Restore ${title}` }).click();
 	await expect(page.getByRole('status')).toContainText(`“${title}” is back in the notebook at revision 3.`);
-	await page.goto(`/setups/${id}/history`);
+	await visit(page, `/setups/${id}/history`);
 	await expect(page.getByTestId('revision-table').locator('tbody tr')).toHaveCount(3);
 });
 
@@ -197,7 +208,7 @@ test('export a setup file and import it again; a malformed or foreign file is re
 	expect(file.title).toBe('Dew-covered moss on the window sill');
 
 	const countBefore = (await (await page.request.get('/api/v1/setups?pageSize=1')).json()).total;
-	await page.goto('/setups');
+	await visit(page, '/setups');
 	await page.getByText('Import a setup file').click();
 	const upload = (name: string, body: string) =>
 		page.getByLabel(/^Setup file/).setInputFiles({ name, mimeType: 'application/json', buffer: Buffer.from(body) });
@@ -226,8 +237,8 @@ test('export a setup file and import it again; a malformed or foreign file is re
 
 test('the gear shelf names the field at fault, adds, edits and retires gear', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	await page.goto('/gear');
-	await expect(page.getByLabel('Studio')).toHaveValue(/.+/);
+	await visit(page, '/gear');
+	await expect(page.getByLabel('Studio', { exact: true })).toHaveValue(/.+/);
 	await expect(page.getByTestId('gear-flash')).toContainText('Kestrel 40 speedlight');
 
 	const name = `Gold card ${tag()}`;
@@ -293,7 +304,7 @@ test('the notebook at phone width in dark mode: no sideways scroll, search as yo
 			/* about:blank has no storage */
 		}
 	});
-	await page.goto('/setups');
+	await visit(page, '/setups');
 	await expect(page.locator('html')).toHaveClass(/\bdark\b/);
 	const background = await page.evaluate(() => getComputedStyle(document.documentElement).backgroundColor);
 	const [r, g, b] = background.match(/\d+/g)!.map(Number);
@@ -310,7 +321,7 @@ test('the notebook at phone width in dark mode: no sideways scroll, search as yo
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 
 	// The setup page fits the phone too.
-	await page.goto('/setups');
+	await visit(page, '/setups');
 	await page.getByRole('link', { name: QUARTZ }).click();
 	await expect(page.getByTestId('aperture-table')).toBeVisible();
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);

@@ -52,3 +52,12 @@ export function formatWhen(iso: string): string {
 	if (Number.isNaN(d.getTime())) return iso;
 	return `${WHEN.format(d)} UTC`;
 }
+
+/**
+ * Spread onto a `<details>` to open it when `open` is true (a form came back with errors). A spread
+ * rather than `open={…}`: Svelte's hydration resets a plain `open` attribute, closing a section the
+ * user opened before the page finished loading; a spread only sets what it names.
+ */
+export function openIf(open: boolean): { open?: true } {
+	return open ? { open: true } : {};
+}
