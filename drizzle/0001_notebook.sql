@@ -35,6 +35,12 @@ CREATE TABLE "setups" (
 	"deleted_by_id" uuid
 );
 --> statement-breakpoint
+CREATE TABLE "studio_setup_counts" (
+	"studio_id" uuid PRIMARY KEY NOT NULL,
+	"live" integer DEFAULT 0 NOT NULL,
+	"trashed" integer DEFAULT 0 NOT NULL
+);
+--> statement-breakpoint
 CREATE TABLE "gear" (
 	"id" uuid PRIMARY KEY DEFAULT gen_random_uuid() NOT NULL,
 	"studio_id" uuid NOT NULL,
@@ -65,4 +71,36 @@ CREATE INDEX "setups_derived_from_idx" ON "setups" USING btree ("derived_from_se
 CREATE INDEX "setups_tags_idx" ON "setups" USING gin ("tags");--> statement-breakpoint
 CREATE INDEX "setups_gear_ids_idx" ON "setups" USING gin ("gear_ids");--> statement-breakpoint
 CREATE INDEX "setups_search_trgm_idx" ON "setups" USING gin ("search_text" gin_trgm_ops);--> statement-breakpoint
-CREATE INDEX "gear_studio_kind_name_idx" ON "gear" USING btree ("studio_id","kind","name");
+CREATE INDEX "gear_studio_kind_name_idx" ON "gear" USING btree ("studio_id","kind","name");--> statement-breakpoint
+-- Written by hand (drizzle-kit does not generate triggers): studio_setup_counts follows every insert,
+-- delete and change of studio or trash state on setups, one upsert per studio per statement.
+CREATE FUNCTION setups_apply_count_delta() RETURNS trigger LANGUAGE plpgsql AS $$
+BEGIN
+	IF TG_OP = 'INSERT' THEN
+		INSERT INTO studio_setup_counts AS c (studio_id, live, trashed)
+		SELECT studio_id, count(*) FILTER (WHERE deleted_at IS NULL), count(*) FILTER (WHERE deleted_at IS NOT NULL)
+		FROM new_rows GROUP BY studio_id
+		ON CONFLICT (studio_id) DO UPDATE SET live = c.live + excluded.live, trashed = c.trashed + excluded.trashed;
+	ELSIF TG_OP = 'DELETE' THEN
+		UPDATE studio_setup_counts AS c SET live = c.live - d.live, trashed = c.trashed - d.trashed
+		FROM (SELECT studio_id, count(*) FILTER (WHERE deleted_at IS NULL) AS live, count(*) FILTER (WHERE deleted_at IS NOT NULL) AS trashed
+			FROM old_rows GROUP BY studio_id) AS d
+		WHERE c.studio_id = d.studio_id;
+	ELSE
+		INSERT INTO studio_setup_counts AS c (studio_id, live, trashed)
+		SELECT studio_id, sum(live), sum(trashed) FROM (
+			SELECT studio_id, CASE WHEN deleted_at IS NULL THEN 1 ELSE 0 END AS live, CASE WHEN deleted_at IS NULL THEN 0 ELSE 1 END AS trashed FROM new_rows
+			UNION ALL
+			SELECT studio_id, CASE WHEN deleted_at IS NULL THEN -1 ELSE 0 END, CASE WHEN deleted_at IS NULL THEN 0 ELSE -1 END FROM old_rows
+		) AS delta GROUP BY studio_id
+		HAVING sum(live) <> 0 OR sum(trashed) <> 0
+		ON CONFLICT (studio_id) DO UPDATE SET live = c.live + excluded.live, trashed = c.trashed + excluded.trashed;
+	END IF;
+	RETURN NULL;
+END $$;--> statement-breakpoint
+CREATE TRIGGER setups_count_insert AFTER INSERT ON setups REFERENCING NEW TABLE AS new_rows
+	FOR EACH STATEMENT EXECUTE FUNCTION setups_apply_count_delta();--> statement-breakpoint
+CREATE TRIGGER setups_count_delete AFTER DELETE ON setups REFERENCING OLD TABLE AS old_rows
+	FOR EACH STATEMENT EXECUTE FUNCTION setups_apply_count_delta();--> statement-breakpoint
+CREATE TRIGGER setups_count_update AFTER UPDATE ON setups REFERENCING OLD TABLE AS old_rows NEW TABLE AS new_rows
+	FOR EACH STATEMENT EXECUTE FUNCTION setups_apply_count_delta();

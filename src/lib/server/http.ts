@@ -112,7 +112,10 @@ type IssueList = { path: string[]; message: string }[];
 export function apiRoute<E extends RequestEvent>(handler: (event: E) => Response | Promise<Response>) {
 	return async (event: E): Promise<Response> => {
 		try {
-			return await handler(event);
+			const response = await handler(event);
+			// A body refused unread leaves the rest of it on the socket: tell the client not to reuse it.
+			if (response.status === 413) response.headers.set('connection', 'close');
+			return response;
 		} catch (e) {
 			if (isHttpError(e)) return apiError(e.status, e.body.message);
 			if (e instanceof RuleViolation) {

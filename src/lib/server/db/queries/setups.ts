@@ -2,7 +2,7 @@
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
 import { db, type Tx } from '../index';
-import { setupRevisions, setups, studios, users } from '../schema';
+import { setupRevisions, setups, studioSetupCounts, studios, users } from '../schema';
 import type { SetupListQuery } from '$lib/scene/inputs';
 
 type Runner = typeof db | Tx;
@@ -26,9 +26,14 @@ export function searchWords(q: string | undefined): string[] {
 	return [...new Set(q.toLowerCase().split(/\s+/).filter(Boolean))].slice(0, 8);
 }
 
+/**
+ * Named studios were checked by authz, which sees only studios that are not deleted; with 'all' (a site
+ * admin) deleted studios are left out here, which needs the join to studios.
+ */
 function listConditions(filter: SetupListFilter): SQL[] {
-	const where: SQL[] = [filter.trashed ? isNotNull(setups.deletedAt) : isNull(setups.deletedAt), isNull(studios.deletedAt)];
-	if (filter.studioIds !== 'all') where.push(inArray(setups.studioId, filter.studioIds));
+	const where: SQL[] = [filter.trashed ? isNotNull(setups.deletedAt) : isNull(setups.deletedAt)];
+	if (filter.studioIds === 'all') where.push(isNull(studios.deletedAt));
+	else where.push(inArray(setups.studioId, filter.studioIds));
 	for (const word of searchWords(filter.q)) where.push(sql`${setups.searchText} like ${likePattern(word)}`);
 	if (filter.tag) where.push(sql`${setups.tags} @> array[${filter.tag}]::text[]`);
 	if (filter.subject) where.push(sql`${setups.subject} ilike ${likePattern(filter.subject)}`);
@@ -45,8 +50,8 @@ function listOrder(filter: SetupListFilter) {
 
 const deletedBy = alias(users, 'deleted_by');
 
-/** One page of setups and the total that match. Two statements: the page uses the list index with a
- * limit, the count an index-only scan, so neither grows with the size of the other studios. */
+/** One page of setups and the total that match. The page walks the list index with a limit; the total
+ * comes from countSetups. The two run side by side. */
 export async function listSetups(filter: SetupListFilter) {
 	if (filter.studioIds !== 'all' && filter.studioIds.length === 0) return { items: [], total: 0 };
 	const where = and(...listConditions(filter));
@@ -75,13 +80,27 @@ export async function listSetups(filter: SetupListFilter) {
 		.orderBy(...listOrder(filter))
 		.limit(filter.pageSize)
 		.offset((filter.page - 1) * filter.pageSize);
-	const total = db
-		.select({ n: count() })
-		.from(setups)
-		.innerJoin(studios, eq(studios.id, setups.studioId))
-		.where(where);
-	const [items, [{ n }]] = await Promise.all([page, total]);
+	const [items, n] = await Promise.all([page, countSetups(filter, where)]);
 	return { items, total: n };
+}
+
+/**
+ * The total for a list. A whole studio's total (no search or filter) is read from studio_setup_counts,
+ * which triggers keep, so it costs the same for ten setups or ten thousand; a filtered list is counted.
+ */
+async function countSetups(filter: SetupListFilter, where: SQL | undefined): Promise<number> {
+	const filtered = searchWords(filter.q).length > 0 || !!filter.tag || !!filter.subject || !!filter.gearId;
+	if (!filtered && filter.studioIds !== 'all') {
+		const column = filter.trashed ? studioSetupCounts.trashed : studioSetupCounts.live;
+		const [row] = await db
+			.select({ n: sql<number>`coalesce(sum(${column}), 0)::int` })
+			.from(studioSetupCounts)
+			.where(inArray(studioSetupCounts.studioId, filter.studioIds));
+		return row.n;
+	}
+	const counted = db.select({ n: count() }).from(setups);
+	const [row] = await (filter.studioIds === 'all' ? counted.innerJoin(studios, eq(studios.id, setups.studioId)) : counted).where(where);
+	return row.n;
 }
 
 export type SetupListRow = Awaited<ReturnType<typeof listSetups>>['items'][number];

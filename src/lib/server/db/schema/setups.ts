@@ -101,6 +101,18 @@ export const setupRevisions = pgTable(
 	(t) => [uniqueIndex('setup_revisions_setup_number_idx').on(t.setupId, t.number)]
 );
 
+/**
+ * How many setups each studio has, live and in the trash, so the unfiltered notebook list answers its
+ * total without counting rows (a count that would grow with the studio). Kept by statement-level
+ * triggers on setups (drizzle/0001_notebook.sql), so every writer keeps it right, the app, the seed and
+ * bulk SQL alike, inside the writer's own transaction.
+ */
+export const studioSetupCounts = pgTable('studio_setup_counts', {
+	studioId: uuid().primaryKey(),
+	live: integer().notNull().default(0),
+	trashed: integer().notNull().default(0)
+});
+
 export type Setup = typeof setups.$inferSelect;
 export type NewSetup = typeof setups.$inferInsert;
 export type SetupRevision = typeof setupRevisions.$inferSelect;

@@ -1,0 +1,76 @@
+import { describe, expect, it } from 'vitest';
+import { CURRENT_SCHEMA_VERSION, MAX_NOTES_CHARS, referencedGearIds, setupDocumentSchema } from './document';
+
+const scene = {
+	camera: { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.5 },
+	subject: { position: [0, 0, 0.04] },
+	lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0.2, 0.35], guideNumber: 40, power: 0.25 }]
+};
+
+function paths(result: ReturnType<typeof setupDocumentSchema.safeParse>) {
+	return result.success ? [] : result.error.issues.map((i) => i.path.join('.'));
+}
+
+describe('setupDocumentSchema', () => {
+	it('accepts a scene alone, with an empty plan and empty notes (API.md)', () => {
+		const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: {}, notes: '' });
+		expect(r.success).toBe(true);
+		expect(r.data).toEqual({ schemaVersion: 1, scene, plan: {}, notes: '', gear: [] });
+		const bare = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene });
+		expect(bare.success && bare.data.plan).toEqual({});
+		expect(bare.success && bare.data.notes).toBe('');
+	});
+
+	it('checks the scene with the exposure schema and names the field', () => {
+		const bad = { ...scene, lights: [{ ...scene.lights[0], power: 2 }] };
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene: bad }))).toEqual(['scene.lights.0.power']);
+		const unknownKind = { ...scene, lights: [{ ...scene.lights[0], kind: 'laser' }] };
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene: unknownKind }))[0]).toMatch(/^scene\.lights\.0/);
+	});
+
+	it('checks plan elements and keeps fields a newer editor adds', () => {
+		const plan = {
+			elements: {
+				key: { kind: 'flash', label: 'Key', rotationDeg: -35, widthM: 0.1, colour: '#f2c14e', futureField: { a: 1 } },
+				velvet: { kind: 'background', position: [0, 0.05, 0], widthM: 0.6, depthM: 0.5, locked: true }
+			},
+			viewport: { center: [0, 0], widthM: 1.2, depthM: 1 }
+		};
+		const ok = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan });
+		expect(ok.success).toBe(true);
+		expect(ok.data?.plan.elements?.key).toMatchObject({ futureField: { a: 1 } });
+		const bad = setupDocumentSchema.safeParse({
+			schemaVersion: 1,
+			scene,
+			plan: { elements: { key: { rotationDeg: Number.NaN, colour: 'red', kind: 'spaceship', widthM: -1, gearId: 'x' } } }
+		});
+		expect(paths(bad).sort()).toEqual(
+			['plan.elements.key.colour', 'plan.elements.key.gearId', 'plan.elements.key.kind', 'plan.elements.key.rotationDeg', 'plan.elements.key.widthM'].sort()
+		);
+	});
+
+	it('limits notes', () => {
+		const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'x'.repeat(MAX_NOTES_CHARS + 1) });
+		expect(paths(r)).toEqual(['notes']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: ['a', 'b'] }))).toEqual(['notes']);
+	});
+
+	it('checks the gear copies against their kind and refuses a copy held twice', () => {
+		const id = '7e1a9b30-4c2d-4f1e-9a0b-00000000a001';
+		const copy = { id, kind: 'flash', name: 'Kestrel 40', spec: { guideNumberM: 40, lowestPower: 1 / 256, syncSpeedS: 1 / 250 }, copiedAt: '2026-10-06T18:40:00Z' };
+		expect(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [copy] }).success).toBe(true);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [{ ...copy, spec: { guideNumberM: -3 } }] }))).toContain('gear.0.spec.guideNumberM');
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [copy, copy] }))).toEqual(['gear.1.id']);
+	});
+
+	it('refuses another schemaVersion (older ones go through migrateDocument)', () => {
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 0, scene }))).toEqual(['schemaVersion']);
+	});
+
+	it('lists the gear the plan refers to, once each', () => {
+		const a = '7e1a9b30-4c2d-4f1e-9a0b-00000000a001';
+		const b = '7e1a9b30-4c2d-4f1e-9a0b-00000000b001';
+		expect(referencedGearIds({ plan: { elements: { x: { gearId: b }, y: { gearId: a }, z: { gearId: b }, w: {} } } })).toEqual([a, b]);
+		expect(referencedGearIds({ plan: {} })).toEqual([]);
+	});
+});
