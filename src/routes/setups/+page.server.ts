@@ -1,0 +1,93 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { myStudios } from '$lib/server/studios';
+import { callApi, issuesByField, type SetupList } from '$lib/notebook/api';
+import { apiSearch, readListQuery } from '$lib/notebook/list-query';
+import { blankDocument, requireSignedIn } from '$lib/notebook/load';
+
+/** A setup file is at most 1 MiB (the setups API's import limit). */
+const MAX_FILE_BYTES = 1024 * 1024;
+
+interface GearOption {
+	id: string;
+	name: string;
+	kind: string;
+	studioId: string;
+}
+
+export async function load({ locals, url, fetch }) {
+	const user = requireSignedIn(locals.user, url);
+	const query = readListQuery(url.searchParams);
+	const studios = await myStudios(user);
+	const shelves = query.studio ? studios.filter((s) => s.id === query.studio) : studios;
+	const [list, ...gearLists] = await Promise.all([
+		callApi<SetupList>(fetch, `/api/v1/setups${apiSearch(query)}`),
+		...shelves.map((s) => callApi<{ items: GearOption[] }>(fetch, `/api/v1/gear?studio=${s.id}`))
+	]);
+	const gear = gearLists.flatMap((g) => (g.ok ? g.data.items.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId })) : []));
+	return {
+		query,
+		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role })),
+		list: list.ok ? list.data : { items: [], total: 0, page: query.page, pageSize: 20 },
+		listError: list.ok ? null : list.message,
+		gear
+	};
+}
+
+export const actions = {
+	/** New setup: a small form (studio, title, subject) → POST /api/v1/setups with a minimal document. */
+	create: async ({ request, fetch }) => {
+		const form = await request.formData();
+		const values = {
+			studioId: String(form.get('studioId') ?? ''),
+			title: String(form.get('title') ?? ''),
+			subject: String(form.get('subject') ?? '')
+		};
+		const errors: Record<string, string> = {};
+		if (!values.title.trim()) errors.title = 'Give the setup a title.';
+		if (Object.keys(errors).length) return fail(400, { action: 'create', values, errors });
+		const r = await callApi<{ id: string }>(fetch, '/api/v1/setups', {
+			method: 'POST',
+			body: { ...(values.studioId ? { studioId: values.studioId } : {}), title: values.title, subject: values.subject, document: blankDocument() }
+		});
+		if (!r.ok) {
+			const fieldErrors = issuesByField(r.issues, ['studioId', 'title', 'subject']);
+			if (!Object.keys(fieldErrors).length || (r.status !== 400 && !fieldErrors.form)) fieldErrors.form = r.message;
+			return fail(r.status === 400 ? 400 : r.status, { action: 'create', values, errors: fieldErrors });
+		}
+		redirect(303, `/setups/${r.data.id}?created=1`);
+	},
+
+	/** Import: a setup file from an export → POST /api/v1/setups/import; a bad file creates nothing. */
+	import: async ({ request, fetch }) => {
+		const form = await request.formData();
+		const studioId = String(form.get('studioId') ?? '');
+		const file = form.get('file');
+		const values = { studioId };
+		if (!(file instanceof File) || file.size === 0) {
+			return fail(400, { action: 'import', values, errors: { file: file instanceof File && file.name ? `“${file.name}” is empty.` : 'Choose a setup file to import.' } });
+		}
+		if (file.size > MAX_FILE_BYTES) {
+			return fail(400, {
+				action: 'import',
+				values,
+				errors: { file: `“${file.name}” is too large (${Math.ceil(file.size / 1024)} KiB); a setup file is at most ${MAX_FILE_BYTES / 1024} KiB.` }
+			});
+		}
+		const text = await file.text();
+		const r = await callApi<{ id: string }>(fetch, `/api/v1/setups/import${studioId ? `?studio=${encodeURIComponent(studioId)}` : ''}`, {
+			method: 'POST',
+			rawBody: text
+		});
+		if (!r.ok) {
+			const details = r.issues.filter((i) => i.path.length).slice(0, 8).map((i) => `${i.path.join('.')}: ${i.message}`);
+			const where = r.issues.some((i) => i.path[0] === 'studio') ? 'studioId' : 'file';
+			return fail(r.status === 413 ? 400 : r.status, {
+				action: 'import',
+				values,
+				errors: { [where]: `“${file.name}”: ${r.message}` } as Record<string, string>,
+				details
+			});
+		}
+		redirect(303, `/setups/${r.data.id}?imported=1`);
+	}
+};
