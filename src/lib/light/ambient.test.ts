@@ -13,6 +13,7 @@ import {
 	shutterForAmbientUnder,
 	shutterForCorrect
 } from './ambient';
+import * as ambientModule from './ambient';
 
 const base = { calibrationC: 250, calibrationK: 12.5, iso: 100, magnification: 0, pupilMagnification: 1, lossStops: 0, syncSpeed: 1 / 200 };
 
@@ -158,5 +159,26 @@ describe('ambient offsets and the flash balance (API.md)', () => {
 				}
 			)
 		);
+	});
+});
+
+describe('marked shutter speeds', () => {
+	it('the third-stop series runs 1/8000 s to 30 s, with “1/125” really 1/128 s', () => {
+		// Source: shutter speeds in ISO 2721 / APEX Tv steps are powers of 2 labelled with rounded values
+		// (from memory: 1/125 = 2^−7, 1/60 = 2^−6).
+		const { MARKED_SHUTTER_SPEEDS } = ambientModule;
+		expect(MARKED_SHUTTER_SPEEDS).toHaveLength(55);
+		expect(MARKED_SHUTTER_SPEEDS[0].label).toBe('1/8000 s');
+		expect(MARKED_SHUTTER_SPEEDS.at(-1)!.label).toBe('30 s');
+		expect(MARKED_SHUTTER_SPEEDS.find((s) => s.label === '1/125 s')!.exactS).toBe(1 / 128);
+		expect(MARKED_SHUTTER_SPEEDS.find((s) => s.label === '1 s')!.exactS).toBe(1);
+	});
+
+	it('1/62 s rounds to 1/60 s (really 1/64); beyond the ends it stops at 1/8000 and 30 s', () => {
+		const { nearestMarkedShutter } = ambientModule;
+		expect(nearestMarkedShutter(1 / 62).label).toBe('1/60 s');
+		expect(nearestMarkedShutter(1 / 62).residualStops).toBeCloseTo(Math.log2(62 / 64), 12);
+		expect(nearestMarkedShutter(1e-5).label).toBe('1/8000 s');
+		expect(nearestMarkedShutter(100).label).toBe('30 s');
 	});
 });

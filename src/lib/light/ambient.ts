@@ -133,6 +133,9 @@ export interface AmbientCalcResult {
 	exposureOffsetStops?: number;
 	shutterForCorrect: number;
 	shutterForBalance?: number;
+	/** Extra: the nearest marked third-stop speeds (label, exact time, residual stops). */
+	markedShutterForCorrect?: ReturnType<typeof nearestMarkedShutter>;
+	markedShutterForBalance?: ReturnType<typeof nearestMarkedShutter>;
 	/** The balance shutter is faster than the sync speed: a flash cannot sync without high-speed sync. */
 	balanceFasterThanSync?: boolean;
 }
@@ -161,13 +164,37 @@ export function ambientCalc(input: AmbientCalcInput): AmbientCalcResult {
 		workingAperture: wa,
 		shutterForCorrect: shutterForCorrect(ev100, input.iso, wa, input.lossStops)
 	};
+	result.markedShutterForCorrect = nearestMarkedShutter(result.shutterForCorrect);
 	if (input.shutter !== undefined) {
 		result.exposureOffsetStops = ambientOffsetStops(ev100, input.iso, input.shutter, wa, input.lossStops);
 	}
 	if (input.balanceUnderStops !== undefined) {
 		const t = shutterForAmbientUnder(ev100, input.iso, wa, input.balanceUnderStops, input.lossStops, input.flashOffsetStops ?? 0);
 		result.shutterForBalance = t;
+		result.markedShutterForBalance = nearestMarkedShutter(t);
 		result.balanceFasterThanSync = t < input.syncSpeed;
 	}
 	return result;
+}
+
+/**
+ * Marked shutter speeds in third stops, 1/8000 s to 30 s, as cameras label them; the exact times are
+ * 2^(k/3) s (k = −39 … 15), e.g. “1/125” is really 2^(−7) = 1/128 s.
+ */
+const MARKED_SHUTTER_LABELS = [
+	'1/8000', '1/6400', '1/5000', '1/4000', '1/3200', '1/2500', '1/2000', '1/1600', '1/1250', '1/1000', '1/800', '1/640',
+	'1/500', '1/400', '1/320', '1/250', '1/200', '1/160', '1/125', '1/100', '1/80', '1/60', '1/50', '1/40', '1/30', '1/25',
+	'1/20', '1/15', '1/13', '1/10', '1/8', '1/6', '1/5', '1/4', '0.3', '0.4', '0.5', '0.6', '0.8', '1', '1.3', '1.6', '2',
+	'2.5', '3.2', '4', '5', '6', '8', '10', '13', '15', '20', '25', '30'
+];
+export const MARKED_SHUTTER_SPEEDS: readonly { label: string; exactS: number }[] = MARKED_SHUTTER_LABELS.map((label, i) => ({
+	label: `${label} s`,
+	exactS: 2 ** ((i - 39) / 3)
+}));
+
+/** The marked third-stop shutter speed nearest to `shutterS` in stops, and the error it leaves (+ = more light). */
+export function nearestMarkedShutter(shutterS: number): { label: string; exactS: number; residualStops: number } {
+	const i = Math.min(MARKED_SHUTTER_SPEEDS.length - 1, Math.max(0, Math.round(3 * Math.log2(shutterS) + 39)));
+	const step = MARKED_SHUTTER_SPEEDS[i];
+	return { ...step, residualStops: Math.log2(step.exactS / shutterS) };
 }

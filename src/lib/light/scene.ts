@@ -135,7 +135,8 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 		scene.subject.normal ? facingCosine(scene.subject.normal as Vec3, subtract3(from, subject)) : 1;
 	const ambientX = scene.ambient ? ambientExposure(scene.ambient.ev100, cam.iso, cam.shutter, wa) : 0;
 
-	const results: (SceneLightResult & { unblockedX: number })[] = [];
+	const results: SceneLightResult[] = [];
+	const unblocked: number[] = []; // each light's X had no flag been in the way (for the blocked-key warning)
 	const kelvins: { kelvin: number | undefined; id: string }[] = [];
 	const lightKelvin = (l: FlashLight | ContinuousLight) =>
 		l.kelvin === undefined ? undefined : l.gelMired ? gelledKelvin(l.kelvin, l.gelMired) : l.kelvin;
@@ -181,24 +182,17 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 			x *= subjectCosine(pos);
 		}
 		x *= cameraFactor;
-		const unblockedX = x;
+		unblocked.push(x);
 		if (blockedBy) x = 0;
-		results.push({
-			id: light.id,
-			kind: light.kind,
-			x,
-			stops: stopsOf(x),
-			blocked: blockedBy !== undefined,
-			...(blockedBy !== undefined ? { blockedBy } : {}),
-			...(sourceBlocked !== undefined ? { sourceBlocked } : {}),
-			group,
-			distanceM: d,
-			unblockedX
-		});
+		const entry: SceneLightResult = { id: light.id, kind: light.kind, x, stops: stopsOf(x), blocked: blockedBy !== undefined, group, distanceM: d };
+		if (blockedBy !== undefined) entry.blockedBy = blockedBy;
+		if (sourceBlocked !== undefined) entry.sourceBlocked = sourceBlocked;
+		results.push(entry);
 	}
 	if (scene.ambient) {
 		const x = ambientX * cameraFactor;
-		results.push({ id: 'ambient', kind: 'ambient', x, stops: stopsOf(x), blocked: false, group: 'ambient', unblockedX: x });
+		results.push({ id: 'ambient', kind: 'ambient', x, stops: stopsOf(x), blocked: false, group: 'ambient' });
+		unblocked.push(x);
 		kelvins.push({ kelvin: scene.ambient.kelvin, id: 'ambient' });
 	}
 
@@ -254,8 +248,10 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	} else if (Math.abs(totalStops) > EXPOSURE_WARNING_STOPS) {
 		warnings.push(`The exposure is ${formatStops(totalStops)} at ${formatFNumber(cam.aperture)}: more than ${EXPOSURE_WARNING_STOPS} stops ${totalStops > 0 ? 'over' : 'under'}.`);
 	}
-	const unblockedKey = [...results].sort((a, b) => b.unblockedX - a.unblockedX)[0];
-	if (unblockedKey && unblockedKey.blocked && unblockedKey.unblockedX > 0) {
+	let strongest = -1;
+	for (let i = 0; i < results.length; i++) if (strongest < 0 || unblocked[i] > unblocked[strongest]) strongest = i;
+	const unblockedKey = strongest >= 0 && unblocked[strongest] > 0 ? results[strongest] : undefined;
+	if (unblockedKey?.blocked) {
 		warnings.push(`The key light “${unblockedKey.id}” is blocked by flag “${unblockedKey.blockedBy}”.`);
 	}
 	const airyHere = airyDiskUm(wa, lambda);
@@ -271,7 +267,7 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	const cautionDetails = sceneCautions(scene);
 	return {
 		workingAperture: wa,
-		lights: results.map(({ unblockedX: _u, ...r }) => r),
+		lights: results,
 		total: { x: totalX, exposureOffsetStops: totalStops },
 		keyLightId: key?.id ?? null,
 		lightingRatio,

@@ -1,19 +1,26 @@
 import { fail, type Actions } from '@sveltejs/kit';
 import { saveUnitPreference } from '$lib/server/db/queries/users';
 import { initialValues, type FieldValues } from './fields';
-import { answerQuestion } from './compute';
+import { runCalculation, type CalculationPath } from '$lib/light/calculations';
+import { answerQuestion, type Send } from './compute';
 import { QUESTIONS, questionById } from './questions';
 import { isUnitSystem, rememberUnitSystem, unitSystemFor } from './units';
 import type { PageServerLoad } from './$types';
 
-export const load: PageServerLoad = async ({ locals, cookies, fetch }) => {
+/** On the server the route's schema and engine run in-process: the same answer, no internal request. */
+const sendDirect: Send = async (route, body) => {
+	const outcome = runCalculation(route as CalculationPath, body);
+	return outcome.ok ? outcome : { ok: false, message: outcome.message, issues: outcome.issues };
+};
+
+export const load: PageServerLoad = async ({ locals, cookies }) => {
 	const units = unitSystemFor(locals, cookies);
 	// Every question is answered for its starting values, so the page is useful before anyone types and
 	// without JavaScript.
 	const initial = await Promise.all(
 		QUESTIONS.map(async (q) => {
 			const values = initialValues(q.fields, units);
-			return [q.id, { values, outcome: await answerQuestion(q, values, units, fetch) }] as const;
+			return [q.id, { values, outcome: await answerQuestion(q, values, units, sendDirect) }] as const;
 		})
 	);
 	return { units, initial: Object.fromEntries(initial) };
@@ -27,11 +34,11 @@ function formValues(data: FormData): FieldValues {
 
 /** One named action per question: the no-JavaScript path, through the same API route. */
 function questionAction(id: string): Actions[string] {
-	return async ({ request, locals, cookies, fetch }) => {
+	return async ({ request, locals, cookies }) => {
 		const question = questionById(id)!;
 		const units = unitSystemFor(locals, cookies);
 		const values = formValues(await request.formData());
-		const outcome = await answerQuestion(question, values, units, fetch);
+		const outcome = await answerQuestion(question, values, units, sendDirect);
 		if (!outcome.ok) return fail(400, { question: id, values, errors: outcome.errors });
 		return { question: id, values, answer: outcome.answer };
 	};

@@ -1,5 +1,5 @@
 import type { Cookies } from '@sveltejs/kit';
-import type { UnitSystem } from '$lib/light/units';
+import type { UnitSystem } from '$lib/light/format';
 
 export const UNITS_COOKIE = 'squarelaw-units';
 

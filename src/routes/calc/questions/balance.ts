@@ -1,6 +1,6 @@
 import { SKY_PRESETS, SKY_PRESET_NAMES, type AmbientCalcResult } from '$lib/light/ambient';
 import type { AmbientCalcBody } from '$lib/light/schema';
-import { formatFNumber, formatShutter, formatStops, type UnitSystem } from '$lib/light/units';
+import { formatFNumber, formatShutter, formatStops, type UnitSystem } from '$lib/light/format';
 import { hints } from '../fields';
 import { n, type Answer, type Question } from './types';
 
@@ -58,7 +58,8 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 		working.push(
 			`Working aperture = ${n(N)} × (1 + ${n(m)}) = ${formatFNumber(r.workingAperture)}.`,
 			`Shutter for a correct ambient exposure = N_w² ÷ (2^EV × ISO / 100) = ${n(r.workingAperture)}² ÷ (2^${n(r.ev100)} × ${n(iso)} / 100) = ${formatShutter(r.shutterForCorrect)}.`,
-			`For the ambient ${n(under)} ${Math.abs(under) === 1 ? 'stop' : 'stops'} under the flash, shorten it by 2^${n(under)}: ${formatShutter(r.shutterForCorrect)} ÷ ${n(2 ** under)} = ${formatShutter(r.shutterForBalance!)}. The flash exposure does not change with the shutter, only the ambient does.`
+			`For the ambient ${n(under)} ${Math.abs(under) === 1 ? 'stop' : 'stops'} under the flash, shorten it by 2^${n(under)}: ${formatShutter(r.shutterForCorrect)} ÷ ${n(2 ** under)} = ${formatShutter(r.shutterForBalance!)}. The flash exposure does not change with the shutter, only the ambient does.`,
+			`Nearest marked speed: ${r.markedShutterForBalance!.label}, ${formatStops(r.markedShutterForBalance!.residualStops, 2)} of ambient against the exact figure.`
 		);
 		const warnings: string[] = [];
 		if (r.balanceFasterThanSync) {
@@ -67,11 +68,11 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 			);
 		}
 		return {
-			headline: `Shutter ${formatShutter(r.shutterForBalance!)} puts the ambient ${formatStops(-under).replace('−', '').replace('+', '')} under the flash`,
+			headline: `Set ${r.markedShutterForBalance!.label}: the ambient sits ${n(under)} ${Math.abs(under) === 1 ? 'stop' : 'stops'} under the flash`,
 			facts: [
 				{ label: 'Ambient EV (ISO 100)', value: n(r.ev100) },
 				{ label: 'Shutter for correct ambient', value: formatShutter(r.shutterForCorrect) },
-				{ label: 'Shutter for the balance', value: formatShutter(r.shutterForBalance!) },
+				{ label: 'Shutter for the balance', value: `${formatShutter(r.shutterForBalance!)} (marked ${r.markedShutterForBalance!.label})` },
 				{ label: 'Working aperture', value: formatFNumber(r.workingAperture) }
 			],
 			working,

@@ -1,6 +1,6 @@
 import type { ExposureSceneInput } from '$lib/light/schema';
 import type { ExposureResult } from '$lib/light/scene';
-import { formatDistance, formatFNumber, formatStops, type UnitSystem } from '$lib/light/units';
+import { formatDistance, formatFNumber, formatStops, type UnitSystem } from '$lib/light/format';
 import { hints } from '../fields';
 import { lengthNumber as L, lengthUnitLabel, n, type Answer, type Question } from './types';
 

@@ -1,6 +1,6 @@
 import { GELS, GEL_NAMES, type ColourCalcResult, type GelName } from '$lib/light/colour';
 import type { ColourCalcBody } from '$lib/light/schema';
-import { type UnitSystem } from '$lib/light/units';
+import { type UnitSystem } from '$lib/light/format';
 import { n, type Answer, type Question } from './types';
 
 const signed = (v: number) => `${v > 0 ? '+' : v < 0 ? '−' : ''}${n(Math.abs(v))}`;

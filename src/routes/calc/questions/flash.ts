@@ -1,6 +1,7 @@
 import type { FlashCalcBody } from '$lib/light/schema';
 import type { FlashCalcResult } from '$lib/light/flash';
-import { formatDistance, formatFNumber, formatStops, METRES_PER_FOOT, type UnitSystem } from '$lib/light/units';
+import { formatDistance, formatFNumber, formatStops, type UnitSystem } from '$lib/light/format';
+import { METRES_PER_FOOT } from '$lib/light/constants';
 import { hints } from '../fields';
 import { n, ratio, type Answer, type Question } from './types';
 

@@ -1,6 +1,6 @@
 import type { OpticsCalcBody } from '$lib/light/schema';
 import type { OpticsCalcResult } from '$lib/light/optics';
-import { formatDistance, formatFNumber, formatSmallLength, type UnitSystem } from '$lib/light/units';
+import { formatDistance, formatFNumber, formatSmallLength, type UnitSystem } from '$lib/light/format';
 import { hints } from '../fields';
 import { n, ratio, type Answer, type Question } from './types';
 

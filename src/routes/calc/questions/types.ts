@@ -1,4 +1,4 @@
-import type { UnitSystem } from '$lib/light/units';
+import type { UnitSystem } from '$lib/light/format';
 import type { FieldDef } from '../fields';
 
 /** What the page shows for an answer: the headline, a few facts, and the working in plain words. */

@@ -1,6 +1,4 @@
-import { colourCalc } from '$lib/light/colour';
-import { colourCalcSchema } from '$lib/light/schema';
 import { calculationRoute } from '../respond';
 
-/** POST /api/v1/calc/colour (API.md): mired shift between two sources, or a gel on a source. */
-export const POST = calculationRoute(colourCalcSchema, colourCalc);
+/** POST /api/v1/calc/colour (API.md); the schema and engine call are in $lib/light/calculations. */
+export const POST = calculationRoute('/api/v1/calc/colour');

@@ -1,6 +1,4 @@
-import { opticsCalc } from '$lib/light/optics';
-import { opticsCalcSchema } from '$lib/light/schema';
 import { calculationRoute } from '../respond';
 
-/** POST /api/v1/calc/optics (API.md): working aperture, depth of field, diffraction and a stack plan. */
-export const POST = calculationRoute(opticsCalcSchema, opticsCalc);
+/** POST /api/v1/calc/optics (API.md); the schema and engine call are in $lib/light/calculations. */
+export const POST = calculationRoute('/api/v1/calc/optics');

@@ -1,0 +1,135 @@
+/**
+ * The editor model as the exposure scene of `POST /api/v1/exposure` (API.md): the subject's position,
+ * each light with its kelvin, its losses (modifier + other + every diffuser its straight path to the
+ * subject crosses in plan), its beam aimed along its rotation and tilt, each reflector with its area
+ * and (when its facing is set) its normal; each flag as its plan segment. Cameras, diffusers and
+ * backgrounds are drawing and loss only: the scene has no place for them.
+ */
+import { segmentsIntersect } from '$lib/light/geometry';
+import type { ExposureScene, Flag, SceneLight } from '$lib/light/schema';
+import { direction3, panelSegment } from './geometry';
+import type { DiffuserElement, EditorElement, EmitterElement, ReflectorElement } from './schema';
+import type { EditorModel, Vec2, Vec3 } from './types';
+import { elementsInOrder, subjectOf } from './types';
+
+/** The subject's position when a plan has none yet (the scene needs one). */
+export const ORIGIN: Vec3 = [0, 0, 0];
+
+export interface ExcludedElement {
+	id: string;
+	reason: string;
+}
+
+const pos3 = (el: EditorElement): [number, number, number] => [el.xM, el.yM, el.heightM];
+
+/** Stops lost to diffusers whose plan segment the straight path from `from` to `to` crosses. */
+export function diffuserLossStops(diffusers: readonly DiffuserElement[], from: Vec2, to: Vec2): number {
+	let loss = 0;
+	for (const d of diffusers) {
+		const [a, b] = panelSegment(d);
+		if (segmentsIntersect(from, to, a, b)) loss += d.lossStops;
+	}
+	return loss;
+}
+
+/** Why a reflector cannot be in the scene (null: it can). */
+export function reflectorProblem(model: EditorModel, r: ReflectorElement): string | null {
+	if (r.source === 'ambient') return model.ambient ? null : 'bounces the ambient light, but the setup has no ambient';
+	const source = model.elements[r.source];
+	if (!source) return `bounces “${r.source}”, which is not on the plan`;
+	if (source.kind !== 'flash' && source.kind !== 'continuous') return `bounces “${source.label}”, which is not a light`;
+	return null;
+}
+
+/** Elements the scene leaves out, with the reason (for the exposure panel). */
+export function excludedElements(model: EditorModel): ExcludedElement[] {
+	const out: ExcludedElement[] = [];
+	for (const el of elementsInOrder(model)) {
+		if (el.kind !== 'reflector') continue;
+		const problem = reflectorProblem(model, el);
+		if (problem) out.push({ id: el.id, reason: problem });
+	}
+	return out;
+}
+
+function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElement[]): SceneLight {
+	const position = pos3(el);
+	const loss = (el.modifier?.lossStops ?? 0) + el.otherLossStops + diffuserLossStops(diffusers, [el.xM, el.yM], [subject[0], subject[1]]);
+	const beam: Partial<{ aim: [number, number, number]; beamAngleDeg: number }> = {};
+	if (el.modifier?.beamAngleDeg != null) {
+		const d = direction3(el.rotationDeg, el.tiltDeg);
+		beam.aim = [el.xM + d[0], el.yM + d[1], el.heightM + d[2]];
+		beam.beamAngleDeg = el.modifier.beamAngleDeg;
+	}
+	const colour = {
+		...(el.kelvin !== null ? { kelvin: el.kelvin } : {}),
+		...(el.gelMired !== 0 ? { gelMired: el.gelMired } : {})
+	};
+	const lossStops = Math.min(30, loss);
+	if (el.kind === 'flash') {
+		return {
+			id: el.id,
+			kind: 'flash',
+			position,
+			guideNumber: el.guideNumber,
+			power: el.power,
+			...(lossStops > 0 ? { lossStops } : {}),
+			...beam,
+			...colour,
+			...(el.highSpeedSync ? { highSpeedSync: true } : {}),
+			...(el.mainsPowered ? { mainsPowered: true } : {})
+		};
+	}
+	return {
+		id: el.id,
+		kind: 'continuous',
+		position,
+		luxAt1m: el.luxAt1m,
+		...(lossStops > 0 ? { lossStops } : {}),
+		...beam,
+		...colour,
+		runsHot: el.runsHot
+	};
+}
+
+function reflectorLight(el: ReflectorElement): SceneLight {
+	const n = direction3(el.rotationDeg, el.tiltDeg);
+	return {
+		id: el.id,
+		kind: 'reflector',
+		position: pos3(el),
+		areaM2: el.widthM * el.panelHeightM,
+		reflectance: el.reflectance,
+		surface: el.surface,
+		source: el.source,
+		...(el.facingSet ? { normal: [n[0], n[1], n[2]] as [number, number, number] } : {})
+	};
+}
+
+export function toExposureScene(model: EditorModel): ExposureScene {
+	const subjectEl = subjectOf(model);
+	const subject: Vec3 = subjectEl ? pos3(subjectEl) : ORIGIN;
+	const ordered = elementsInOrder(model);
+	const diffusers = ordered.filter((e): e is DiffuserElement => e.kind === 'diffuser');
+	const lights: SceneLight[] = [];
+	const flags: Flag[] = [];
+	for (const el of ordered) {
+		if (el.kind === 'flash' || el.kind === 'continuous') lights.push(emitterLight(el, subject, diffusers));
+		else if (el.kind === 'reflector' && reflectorProblem(model, el) === null) lights.push(reflectorLight(el));
+		else if (el.kind === 'flag') {
+			const [from, to] = panelSegment(el);
+			flags.push({ id: el.id, from: [from[0], from[1]], to: [to[0], to[1]] });
+		}
+	}
+	return {
+		camera: { ...model.camera },
+		subject: {
+			position: [subject[0], subject[1], subject[2]],
+			...(subjectEl?.living ? { living: true } : {}),
+			...(subjectEl?.normal ? { normal: [...subjectEl.normal] as [number, number, number] } : {})
+		},
+		...(model.ambient ? { ambient: { ...model.ambient } } : {}),
+		lights,
+		...(flags.length ? { flags } : {})
+	};
+}

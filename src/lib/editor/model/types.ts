@@ -1,0 +1,47 @@
+/** The editor's document model: the plan's elements by id plus the camera settings and the ambient. */
+import type { AmbientSettings, CameraSettings, EditorElement } from './schema';
+
+export type * from './schema';
+
+/**
+ * What the editor keeps from a document's plan without editing it: the entries as read (with fields
+ * it does not use, such as a gear id), entries of kinds it does not draw (a modifier fitted to a light,
+ * a written label, the table), and the plan's other keys (its print frame). Written back on save.
+ */
+export interface KeptPlan {
+	readonly entries: Readonly<Record<string, Readonly<Record<string, unknown>>>>;
+	readonly rest: Readonly<Record<string, unknown>>;
+}
+
+export const EMPTY_KEPT_PLAN: KeptPlan = { entries: {}, rest: {} };
+
+export interface EditorModel {
+	readonly elements: Readonly<Record<string, EditorElement>>;
+	readonly camera: CameraSettings;
+	readonly ambient: AmbientSettings | null;
+	readonly kept: KeptPlan;
+}
+
+export type Vec2 = readonly [number, number];
+export type Vec3 = readonly [number, number, number];
+
+/** Elements in drawing order (lowest zIndex first; ties by id so the order is stable). */
+export function elementsInOrder(model: EditorModel): EditorElement[] {
+	return Object.values(model.elements).sort((a, b) => a.zIndex - b.zIndex || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0));
+}
+
+export function topZIndex(model: EditorModel): number {
+	let top = 0;
+	for (const el of Object.values(model.elements)) top = Math.max(top, el.zIndex);
+	return top;
+}
+
+export function subjectOf(model: EditorModel) {
+	for (const el of Object.values(model.elements)) if (el.kind === 'subject') return el;
+	return undefined;
+}
+
+export function cameraOf(model: EditorModel) {
+	for (const el of Object.values(model.elements)) if (el.kind === 'camera') return el;
+	return undefined;
+}

@@ -1,0 +1,17 @@
+/** Small setups for the editor's tests (the quartz cluster of the Fernhill Geology Circle's catalogue). */
+import type { ExposureScene } from '$lib/light/schema';
+import { modelFromScene } from './model/layout';
+import type { EditorModel } from './model/types';
+
+/** A quartz cluster at the origin, 3 cm up; one flash 50 cm to its left at subject height; f/16 at 1:2. */
+export function quartzScene(): ExposureScene {
+	return {
+		camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
+		subject: { position: [0, 0, 0.03] },
+		lights: [{ id: 'key', kind: 'flash', position: [-0.5, 0, 0.03], guideNumber: 40, power: 1 / 8 }]
+	};
+}
+
+export function quartzModel(): EditorModel {
+	return modelFromScene(quartzScene()).model;
+}
