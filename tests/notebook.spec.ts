@@ -188,6 +188,15 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await expect(page.getByRole('status')).toContainText(`“${title}” is back in the notebook at revision 3.`);
 	await visit(page, `/setups/${id}/history`);
 	await expect(page.getByTestId('revision-table').locator('tbody tr')).toHaveCount(3);
+
+	// Restoring revision 2 makes revision 4, a copy of it; nothing is overwritten.
+	await page.getByRole('button', { name: 'Restore revision 2' }).click();
+	await expect(page.getByRole('status').filter({ hasText: 'Revision 2 restored as revision 4.' })).toBeVisible();
+	const rows = page.getByTestId('revision-table').locator('tbody tr');
+	await expect(rows).toHaveCount(4);
+	await expect(rows.nth(0)).toContainText('a copy of revision 2');
+	await page.getByRole('link', { name: 'Open the setup' }).click();
+	await expect(page.getByTestId('notes-rendered')).toHaveText('Theirs: use the silver card.');
 });
 
 test('export a setup file and import it again; a malformed or foreign file is refused, naming the problem, and creates nothing', async ({
