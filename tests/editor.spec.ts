@@ -158,3 +158,86 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	expect(saved.document.scene.camera.aperture).toBe(16);
 	expect(saved.revisionNumber).toBe(startRevision + 1);
 });
+
+test('unsaved work survives a reload, and a stale save says someone saved since and saves on top, losing nothing', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+	const dup = await page.request.post(`/api/v1/setups/${seeded}/duplicate`, {
+		data: { title: `Ammonite draft test ${randomUUID().slice(0, 8)}`, subject: 'Ammonite section (draft test)' }
+	});
+	expect(dup.status()).toBe(201);
+	const { id } = (await dup.json()) as { id: string };
+	await openPlan(page, id);
+
+	const iso = page.getByLabel('ISO');
+	await iso.fill('200');
+	await iso.press('Tab');
+	await expect(page.getByTestId('revision-status')).toContainText('unsaved changes');
+	// The draft is written a moment after the last change.
+	await expect
+		.poll(async () => page.evaluate((key) => localStorage.getItem(key), `squarelaw:plan-draft:${id}`))
+		.toContain('"iso":200');
+
+	await page.reload();
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByText(/were restored from this browser/)).toBeVisible();
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+
+	// Meanwhile someone else saves a revision on the same base.
+	const current = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	const other = await page.request.put(`/api/v1/setups/${id}`, {
+		data: { baseRevision: current.revisionNumber, document: current.document, message: 'Saved from another window' }
+	});
+	expect(other.status()).toBe(200);
+	const theirs = (await other.json()).revisionNumber as number;
+
+	await page.getByLabel('What changed (optional)').fill('ISO 200');
+	await page.getByRole('button', { name: 'Save revision' }).click();
+	const alert = page.getByRole('alert').filter({ hasText: 'Someone saved this setup since' });
+	await expect(alert).toContainText(`revision ${theirs}`);
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+	await alert.getByRole('button', { name: `Save on top of revision ${theirs}` }).click();
+	await expect(page.getByTestId('revision-number')).toHaveText(String(theirs + 1));
+
+	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	expect(saved.document.scene.camera.iso).toBe(200);
+	const revisions = (await (await page.request.get(`/api/v1/setups/${id}/revisions`)).json()) as { number: number; message: string }[];
+	expect(revisions.slice(0, 2).map((r) => [r.number, r.message])).toEqual([
+		[theirs + 1, 'ISO 200'],
+		[theirs, 'Saved from another window']
+	]);
+	// Saved: the draft is gone, so a reload shows the saved plan without a restore notice.
+	await page.reload();
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+	await expect(page.getByText(/were restored/)).toHaveCount(0);
+});
+
+test('the editor at phone width in dark mode: the panels fold under the plan and nothing runs off the side', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+	await page.setViewportSize({ width: 390, height: 844 });
+	await page.emulateMedia({ colorScheme: 'dark' });
+	await page.addInitScript(() => document.documentElement.classList.add('dark'));
+	await openPlan(page, seeded);
+	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
+	const panelBox = (await page.getByTestId('exposure-panel').boundingBox())!;
+	expect(canvasBox.width).toBeLessThanOrEqual(390);
+	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height - 1);
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	// A panel folds away with its summary.
+	const exposure = page.locator('details', { has: page.getByTestId('exposure-panel') });
+	await exposure.locator('summary').click();
+	await expect(page.getByTestId('exposure-panel')).toBeHidden();
+	await expect(page.locator('html')).toHaveClass(/dark/);
+});
