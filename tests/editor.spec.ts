@@ -9,6 +9,7 @@ import type { Browser, BrowserContext, Cookie, Page } from '@playwright/test';
 import { expect, signIn, test } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
+const VIEWER = 'ines.marlow@fernhill.example';
 const AMMONITE = 'Ammonite section, raking light from the left';
 
 // Sign-in links are rate-limited per address: sign in once for the run and reuse the session cookie
@@ -240,4 +241,16 @@ test('the editor at phone width in dark mode: the panels fold under the plan and
 	await exposure.locator('summary').click();
 	await expect(page.getByTestId('exposure-panel')).toBeHidden();
 	await expect(page.locator('html')).toHaveClass(/dark/);
+});
+
+test('a viewer gets the plan read-only, with the exposure but no editing panels', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, VIEWER);
+	const seeded = await seededId(page, AMMONITE);
+	await openPlan(page, seeded);
+	await expect(page.getByText("You can view this plan; only the studio's editors can change it.")).toBeVisible();
+	await expect(page.getByTestId('plan-canvas')).toHaveAttribute('inert', '');
+	await expect(page.getByTestId('exposure-panel').getByTestId('aperture-table')).toBeVisible();
+	await expect(page.getByRole('button', { name: 'Save revision' })).toHaveCount(0);
+	await expect(page.getByRole('button', { name: 'Add element' })).toHaveCount(0);
+	await expect(page.getByRole('button', { name: 'Undo' })).toHaveCount(0);
 });
