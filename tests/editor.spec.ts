@@ -41,6 +41,24 @@ async function seededId(page: Page, title: string): Promise<string> {
 	return hit!.id;
 }
 
+/**
+ * A new setup with the seeded one's scene (the editor lays the plan out), its own title and no notes or
+ * tags: edits and saves go there, and the notebook's searches for the seeded setups still find one each.
+ */
+async function freshCopy(page: Page, seededIdValue: string, what: string): Promise<string> {
+	const source = await (await page.request.get(`/api/v1/setups/${seededIdValue}`)).json();
+	const res = await page.request.post('/api/v1/setups', {
+		data: {
+			studioId: source.studioId,
+			title: `Editor ${what} ${randomUUID().slice(0, 8)}`,
+			subject: 'Polished fossil (editor test)',
+			document: { schemaVersion: source.document.schemaVersion, scene: source.document.scene, plan: {}, notes: '' }
+		}
+	});
+	expect(res.status()).toBe(201);
+	return ((await res.json()) as { id: string }).id;
+}
+
 async function openPlan(page: Page, id: string) {
 	await page.goto(`/setups/${id}/plan`);
 	await page.waitForLoadState('networkidle');
@@ -68,12 +86,8 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	// The seeded camera is at f/11: that row is marked as set.
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/11\s*set$/);
 
-	// Edits and saves go to a copy, so the seeded setup stays as other tests expect it.
-	const dup = await page.request.post(`/api/v1/setups/${seeded}/duplicate`, {
-		data: { title: `Ammonite plan test ${randomUUID().slice(0, 8)}`, subject: 'Ammonite section (editor test)' }
-	});
-	expect(dup.status()).toBe(201);
-	const { id } = (await dup.json()) as { id: string };
+	// Edits and saves go to a new setup with the same scene, so the seeded one stays as other tests expect it.
+	const id = await freshCopy(page, seeded, 'plan test');
 	await openPlan(page, id);
 
 	// Add, move by typed coordinates and delete with the keyboard alone (focus moves by key presses).
@@ -168,11 +182,7 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
 	const seeded = await seededId(page, AMMONITE);
-	const dup = await page.request.post(`/api/v1/setups/${seeded}/duplicate`, {
-		data: { title: `Ammonite draft test ${randomUUID().slice(0, 8)}`, subject: 'Ammonite section (draft test)' }
-	});
-	expect(dup.status()).toBe(201);
-	const { id } = (await dup.json()) as { id: string };
+	const id = await freshCopy(page, seeded, 'draft test');
 	await openPlan(page, id);
 
 	const iso = page.getByLabel('ISO');
