@@ -1,0 +1,266 @@
+// The plan editor in a real browser against the real API and database: a seeded setup's plan with the
+// live exposure panel and its aperture table; the element list used by keyboard alone (add, move by
+// typed coordinates, delete); the aperture set to f/16 and the flash power the panel gives, checked
+// against the flash calculation route; and a save with a message that makes a new revision.
+import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
+import path from 'node:path';
+import type { Browser, BrowserContext, Cookie, Page } from '@playwright/test';
+import { expect, signIn, test } from './fixtures';
+
+const OWNER = 'mara.quill@fernhill.example';
+const VIEWER = 'ines.marlow@fernhill.example';
+const AMMONITE = 'Ammonite section, raking light from the left';
+
+// Sign-in links are rate-limited per address: sign in once for the run and reuse the session cookie
+// (the same file the notebook tests keep, so the two specs share one sign-in).
+async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
+	const file = path.join(test.info().project.outputDir, '.sessions', `${email}.json`);
+	if (fs.existsSync(file)) {
+		await context.addCookies(JSON.parse(fs.readFileSync(file, 'utf8')) as Cookie[]);
+		const probe = await context.request.get('/api/v1/setups?pageSize=1');
+		if (probe.status() === 200) return;
+		await context.clearCookies();
+	}
+	const ctx = await browser.newContext({ baseURL });
+	const page = await ctx.newPage();
+	await signIn(page, email, '/setups');
+	await expect(page.getByRole('heading', { level: 1, name: 'Notebook' })).toBeVisible();
+	const cookies = await ctx.cookies();
+	await ctx.close();
+	fs.mkdirSync(path.dirname(file), { recursive: true });
+	fs.writeFileSync(file, JSON.stringify(cookies));
+	await context.addCookies(cookies);
+}
+
+async function seededId(page: Page, title: string): Promise<string> {
+	const res = await page.request.get(`/api/v1/setups?q=${encodeURIComponent(title)}&pageSize=50`);
+	expect(res.status()).toBe(200);
+	const hit = ((await res.json()).items as { id: string; title: string }[]).find((s) => s.title === title);
+	expect(hit, `seeded setup "${title}"`).toBeTruthy();
+	return hit!.id;
+}
+
+/**
+ * A new setup with the seeded one's scene (the editor lays the plan out), its own title and no notes or
+ * tags: edits and saves go there, and the notebook's searches for the seeded setups still find one each.
+ */
+async function freshCopy(page: Page, seededIdValue: string, what: string): Promise<string> {
+	const source = await (await page.request.get(`/api/v1/setups/${seededIdValue}`)).json();
+	const res = await page.request.post('/api/v1/setups', {
+		data: {
+			studioId: source.studioId,
+			title: `Editor ${what} ${randomUUID().slice(0, 8)}`,
+			subject: 'Polished fossil (editor test)',
+			document: { schemaVersion: source.document.schemaVersion, scene: source.document.scene, plan: {}, notes: '' }
+		}
+	});
+	expect(res.status()).toBe(201);
+	return ((await res.json()) as { id: string }).id;
+}
+
+async function openPlan(page: Page, id: string) {
+	await page.goto(`/setups/${id}/plan`);
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
+	await expect(page.getByTestId('exposure-status')).toHaveText('up to date');
+}
+
+test('the plan editor: canvas, live exposure, the element list by keyboard, f/16 and the flash power, save as a revision', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+
+	// The seeded setup's plan opens from the setup page, with the canvas and the exposure panel.
+	await page.goto(`/setups/${seeded}`);
+	await page.getByRole('link', { name: 'Edit the plan' }).click();
+	await expect(page).toHaveURL(new RegExp(`/setups/${seeded}/plan$`));
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
+	const panel = page.getByTestId('exposure-panel');
+	await expect(panel.getByTestId('aperture-table')).toBeVisible();
+	// The seeded camera is at f/11: that row is marked as set.
+	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/11\s*set$/);
+
+	// Edits and saves go to a new setup with the same scene, so the seeded one stays as other tests expect it.
+	const id = await freshCopy(page, seeded, 'plan test');
+	await openPlan(page, id);
+
+	// Add, move by typed coordinates and delete with the keyboard alone (focus moves by key presses).
+	const list = page.getByTestId('element-list');
+	const before = await list.getByRole('listitem').count();
+	await page.getByLabel('New element').focus();
+	await page.keyboard.type('Diffuser');
+	await expect(page.getByLabel('New element')).toHaveValue('diffuser');
+	await page.keyboard.press('Tab');
+	await expect(page.getByRole('button', { name: 'Add element' })).toBeFocused();
+	await page.keyboard.press('Enter');
+	await expect(list.getByRole('listitem')).toHaveCount(before + 1);
+	const diffuser = list.getByRole('button', { name: /^Diffuser, Diffuser, at / });
+	await expect(diffuser).toHaveAttribute('aria-pressed', 'true');
+
+	await page.getByLabel('x (across)').focus();
+	await page.keyboard.press('Control+A');
+	await page.keyboard.type('12 cm');
+	await page.keyboard.press('Tab');
+	await page.keyboard.press('Control+A');
+	await page.keyboard.type('-0.5 ft');
+	await page.keyboard.press('Enter');
+	// −0.5 ft = −15.24 cm (1 ft = 0.3048 m exactly, by the international yard and pound agreement of 1959).
+	await expect(diffuser).toHaveAccessibleName('Diffuser, Diffuser, at 12 cm, -15.2 cm');
+
+	// A length that does not parse is refused beside its field, and the element stays put.
+	await page.getByLabel('x (across)').focus();
+	await page.keyboard.press('Control+A');
+	await page.keyboard.type('twelve');
+	await page.keyboard.press('Enter');
+	await expect(page.locator('#move-error')).toContainText('x:');
+	await expect(diffuser).toHaveAccessibleName('Diffuser, Diffuser, at 12 cm, -15.2 cm');
+
+	await diffuser.focus();
+	await page.keyboard.press('Delete');
+	await expect(list.getByRole('listitem')).toHaveCount(before);
+	await expect(list.getByRole('button', { name: /^Diffuser,/ })).toHaveCount(0);
+
+	// f/16: the panel marks it in the aperture table and says what power the raking flash needs.
+	const aperture = page.getByLabel('Aperture (f-number, marked)');
+	await aperture.fill('16');
+	await aperture.press('Enter');
+	await aperture.blur();
+	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/16\s*set$/);
+	await expect(page.getByTestId('exposure-status')).toHaveText('up to date');
+	const rakeLine = panel.getByTestId('flash-power').locator('li[data-flash="rake"]');
+	const shownStep = (await rakeLine.getByTestId('flash-power-step').textContent())!.trim();
+
+	// The same flash through the flash calculation route: GN / (d · N_w) is the guide-number relation
+	// (any flash manual; API.md, calc/flash), with the working aperture N × (1 + m/P).
+	const setup = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	const scene = setup.document.scene;
+	const rake = scene.lights.find((l: { id: string }) => l.id === 'rake');
+	const d = Math.hypot(...(rake.position as number[]).map((v: number, i: number) => v - scene.subject.position[i]));
+	const calc = await page.request.post('/api/v1/calc/flash', {
+		data: {
+			guideNumber: rake.guideNumber,
+			distance: d,
+			iso: scene.camera.iso,
+			power: rake.power,
+			lossStops: rake.lossStops ?? 0,
+			magnification: scene.camera.magnification,
+			pupilMagnification: scene.camera.pupilMagnification ?? 1,
+			aperture: 16
+		}
+	});
+	expect(calc.status()).toBe(200);
+	const flash = await calc.json();
+	expect(shownStep).toBe(flash.nearestPowerStep.label);
+	const exactShown = Number((await rakeLine.textContent())!.match(/exactly ([\d.e+-]+) of full/)![1]);
+	expect(Math.abs(exactShown - flash.requiredPower) / flash.requiredPower).toBeLessThan(0.01);
+
+	// Save with a message: the revision number goes up and the history holds the message.
+	const revisionShown = page.getByTestId('revision-number');
+	const startRevision = Number(await revisionShown.textContent());
+	await page.getByLabel('What changed (optional)').fill('Stopped down to f/16 for depth');
+	await page.getByRole('button', { name: 'Save revision' }).click();
+	await expect(revisionShown).toHaveText(String(startRevision + 1));
+	await expect(page.getByText(`Saved as revision ${startRevision + 1}.`)).toBeVisible();
+	const revisions = await (await page.request.get(`/api/v1/setups/${id}/revisions`)).json();
+	expect(revisions[0]).toMatchObject({ number: startRevision + 1, message: 'Stopped down to f/16 for depth' });
+	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	expect(saved.document.scene.camera.aperture).toBe(16);
+	expect(saved.revisionNumber).toBe(startRevision + 1);
+});
+
+test('unsaved work survives a reload, and a stale save says someone saved since and saves on top, losing nothing', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+	const id = await freshCopy(page, seeded, 'draft test');
+	await openPlan(page, id);
+
+	const iso = page.getByLabel('ISO');
+	await iso.fill('200');
+	await iso.press('Tab');
+	await expect(page.getByTestId('revision-status')).toContainText('unsaved changes');
+	// The draft is written a moment after the last change.
+	await expect
+		.poll(async () => page.evaluate((key) => localStorage.getItem(key), `squarelaw:plan-draft:${id}`))
+		.toContain('"iso":200');
+
+	await page.reload();
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByText(/were restored from this browser/)).toBeVisible();
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+
+	// Meanwhile someone else saves a revision on the same base.
+	const current = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	const other = await page.request.put(`/api/v1/setups/${id}`, {
+		data: { baseRevision: current.revisionNumber, document: current.document, message: 'Saved from another window' }
+	});
+	expect(other.status()).toBe(200);
+	const theirs = (await other.json()).revisionNumber as number;
+
+	await page.getByLabel('What changed (optional)').fill('ISO 200');
+	await page.getByRole('button', { name: 'Save revision' }).click();
+	const alert = page.getByRole('alert').filter({ hasText: 'Someone saved this setup since' });
+	await expect(alert).toContainText(`revision ${theirs}`);
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+	await alert.getByRole('button', { name: `Save on top of revision ${theirs}` }).click();
+	await expect(page.getByTestId('revision-number')).toHaveText(String(theirs + 1));
+
+	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	expect(saved.document.scene.camera.iso).toBe(200);
+	const revisions = (await (await page.request.get(`/api/v1/setups/${id}/revisions`)).json()) as { number: number; message: string }[];
+	expect(revisions.slice(0, 2).map((r) => [r.number, r.message])).toEqual([
+		[theirs + 1, 'ISO 200'],
+		[theirs, 'Saved from another window']
+	]);
+	// Saved: the draft is gone, so a reload shows the saved plan without a restore notice.
+	await page.reload();
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByLabel('ISO')).toHaveValue('200');
+	await expect(page.getByText(/were restored/)).toHaveCount(0);
+});
+
+test('the editor at phone width in dark mode: the panels fold under the plan and nothing runs off the side', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+	await page.setViewportSize({ width: 390, height: 844 });
+	await page.emulateMedia({ colorScheme: 'dark' });
+	await page.addInitScript(() => document.documentElement.classList.add('dark'));
+	await openPlan(page, seeded);
+	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
+	const panelBox = (await page.getByTestId('exposure-panel').boundingBox())!;
+	expect(canvasBox.width).toBeLessThanOrEqual(390);
+	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height - 1);
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	// A panel folds away with its summary.
+	const exposure = page.locator('details', { has: page.getByTestId('exposure-panel') });
+	await exposure.locator('summary').click();
+	await expect(page.getByTestId('exposure-panel')).toBeHidden();
+	await expect(page.locator('html')).toHaveClass(/dark/);
+});
+
+test('a viewer gets the plan read-only, with the exposure but no editing panels', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, VIEWER);
+	const seeded = await seededId(page, AMMONITE);
+	await openPlan(page, seeded);
+	await expect(page.getByText("You can view this plan; only the studio's editors can change it.")).toBeVisible();
+	await expect(page.getByTestId('plan-canvas')).toHaveAttribute('inert', '');
+	await expect(page.getByTestId('exposure-panel').getByTestId('aperture-table')).toBeVisible();
+	await expect(page.getByRole('button', { name: 'Save revision' })).toHaveCount(0);
+	await expect(page.getByRole('button', { name: 'Add element' })).toHaveCount(0);
+	await expect(page.getByRole('button', { name: 'Undo' })).toHaveCount(0);
+});
