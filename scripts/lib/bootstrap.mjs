@@ -119,10 +119,10 @@ function postgresCanUse(dir) {
 /**
  * Where the cluster's files live. Normally `.data/postgres`. PostgreSQL refuses to run as root, so as
  * root it runs as the `postgres` user; when that user cannot enter the checkout (a clone under a
- * mode-700 home folder) the cluster goes to /var/lib/squarelaw/<hash of the checkout path> and
+ * mode-700 home folder) the cluster goes to /var/lib/squarelaw/<hash of the checkout path and its secret> and
  * `.data/postgres` becomes a symbolic link to it.
  */
-function clusterDir() {
+function clusterDir(password) {
 	const local = path.join(dataDir, 'postgres');
 	if (!isRoot) return local;
 	let stat = null;
@@ -139,7 +139,9 @@ function clusterDir() {
 	if (postgresCanUse(local)) return local;
 	if (stat) fail(`${local} exists but the postgres user cannot use it; remove it and start again.`);
 	fs.rmdirSync(local);
-	const hash = createHash('sha256').update(root).digest('hex').slice(0, 12);
+	// Keyed by the checkout and its own secrets: a new clone in the same folder (a CI retry) gets a new
+	// cluster instead of one whose password it does not know.
+	const hash = createHash('sha256').update(`${root}\0${password}`).digest('hex').slice(0, 12);
 	const outside = path.join('/var/lib/squarelaw', hash, 'postgres');
 	fs.mkdirSync(outside, { recursive: true, mode: 0o700 });
 	fs.chmodSync(path.dirname(outside), 0o755);
@@ -169,7 +171,7 @@ function pgIsRunning(bin, dir) {
  */
 export async function ensureCluster({ port, password }) {
 	const bin = ensurePostgresBinaries();
-	const dir = clusterDir();
+	const dir = clusterDir(password);
 	if (!fs.existsSync(path.join(dir, 'PG_VERSION'))) {
 		log(`creating a PostgreSQL cluster in ${dir}…`);
 		const pwfile = path.join(isRoot ? '/tmp' : dataDir, `squarelaw-pw-${process.pid}`);
