@@ -3,35 +3,13 @@
 // typed coordinates, delete); the aperture set to f/16 and the flash power the panel gives, checked
 // against the flash calculation route; and a save with a message that makes a new revision.
 import { randomUUID } from 'node:crypto';
-import fs from 'node:fs';
-import path from 'node:path';
-import type { Browser, BrowserContext, Cookie, Page } from '@playwright/test';
-import { expect, signIn, test } from './fixtures';
+import type { Page } from '@playwright/test';
+import { expect, signedInAs, test } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
 const AMMONITE = 'Ammonite section, raking light from the left';
 
-// Sign-in links are rate-limited per address: sign in once for the run and reuse the session cookie
-// (the same file the notebook tests keep, so the two specs share one sign-in).
-async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
-	const file = path.join(test.info().project.outputDir, '.sessions', `${email}.json`);
-	if (fs.existsSync(file)) {
-		await context.addCookies(JSON.parse(fs.readFileSync(file, 'utf8')) as Cookie[]);
-		const probe = await context.request.get('/api/v1/setups?pageSize=1');
-		if (probe.status() === 200) return;
-		await context.clearCookies();
-	}
-	const ctx = await browser.newContext({ baseURL });
-	const page = await ctx.newPage();
-	await signIn(page, email, '/setups');
-	await expect(page.getByRole('heading', { level: 1, name: 'Notebook' })).toBeVisible();
-	const cookies = await ctx.cookies();
-	await ctx.close();
-	fs.mkdirSync(path.dirname(file), { recursive: true });
-	fs.writeFileSync(file, JSON.stringify(cookies));
-	await context.addCookies(cookies);
-}
 
 async function seededId(page: Page, title: string): Promise<string> {
 	const res = await page.request.get(`/api/v1/setups?q=${encodeURIComponent(title)}&pageSize=50`);

@@ -1,6 +1,8 @@
 // Shared Playwright fixtures. Every test gets a page whose requests are watched: any request to a host
 // other than this machine fails the test, so fonts, styles and scripts must all be served by the app.
-import { test as base, expect, type BrowserContext, type Page } from '@playwright/test';
+import fs from 'node:fs';
+import path from 'node:path';
+import { test as base, expect, type Browser, type BrowserContext, type Cookie, type Page } from '@playwright/test';
 
 const LOCAL_HOSTS = new Set(['127.0.0.1', 'localhost', '[::1]']);
 
@@ -82,4 +84,28 @@ export async function signIn(page: Page, email: string, returnTo = '/studios'): 
 	const link = await requestSignInLink(page, email, returnTo);
 	await page.goto(link);
 	return link;
+}
+
+/**
+ * Sign-in links are rate-limited per address, so each demo user signs in once for the run and tests
+ * reuse the session cookie (kept in the test output folder, so a new worker after a failure reuses it
+ * too; a cookie the server no longer knows is replaced by a fresh sign-in).
+ */
+export async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
+	const file = path.join(test.info().project.outputDir, '.sessions', `${email}.json`);
+	if (fs.existsSync(file)) {
+		await context.addCookies(JSON.parse(fs.readFileSync(file, 'utf8')) as Cookie[]);
+		const probe = await context.request.get('/api/v1/setups?pageSize=1');
+		if (probe.status() === 200) return;
+		await context.clearCookies();
+	}
+	const ctx = await browser.newContext({ baseURL });
+	const page = await ctx.newPage();
+	await signIn(page, email, '/setups');
+	await expect(page.getByRole('heading', { level: 1, name: 'Notebook' })).toBeVisible();
+	const cookies = await ctx.cookies();
+	await ctx.close();
+	fs.mkdirSync(path.dirname(file), { recursive: true });
+	fs.writeFileSync(file, JSON.stringify(cookies));
+	await context.addCookies(cookies);
 }

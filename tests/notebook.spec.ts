@@ -3,37 +3,13 @@
 // nothing), history and the comparison in words, import and export, the trash, the gear shelf, a
 // viewer without edit controls, and the notebook at phone width in dark mode.
 import { randomUUID } from 'node:crypto';
-import { expect, signIn, test } from './fixtures';
-import type { Browser, BrowserContext, Cookie, Page } from '@playwright/test';
-import fs from 'node:fs';
-import path from 'node:path';
+import { expect, signedInAs, test } from './fixtures';
+import type { Page } from '@playwright/test';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
 const QUARTZ = 'Quartz cluster on black velvet';
 const tag = () => randomUUID().slice(0, 8);
-
-// Sign-in links are rate-limited per address, so each demo user signs in once for the run and the
-// tests reuse the session cookie (kept in the test output folder, so a new worker after a failure
-// reuses it too; a cookie the server no longer knows is replaced by a fresh sign-in).
-async function signedInAs(context: BrowserContext, browser: Browser, baseURL: string | undefined, email: string) {
-	const file = path.join(test.info().project.outputDir, '.sessions', `${email}.json`);
-	if (fs.existsSync(file)) {
-		await context.addCookies(JSON.parse(fs.readFileSync(file, 'utf8')) as Cookie[]);
-		const probe = await context.request.get('/api/v1/setups?pageSize=1');
-		if (probe.status() === 200) return;
-		await context.clearCookies();
-	}
-	const ctx = await browser.newContext({ baseURL });
-	const page = await ctx.newPage();
-	await signIn(page, email, '/setups');
-	await expect(page.getByRole('heading', { level: 1, name: 'Notebook' })).toBeVisible();
-	const cookies = await ctx.cookies();
-	await ctx.close();
-	fs.mkdirSync(path.dirname(file), { recursive: true });
-	fs.writeFileSync(file, JSON.stringify(cookies));
-	await context.addCookies(cookies);
-}
 
 /** Opens a page and waits until its scripts have loaded, so a click is never undone by hydration. */
 async function visit(page: Page, url: string) {
