@@ -19,14 +19,12 @@ export function calculationRoute(path: CalculationPath): RequestHandler {
 	};
 }
 
-const encoder = new TextEncoder();
-
 /**
  * Like kit's `json()`, but the text is encoded once: `json()` encodes it to count the bytes and the
  * response encodes it again when it is sent. The exposure answer is several kilobytes, so this shows.
  */
 function jsonResponse(result: unknown): Response {
-	const bytes = encoder.encode(JSON.stringify(result));
+	const bytes = Buffer.from(JSON.stringify(result), 'utf8');
 	return new Response(bytes, {
 		headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength), 'cache-control': 'no-store' }
 	});
