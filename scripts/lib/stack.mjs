@@ -22,8 +22,8 @@ export const profiles = {
 		database: 'squarelaw_bench',
 		host: '127.0.0.1',
 		port: Number(process.env.SQUARELAW_BENCH_PORT ?? 3200),
-		smtpPort: 2545,
-		mailHttpPort: 2595
+		smtpPort: Number(process.env.SQUARELAW_BENCH_SMTP_PORT ?? 2545),
+		mailHttpPort: Number(process.env.SQUARELAW_BENCH_MAIL_HTTP_PORT ?? 2595)
 	}
 };
 
