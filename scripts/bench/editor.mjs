@@ -162,6 +162,31 @@ async function dragFrames(page, plan, ms) {
 	return { frames, moves, longTasks };
 }
 
+/** Records a CPU profile over one drag; writes it to .data/reports and logs the top functions by self time. */
+async function profileDrag(page, plan, log) {
+	const cdp = await page.context().newCDPSession(page);
+	await cdp.send('Profiler.enable');
+	await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+	await cdp.send('Profiler.start');
+	await dragFrames(page, plan, DRAG_MS);
+	const { profile } = await cdp.send('Profiler.stop');
+	const file = path.join(process.cwd(), '.data', 'reports', 'editor-drag.cpuprofile');
+	fs.mkdirSync(path.dirname(file), { recursive: true });
+	fs.writeFileSync(file, JSON.stringify(profile));
+	const dt = new Map();
+	profile.samples.forEach((id, i) => dt.set(id, (dt.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0)));
+	const self = new Map();
+	for (const node of profile.nodes) {
+		const f = node.callFrame;
+		const key = `${f.functionName || '(anonymous)'} ${f.url.split('/').pop()}:${f.lineNumber}`;
+		self.set(key, (self.get(key) ?? 0) + (dt.get(node.id) ?? 0) / 1000);
+	}
+	const top = [...self.entries()].sort((a, b) => b[1] - a[1]).slice(0, 20).map(([k, ms]) => ({ fn: k, selfMs: round(ms) }));
+	for (const t of top) log(`  profile: ${String(t.selfMs).padStart(8)} ms  ${t.fn}`);
+	await cdp.detach();
+	return top;
+}
+
 export async function run({ baseUrl, databaseUrl, log }) {
 	const sql = postgres(databaseUrl, { max: 2, onnotice: () => {} });
 	let browser;
@@ -207,10 +232,13 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		await page.close();
 
 		// Rounds alternate between the plans, so load from elsewhere on the machine falls on both alike.
+		let hotspots;
 		for (let round_ = 0; round_ < ROUNDS; round_++) {
 			for (const name of round_ % 2 === 0 ? ['large', 'small'] : ['small', 'large']) {
 				const { page: p, plan } = opened[name];
 				await p.bringToFront();
+				// SQUARELAW_BENCH_PROFILE=1: a CPU profile of the first large drag (not counted in the figures).
+				if (process.env.SQUARELAW_BENCH_PROFILE && name === 'large' && !hotspots) hotspots = await profileDrag(p, plan, log);
 				const { frames, moves, longTasks } = await dragFrames(p, plan, DRAG_MS);
 				plans[name].frames.push(...frames);
 				plans[name].moves += moves;
