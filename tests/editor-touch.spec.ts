@@ -121,4 +121,14 @@ test('at phone width, one finger drags a light and two fingers pinch-zoom the pl
 	expect(Math.abs(back.y - mid.y)).toBeLessThan(2);
 	// A pinch changes the view only: nothing moved, nothing to undo beyond the drag already undone.
 	expect(await lightAt(page)).toEqual([-30, 0]);
+
+	// The selected light's what-if control fits the phone's width too.
+	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).tap();
+	const whatIf = page.getByTestId('what-if');
+	await whatIf.scrollIntoViewIfNeeded();
+	await expect(whatIf).toBeVisible();
+	const box = (await whatIf.boundingBox())!;
+	expect(box.x).toBeGreaterThanOrEqual(0);
+	expect(box.x + box.width).toBeLessThanOrEqual(390);
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 });

@@ -107,6 +107,19 @@ describe('previewWhatIf', () => {
 		expect(p.contributionStops.after! - p.contributionStops.before!).toBeCloseTo(-1, 9);
 	});
 
+	it('warns before it is kept when the trial brings a flash within half a metre of a living subject', () => {
+		const scene = quartzScene();
+		scene.subject = { ...scene.subject, living: true };
+		scene.lights = [{ id: 'key', kind: 'flash', position: [-0.6, 0, 0.03], guideNumber: 40, power: 1 / 8 }];
+		const model = modelFromScene(scene).model;
+		// 60 cm: no caution (our threshold is 0.5 m, LIVING_SUBJECT_FLASH_DISTANCE_M). Half as far, 30 cm: one.
+		expect(previewWhatIf(model, 'key', { powerThirds: 0, distanceSixths: 0 })!.newCautions).toEqual([]);
+		const near = previewWhatIf(model, 'key', { powerThirds: 0, distanceSixths: -6 })!;
+		expect(near.newCautions).toHaveLength(1);
+		expect(near.newCautions[0]).toMatch(/from a living subject/);
+		expect(previewWhatIf(model, 'key', { powerThirds: 0, distanceSixths: 6 })!.newCautions).toEqual([]);
+	});
+
 	it('changes nothing in the model, and answers null for an element that is not a light', () => {
 		const model = quartzModel();
 		const copy = structuredClone(model);

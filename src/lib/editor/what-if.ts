@@ -126,7 +126,12 @@ export interface WhatIfPreview extends WhatIfPatch {
 	powerWords: string;
 	/** A sentence for the change in total exposure. */
 	summary: string;
+	/** Safety cautions the trial would raise that the plan does not raise now (a flash nearer a living
+	 * subject, a hot lamp nearer a card): shown before the user keeps it. */
+	newCautions: string[];
 }
+
+const cautionKey = (c: { code: string; elementIds: readonly string[] }) => `${c.code}:${[...c.elementIds].sort().join(',')}`;
 
 function contribution(result: ExposureResult, id: string): number | null {
 	return result.lights.find((l) => l.id === id)?.stops ?? null;
@@ -154,6 +159,7 @@ export function previewWhatIf(model: EditorModel, lightId: string, change: WhatI
 		totalStops: { before: totalBefore, after: totalAfter },
 		expectedChangeStops,
 		distanceWords: `${describeDistanceFactor(p.distanceFactor)}: ${formatStopChange(distanceStops)}`,
+		newCautions: now.cautionDetails.filter((c) => !was.cautionDetails.some((b) => cautionKey(b) === cautionKey(c))).map((c) => c.message),
 		powerWords: p.powerStops === 0 && !p.powerLimit ? 'same power: 0.0 stops' : `power ${formatStopChange(p.powerStops)}${p.powerLimit ? ` (${p.powerLimit})` : ''}`,
 		summary:
 			totalChange === null
