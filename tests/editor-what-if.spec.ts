@@ -91,6 +91,7 @@ test('the shortcut sheet opens with ? and from the toolbar, closes with Escape a
 	await expect(sheet).toBeVisible();
 	await expect(sheet.getByRole('row', { name: /Undo the last change/ })).toContainText('Ctrl');
 	await expect(sheet.getByRole('row', { name: /Show this list of shortcuts/ })).toBeVisible();
+	await expect(sheet.getByRole('row', { name: /Zoom in/ }).locator('kbd')).toHaveText(['+']);
 	// Modal: the focus is inside the sheet.
 	await expect(sheet.getByRole('button', { name: 'Close' })).toBeFocused();
 	await page.keyboard.press('Escape');

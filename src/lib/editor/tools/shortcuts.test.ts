@@ -15,6 +15,7 @@ describe('the shortcut help sheet', () => {
 		expect(keyParts('mod+Shift+Z', false)).toEqual(['Ctrl', 'Shift', 'Z']);
 		expect(keyParts('mod+Z', true)).toEqual(['⌘', 'Z']);
 		expect(keyParts('Delete', true)).toEqual(['Delete']);
+		expect(keyParts('+', false)).toEqual(['+']);
 	});
 
 	it('"?" is the help sheet’s key and no other shortcut’s; the editor claims it without changing the plan', () => {

@@ -89,5 +89,6 @@ export function shortcutSheet(table: readonly Shortcut[] = SHORTCUTS): { group: 
 
 /** A key as a person reads it: `mod` becomes Ctrl, or ⌘ on a Mac; the parts of a chord are split. */
 export function keyParts(keys: string, mac: boolean): string[] {
-	return keys.split('+').map((part) => (part === 'mod' ? (mac ? '⌘' : 'Ctrl') : part));
+	// A "+" between two parts joins them; a "+" on its own (the zoom-in key) is the key itself.
+	return keys.split(/(?<=.)\+(?=.)/).map((part) => (part === 'mod' ? (mac ? '⌘' : 'Ctrl') : part));
 }
