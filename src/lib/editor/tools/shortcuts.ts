@@ -28,14 +28,18 @@ export type ShortcutAction =
 	| 'select-tool'
 	| 'hand-tool'
 	| 'toggle-falloff'
-	| 'toggle-grid-snap';
+	| 'toggle-grid-snap'
+	| 'show-shortcuts';
+
+export const SHORTCUT_GROUPS = ['Edit', 'Select', 'Move', 'View', 'Tools', 'Help'] as const;
+export type ShortcutGroup = (typeof SHORTCUT_GROUPS)[number];
 
 export interface Shortcut {
 	action: ShortcutAction;
 	/** As shown on the help sheet. */
 	keys: string[];
 	description: string;
-	group: 'Edit' | 'Select' | 'Move' | 'View' | 'Tools';
+	group: ShortcutGroup;
 	matches(e: PlanKeyInput): boolean;
 }
 
@@ -69,9 +73,22 @@ export const SHORTCUTS: readonly Shortcut[] = [
 	{ action: 'toggle-falloff', keys: ['F'], description: 'Show or hide the falloff map', group: 'View', matches: (e) => plain(e) && key(e, 'f') },
 	{ action: 'toggle-grid-snap', keys: ['G'], description: 'Snap to the grid on or off (Alt while dragging: no snapping)', group: 'View', matches: (e) => plain(e) && key(e, 'g') },
 	{ action: 'select-tool', keys: ['V'], description: 'Select tool', group: 'Tools', matches: (e) => plain(e) && key(e, 'v') },
-	{ action: 'hand-tool', keys: ['H', 'Space (hold)'], description: 'Hand tool: drag to pan', group: 'Tools', matches: (e) => plain(e) && key(e, 'h') }
+	{ action: 'hand-tool', keys: ['H', 'Space (hold)'], description: 'Hand tool: drag to pan', group: 'Tools', matches: (e) => plain(e) && key(e, 'h') },
+	// The sheet itself opens it (ShortcutSheet.svelte listens for "?"); the editor only claims the key.
+	{ action: 'show-shortcuts', keys: ['?'], description: 'Show this list of shortcuts', group: 'Help', matches: (e) => plain(e) && e.key === '?' }
 ];
 
 export function shortcutFor(e: PlanKeyInput): Shortcut | undefined {
 	return SHORTCUTS.find((s) => s.matches(e));
+}
+
+/** The table for the help sheet: groups in a fixed order, each with its shortcuts in table order. */
+export function shortcutSheet(table: readonly Shortcut[] = SHORTCUTS): { group: ShortcutGroup; shortcuts: Shortcut[] }[] {
+	return SHORTCUT_GROUPS.map((group) => ({ group, shortcuts: table.filter((s) => s.group === group) })).filter((g) => g.shortcuts.length);
+}
+
+/** A key as a person reads it: `mod` becomes Ctrl, or ⌘ on a Mac; the parts of a chord are split. */
+export function keyParts(keys: string, mac: boolean): string[] {
+	// A "+" between two parts joins them; a "+" on its own (the zoom-in key) is the key itself.
+	return keys.split(/(?<=.)\+(?=.)/).map((part) => (part === 'mod' ? (mac ? '⌘' : 'Ctrl') : part));
 }

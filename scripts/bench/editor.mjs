@@ -1,0 +1,297 @@
+// Editor bench: does dragging a light stay smooth as the plan grows? Makes two setups through the API
+// (60 elements with the falloff map on, and 2 elements), opens each in Chromium, drags the same light
+// for three seconds with mouse moves and records the frame times (requestAnimationFrame deltas). The
+// goal: the 60-element plan's median frame time below 1.5× the 2-element plan's. Also reports the
+// JavaScript the editor route loads (gzip) beside konva's own.
+import fs from 'node:fs';
+import path from 'node:path';
+import { gzipSync } from 'node:zlib';
+import { randomBytes } from 'node:crypto';
+import postgres from 'postgres';
+import { chromium } from '@playwright/test';
+
+const DRAG_MS = 3000;
+const ROUNDS = 2;
+const MOVE_EVERY_MS = 8;
+const GOAL_RATIO = 1.5;
+const CHROMIUM_ARGS = [
+	'--headless',
+	'--no-sandbox',
+	'--disable-gpu',
+	'--disable-quic',
+	'--no-first-run',
+	'--disable-background-networking',
+	'--disable-component-update',
+	'--disable-sync'
+];
+
+const CAMERA = { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 };
+/** The light both benches drag: a flash up and to the right of the subject, clear of the others. */
+const KEY = { id: 'key', kind: 'flash', position: [0.45, 0, 0.3], guideNumber: 40, power: 0.25, aim: [0, 0, 0.03], beamAngleDeg: 70, kelvin: 5600 };
+
+/**
+ * 60 elements: the subject, 20 flashes (the key among them), 10 continuous lights, 18 cards bouncing
+ * them, 10 flags on a ring outside the lights (so every light still reaches the subject) and, in the
+ * plan, the camera.
+ */
+function largeScene() {
+	const lights = [KEY];
+	const ring = (i, n, r, z) => {
+		const a = (2 * Math.PI * i) / n;
+		return [Math.round(r * Math.cos(a) * 1000) / 1000, Math.round(r * Math.sin(a) * 1000) / 1000, z];
+	};
+	for (let i = 1; i < 20; i++) lights.push({ id: `flash-${i}`, kind: 'flash', position: ring(i, 20, 0.5 + (i % 3) * 0.1, 0.25), guideNumber: 24 + i, power: 2 ** -(i % 6), kelvin: 5500 });
+	for (let i = 0; i < 10; i++) lights.push({ id: `lamp-${i}`, kind: 'continuous', position: ring(i + 0.5, 10, 0.75, 0.4), luxAt1m: 800 + 100 * i, kelvin: 3200 + 200 * i });
+	for (let i = 0; i < 18; i++) {
+		lights.push({ id: `card-${i}`, kind: 'reflector', position: ring(i + 0.25, 18, 0.3, 0.05), areaM2: 0.04, reflectance: 0.8, surface: 'diffuse', source: i < 10 ? `lamp-${i}` : `flash-${i - 9}` });
+	}
+	const flags = [];
+	for (let i = 0; i < 10; i++) {
+		const a = ring(i, 10, 1.2, 0);
+		const b = ring(i + 0.3, 10, 1.2, 0);
+		flags.push({ id: `flag-${i}`, from: [a[0], a[1]], to: [b[0], b[1]] });
+	}
+	return { camera: CAMERA, subject: { position: [0, 0, 0.03] }, lights, flags };
+}
+
+/** What only the plan holds. A plan that names any element is not laid out afresh, so the small plan
+ * gets no camera: 2 elements, the subject and the key. */
+const KEY_PLAN = { kind: 'flash', label: 'Key flash' };
+const LARGE_PLAN = { elements: { key: KEY_PLAN, camera: { kind: 'camera', label: 'Camera', position: [0, -0.6, 0.22], rotationDeg: -90 } } };
+const SMALL_PLAN = { elements: { key: KEY_PLAN } };
+
+function smallScene() {
+	return { camera: CAMERA, subject: { position: [0, 0, 0.03] }, lights: [KEY] };
+}
+
+function median(xs) {
+	const s = [...xs].sort((a, b) => a - b);
+	return s[Math.floor(s.length / 2)];
+}
+function percentile(xs, p) {
+	const s = [...xs].sort((a, b) => a - b);
+	return s[Math.min(s.length - 1, Math.floor(s.length * p))];
+}
+const round = (x) => Math.round(x * 100) / 100;
+const kib = (bytes) => Math.round((bytes / 1024) * 10) / 10;
+
+async function createSetup(baseUrl, cookie, studioId, title, scene, plan) {
+	const res = await fetch(`${baseUrl}/api/v1/setups`, {
+		method: 'POST',
+		headers: { 'content-type': 'application/json', cookie },
+		body: JSON.stringify({ studioId, title, subject: 'Bench specimen', document: { schemaVersion: 1, scene, plan, notes: '' } })
+	});
+	const body = await res.json();
+	if (res.status !== 201) throw new Error(`creating "${title}" answered ${res.status}: ${JSON.stringify(body)}`);
+	return body.id;
+}
+
+/** Opens a setup's plan, turns the falloff map on and waits until it is drawn. */
+async function openPlan(page, baseUrl, id) {
+	await page.goto(`${baseUrl}/setups/${id}/plan`);
+	await page.waitForLoadState('networkidle');
+	const plan = page.getByRole('application', { name: /Plan of the setup/ });
+	await plan.locator('canvas').first().waitFor();
+	await page.getByLabel('Falloff map').check();
+	await page.waitForLoadState('networkidle');
+	await page.waitForTimeout(1500);
+	const elements = await page.getByTestId('element-list').getByRole('listitem').count();
+	return { plan, elements };
+}
+
+/** The key light's position on the page, from the plan's view attributes. */
+async function keyOnScreen(plan) {
+	const box = await plan.boundingBox();
+	const read = async (name) => Number(await plan.getAttribute(name));
+	const zoom = await read('data-zoom');
+	return { x: box.x + (await read('data-pan-x')) + KEY.position[0] * zoom, y: box.y + (await read('data-pan-y')) + KEY.position[1] * zoom, zoom };
+}
+
+/** Drags the key light in a circle for `ms` and returns the frame times seen meanwhile. */
+async function dragFrames(page, plan, ms) {
+	const start = await keyOnScreen(plan);
+	await page.evaluate(() => {
+		const w = /** @type {any} */ (window);
+		w.__benchFrames = [];
+		w.__benchLong = [];
+		w.__benchRun = true;
+		w.__benchObserver?.disconnect();
+		w.__benchObserver = new PerformanceObserver((list) => {
+			for (const e of list.getEntries()) w.__benchLong.push(e.duration);
+		});
+		w.__benchObserver.observe({ type: 'longtask' });
+		let last = performance.now();
+		const tick = (t) => {
+			w.__benchFrames.push(t - last);
+			last = t;
+			if (w.__benchRun) requestAnimationFrame(tick);
+		};
+		requestAnimationFrame((t) => {
+			last = t;
+			requestAnimationFrame(tick);
+		});
+	});
+	await page.mouse.move(start.x, start.y);
+	await page.mouse.down();
+	const t0 = Date.now();
+	let moves = 0;
+	while (Date.now() - t0 < ms) {
+		const a = ((Date.now() - t0) / 1000) * 2 * Math.PI;
+		// A circle of 60 px that starts at the press, so the light really travels the plan.
+		await page.mouse.move(start.x + 60 * Math.sin(a), start.y + 60 * (1 - Math.cos(a)) * 0.5);
+		moves++;
+		await new Promise((r) => setTimeout(r, MOVE_EVERY_MS));
+	}
+	await page.mouse.up();
+	const { frames, longTasks } = await page.evaluate(() => {
+		const w = /** @type {any} */ (window);
+		w.__benchRun = false;
+		w.__benchObserver.disconnect();
+		return { frames: w.__benchFrames.slice(1), longTasks: w.__benchLong };
+	});
+	// The drag must really have moved the key light (else the figures measure an idle plan).
+	const row = page.getByTestId('element-list').getByRole('button', { name: /^Key flash, Flash, at / });
+	const at = await row.getAttribute('aria-label');
+	if (!at || at.includes('at 45 cm, 0 cm')) throw new Error(`the drag did not move the key light (${at})`);
+	// Put the light back (one undo step), so every round starts from the same plan.
+	await plan.focus();
+	await page.keyboard.press('Control+Z');
+	await page.waitForTimeout(600);
+	const back = await row.getAttribute('aria-label');
+	if (!back?.includes('at 45 cm, 0 cm')) throw new Error(`undo did not put the key light back (${back})`);
+	return { frames, moves, longTasks };
+}
+
+/** Records a CPU profile over one drag; writes it to .data/reports and logs the top functions by self time. */
+async function profileDrag(page, plan, log) {
+	const cdp = await page.context().newCDPSession(page);
+	await cdp.send('Profiler.enable');
+	await cdp.send('Profiler.setSamplingInterval', { interval: 200 });
+	await cdp.send('Profiler.start');
+	await dragFrames(page, plan, DRAG_MS);
+	const { profile } = await cdp.send('Profiler.stop');
+	const file = path.join(process.cwd(), '.data', 'reports', 'editor-drag.cpuprofile');
+	fs.mkdirSync(path.dirname(file), { recursive: true });
+	fs.writeFileSync(file, JSON.stringify(profile));
+	const dt = new Map();
+	profile.samples.forEach((id, i) => dt.set(id, (dt.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0)));
+	const self = new Map();
+	for (const node of profile.nodes) {
+		const f = node.callFrame;
+		const key = `${f.functionName || '(anonymous)'} ${f.url.split('/').pop()}:${f.lineNumber}`;
+		self.set(key, (self.get(key) ?? 0) + (dt.get(node.id) ?? 0) / 1000);
+	}
+	const top = [...self.entries()].sort((a, b) => b[1] - a[1]).slice(0, 20).map(([k, ms]) => ({ fn: k, selfMs: round(ms) }));
+	for (const t of top) log(`  profile: ${String(t.selfMs).padStart(8)} ms  ${t.fn}`);
+	await cdp.detach();
+	return top;
+}
+
+export async function run({ baseUrl, databaseUrl, log }) {
+	const sql = postgres(databaseUrl, { max: 2, onnotice: () => {} });
+	let browser;
+	try {
+		const tag = randomBytes(3).toString('hex');
+		const [user] = await sql`insert into users (email, name, email_verified) values (${`bench-editor-${tag}@bench.example`}, 'Bench editor', now()) returning id`;
+		const [studio] = await sql`insert into studios (name) values (${`Bench editor ${tag}`}) returning id`;
+		await sql`insert into memberships (studio_id, user_id, role) values (${studio.id}, ${user.id}, 'owner')`;
+		const sessionToken = randomBytes(32).toString('hex');
+		await sql`insert into sessions (session_token, user_id, expires) values (${sessionToken}, ${user.id}, now() + interval '1 hour')`;
+		const cookie = `authjs.session-token=${sessionToken}`;
+		const largeId = await createSetup(baseUrl, cookie, studio.id, `Bench large plan ${tag}`, largeScene(), LARGE_PLAN);
+		const smallId = await createSetup(baseUrl, cookie, studio.id, `Bench small plan ${tag}`, smallScene(), SMALL_PLAN);
+
+		browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS });
+		const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+		await context.addCookies([{ name: 'authjs.session-token', value: sessionToken, url: baseUrl }]);
+
+		// The route's JavaScript: every script the browser fetched for the editor page (gzip each body).
+		const scripts = new Map();
+		const page = await context.newPage();
+		page.on('response', async (response) => {
+			const url = response.url();
+			if (!url.startsWith(baseUrl) || !/\.m?js(\?|$)/.test(url) || scripts.has(url)) return;
+			scripts.set(url, null);
+			try {
+				scripts.set(url, gzipSync(await response.body()).length);
+			} catch {
+				scripts.delete(url);
+			}
+		});
+
+		const plans = {};
+		const opened = {};
+		for (const [name, id] of [['large', largeId], ['small', smallId]]) {
+			const p = await context.newPage();
+			opened[name] = { page: p, ...(await openPlan(p, baseUrl, id)) };
+			// A short drag first, so both plans are warm (code compiled, falloff worker running).
+			await dragFrames(p, opened[name].plan, 500);
+			plans[name] = { frames: [], moves: 0, longTasks: [] };
+		}
+		await openPlan(page, baseUrl, largeId);
+		await page.close();
+
+		// Rounds alternate between the plans, so load from elsewhere on the machine falls on both alike.
+		let hotspots;
+		for (let round_ = 0; round_ < ROUNDS; round_++) {
+			for (const name of round_ % 2 === 0 ? ['large', 'small'] : ['small', 'large']) {
+				const { page: p, plan } = opened[name];
+				await p.bringToFront();
+				// SQUARELAW_BENCH_PROFILE=1: a CPU profile of the first large drag (not counted in the figures).
+				if (process.env.SQUARELAW_BENCH_PROFILE && name === 'large' && !hotspots) hotspots = await profileDrag(p, plan, log);
+				const { frames, moves, longTasks } = await dragFrames(p, plan, DRAG_MS);
+				plans[name].frames.push(...frames);
+				plans[name].moves += moves;
+				plans[name].longTasks.push(...longTasks);
+			}
+		}
+
+		const summary = (name) => {
+			const f = plans[name].frames;
+			const long = plans[name].longTasks;
+			return {
+				elements: opened[name].elements,
+				frames: f.length,
+				medianMs: round(median(f)),
+				p95Ms: round(percentile(f, 0.95)),
+				maxMs: round(Math.max(...f)),
+				/** Frames slower than 60 Hz by half a frame or more. */
+				slowFrames: f.filter((ms) => ms > 25).length,
+				/** Mouse moves sent and answered in the drags (each waits for the page to take it). */
+				pointerMoves: plans[name].moves,
+				longTasks: long.length,
+				longTaskMs: round(long.reduce((a, b) => a + b, 0))
+			};
+		};
+		const large = summary('large');
+		const small = summary('small');
+		const ratio = round(large.medianMs / small.medianMs);
+		const p95Ratio = round(large.p95Ms / small.p95Ms);
+		const goalMet = ratio < GOAL_RATIO;
+		for (const s of [large, small]) {
+			log(`drag, ${s.elements} elements + falloff map: median ${s.medianMs} ms, p95 ${s.p95Ms} ms, max ${s.maxMs} ms (${s.frames} frames, ${s.slowFrames} over 25 ms, ${s.pointerMoves} moves, ${s.longTasks} long tasks = ${s.longTaskMs} ms)`);
+		}
+		log(`ratio (median) ${ratio}, p95 ratio ${p95Ratio} (goal < ${GOAL_RATIO}): ${goalMet ? 'met' : 'NOT met'}`);
+
+		const routeGzip = [...scripts.values()].filter((n) => typeof n === 'number').reduce((a, b) => a + b, 0);
+		const konvaFile = path.join(process.cwd(), 'node_modules', 'konva', 'konva.min.js');
+		const konvaGzip = gzipSync(fs.readFileSync(konvaFile)).length;
+		log(`editor route JavaScript: ${kib(routeGzip)} KiB gzip in ${scripts.size} files; konva alone (konva.min.js): ${kib(konvaGzip)} KiB gzip`);
+
+		for (const { page: p } of Object.values(opened)) await p.close();
+		return {
+			dragMs: DRAG_MS,
+			rounds: ROUNDS,
+			large,
+			small,
+			ratio,
+			p95Ratio,
+			goalRatio: GOAL_RATIO,
+			goalMet,
+			javascript: { routeGzipKiB: kib(routeGzip), files: scripts.size, konvaGzipKiB: kib(konvaGzip), konvaShare: round(konvaGzip / routeGzip) }
+		};
+	} finally {
+		await browser?.close();
+		await sql.end({ timeout: 5 });
+	}
+}

@@ -1,0 +1,115 @@
+// The plan editor's what-if control and its shortcut sheet, in a real browser against the real app: a
+// trial distance shows the change in stops at once and moves nothing until kept; Keep is one undo step,
+// Drop forgets; "?" and the toolbar button open the shortcut sheet, Escape closes it and focus returns.
+import { randomUUID } from 'node:crypto';
+import type { Page } from '@playwright/test';
+import { expect, signedInAs, test } from './fixtures';
+
+const OWNER = 'mara.quill@fernhill.example';
+
+/** A quartz cluster with one flash 30 cm to its left at subject height, GN 40 at 1/8, f/16 at 1:2. */
+async function quartzSetup(page: Page): Promise<string> {
+	const list = await (await page.request.get('/api/v1/setups?pageSize=1')).json();
+	const res = await page.request.post('/api/v1/setups', {
+		data: {
+			studioId: list.items[0].studioId,
+			title: `What-if test ${randomUUID().slice(0, 8)}`,
+			subject: 'Quartz cluster (what-if test)',
+			document: {
+				schemaVersion: 1,
+				scene: {
+					camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
+					subject: { position: [0, 0, 0.03] },
+					lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0, 0.03], guideNumber: 40, power: 0.125 }]
+				},
+				plan: {},
+				notes: ''
+			}
+		}
+	});
+	expect(res.status()).toBe(201);
+	return ((await res.json()) as { id: string }).id;
+}
+
+test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Keep is one undo step, Drop forgets', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const id = await quartzSetup(page);
+	await page.goto(`/setups/${id}/plan`);
+	await page.waitForLoadState('networkidle');
+	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
+
+	const flashRow = page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / });
+	await flashRow.click();
+	const whatIf = page.getByTestId('what-if');
+	await expect(whatIf).toBeVisible();
+	const undo = page.getByRole('button', { name: 'Undo' });
+	await expect(undo).toBeDisabled();
+
+	// Guide-number exposure X = (GN·√power / (d·N_w))² (API.md): GN 40 at 1/8 from 30 cm at f/16 × 1.5.
+	const stops = (dM: number) => Math.log2(((40 * Math.sqrt(1 / 8)) / (dM * 24)) ** 2);
+	const fmt = (s: number) => `${s > 0 ? '+' : '−'}${Math.abs(s).toFixed(1)}`;
+	await whatIf.getByLabel('Distance to the subject').fill('6');
+	await expect(whatIf.getByTestId('what-if-distance')).toHaveText('twice as far: −2.0 stops');
+	await expect(whatIf.getByTestId('what-if-result')).toContainText(`${fmt(stops(0.6))} stops (now ${fmt(stops(0.3))} stops)`);
+	await expect(whatIf.getByTestId('what-if-summary')).toContainText('Whole exposure −2.0 stops');
+	// A trial only: the flash has not moved and there is nothing to undo.
+	await expect(flashRow).toHaveAccessibleName(/at -30 cm, 0 cm/);
+	await expect(undo).toBeDisabled();
+
+	await whatIf.getByRole('button', { name: 'Keep' }).click();
+	await expect(flashRow).toHaveAccessibleName(/at -60 cm, 0 cm/);
+	await expect(whatIf.getByTestId('what-if-distance')).toHaveText('same distance: 0.0 stops');
+	await undo.click();
+	await expect(flashRow).toHaveAccessibleName(/at -30 cm, 0 cm/);
+	await expect(undo).toBeDisabled();
+
+	// A stop more power, dropped: the power stays 1/8.
+	await whatIf.getByLabel('Power').fill('3');
+	await expect(whatIf.getByTestId('what-if-power')).toHaveText('power +1.0 stop · 1/4');
+	await whatIf.getByRole('button', { name: 'Drop' }).click();
+	await expect(whatIf.getByTestId('what-if-power')).toHaveText('same power: 0.0 stops · 1/8');
+	await expect(page.getByLabel('Power (fraction of full)')).toHaveValue('0.125');
+	await expect(undo).toBeDisabled();
+});
+
+test('the shortcut sheet opens with ? and from the toolbar, closes with Escape and gives the focus back', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const id = await quartzSetup(page);
+	await page.goto(`/setups/${id}/plan`);
+	await page.waitForLoadState('networkidle');
+	const plan = page.getByRole('application', { name: /Plan of the setup/ });
+	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
+
+	const sheet = page.getByRole('dialog', { name: 'Keyboard shortcuts' });
+	await plan.focus();
+	await page.keyboard.press('Shift+?');
+	await expect(sheet).toBeVisible();
+	await expect(sheet.getByRole('row', { name: /Undo the last change/ })).toContainText('Ctrl');
+	await expect(sheet.getByRole('row', { name: /Show this list of shortcuts/ })).toBeVisible();
+	await expect(sheet.getByRole('row', { name: /Zoom in/ }).locator('kbd')).toHaveText(['+']);
+	// Modal: the focus is inside the sheet.
+	await expect(sheet.getByRole('button', { name: 'Close' })).toBeFocused();
+	await page.keyboard.press('Escape');
+	await expect(sheet).toBeHidden();
+	await expect(plan).toBeFocused();
+
+	const button = page.getByRole('button', { name: 'Shortcuts' });
+	await button.click();
+	await expect(sheet).toBeVisible();
+	await page.keyboard.press('Escape');
+	await expect(sheet).toBeHidden();
+	await expect(button).toBeFocused();
+
+	// "?" typed into a text field is text, not a shortcut.
+	const label = page.getByLabel('Label', { exact: true });
+	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).click();
+	await label.fill('');
+	await label.pressSequentially('Key?');
+	await expect(label).toHaveValue('Key?');
+	await expect(sheet).toBeHidden();
+});
