@@ -1,4 +1,4 @@
-// The plan editor in a real browser against the real API and database: a seeded setup's plan with the
+// The plan editor (the setup page, /setups/<id>) in a real browser against the real API and database: a seeded setup's plan with the
 // live exposure panel and its aperture table; the element list used by keyboard alone (add, move by
 // typed coordinates, delete); the aperture set to f/16 and the flash power the panel gives, checked
 // against the flash calculation route; and a save with a message that makes a new revision.
@@ -38,7 +38,7 @@ async function freshCopy(page: Page, seededIdValue: string, what: string): Promi
 }
 
 async function openPlan(page: Page, id: string) {
-	await page.goto(`/setups/${id}/plan`);
+	await page.goto(`/setups/${id}`);
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 	await expect(page.getByTestId('exposure-status')).toHaveText('up to date');
@@ -53,10 +53,12 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	await signedInAs(context, browser, baseURL, OWNER);
 	const seeded = await seededId(page, AMMONITE);
 
-	// The seeded setup's plan opens from the setup page, with the canvas and the exposure panel.
-	await page.goto(`/setups/${seeded}`);
-	await page.getByRole('link', { name: 'Edit the plan' }).click();
-	await expect(page).toHaveURL(new RegExp(`/setups/${seeded}/plan$`));
+	// The setup page is the editor; the old address of the plan editor leads there (a permanent redirect).
+	const old = await page.request.get(`/setups/${seeded}/plan`, { maxRedirects: 0 });
+	expect(old.status()).toBe(308);
+	expect(old.headers()['location']).toBe(`/setups/${seeded}`);
+	await page.goto(`/setups/${seeded}/plan`);
+	await expect(page).toHaveURL(new RegExp(`/setups/${seeded}$`));
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 	const panel = page.getByTestId('exposure-panel');
@@ -180,21 +182,27 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	// Meanwhile someone else saves a revision on the same base.
 	const current = await (await page.request.get(`/api/v1/setups/${id}`)).json();
 	const other = await page.request.put(`/api/v1/setups/${id}`, {
-		data: { baseRevision: current.revisionNumber, document: current.document, message: 'Saved from another window' }
+		data: { baseRevision: current.revisionNumber, document: { ...current.document, notes: 'Theirs: grey card under the fossil.' }, message: 'Saved from another window' }
 	});
 	expect(other.status()).toBe(200);
 	const theirs = (await other.json()).revisionNumber as number;
 
 	await page.getByLabel('What changed (optional)').fill('ISO 200');
 	await page.getByRole('button', { name: 'Save revision' }).click();
-	const alert = page.getByRole('alert').filter({ hasText: 'Someone saved this setup since' });
-	await expect(alert).toContainText(`revision ${theirs}`);
+	// Inline: which revision came in, and what it changed in words (the notebook's comparison).
+	const conflict = page.getByTestId('save-conflict');
+	await expect(conflict).toContainText(`revision ${theirs} is now the latest`);
+	await expect(conflict).toContainText(`Revision ${theirs} by`);
+	await expect(conflict).toContainText('Saved from another window');
+	await expect(conflict).toContainText(/notes/i);
 	await expect(page.getByLabel('ISO')).toHaveValue('200');
-	await alert.getByRole('button', { name: `Save on top of revision ${theirs}` }).click();
+	await page.getByRole('button', { name: `Save on top of revision ${theirs}` }).click();
 	await expect(page.getByTestId('revision-number')).toHaveText(String(theirs + 1));
 
 	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
 	expect(saved.document.scene.camera.iso).toBe(200);
+	// Saving on top kept their notes: the editor does not change notes, so nothing of theirs is lost.
+	expect(saved.document.notes).toBe('Theirs: grey card under the fossil.');
 	const revisions = (await (await page.request.get(`/api/v1/setups/${id}/revisions`)).json()) as { number: number; message: string }[];
 	expect(revisions.slice(0, 2).map((r) => [r.number, r.message])).toEqual([
 		[theirs + 1, 'ISO 200'],

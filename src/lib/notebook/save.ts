@@ -57,7 +57,23 @@ export async function saveChange(fetchFn: Fetch, req: SaveRequest): Promise<Save
 	return { kind: 'invalid', status: put.status, message: put.message, issues: put.issues };
 }
 
-async function describeConflict(fetchFn: Fetch, req: SaveRequest, baseDoc: SetupDocumentShape, latestHint: number): Promise<Conflict> {
+/** What changed between revision `baseRevision` and the latest, for a save that was refused (409); used by the editor too. */
+export async function conflictSince(
+	fetchFn: Fetch,
+	req: Pick<SaveRequest, 'setupId' | 'baseRevision' | 'unitSystem'>,
+	latestHint: number
+): Promise<Conflict | null> {
+	const base = await callApi<RevisionRecord>(fetchFn, `/api/v1/setups/${req.setupId}/revisions/${req.baseRevision}`);
+	if (!base.ok) return null;
+	return describeConflict(fetchFn, req, base.data.document, latestHint);
+}
+
+async function describeConflict(
+	fetchFn: Fetch,
+	req: Pick<SaveRequest, 'setupId' | 'baseRevision' | 'unitSystem'>,
+	baseDoc: SetupDocumentShape,
+	latestHint: number
+): Promise<Conflict> {
 	const [latest, revisions] = await Promise.all([
 		callApi<SetupRecord>(fetchFn, `/api/v1/setups/${req.setupId}`),
 		callApi<RevisionSummary[]>(fetchFn, `/api/v1/setups/${req.setupId}/revisions`)

@@ -1,6 +1,7 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { myStudios } from '$lib/server/studios';
-import { callApi, issuesByField, type SetupList } from '$lib/notebook/api';
+import { callApi, type SetupList } from '$lib/notebook/api';
+import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 import { apiSearch, readListQuery } from '$lib/notebook/list-query';
 import { blankDocument, requireSignedIn } from '$lib/notebook/load';
 
@@ -36,25 +37,10 @@ export async function load({ locals, url, fetch }) {
 export const actions = {
 	/** New setup: a small form (studio, title, subject) → POST /api/v1/setups with a minimal document. */
 	create: async ({ request, fetch }) => {
-		const form = await request.formData();
-		const values = {
-			studioId: String(form.get('studioId') ?? ''),
-			title: String(form.get('title') ?? ''),
-			subject: String(form.get('subject') ?? '')
-		};
-		const errors: Record<string, string> = {};
-		if (!values.title.trim()) errors.title = 'Give the setup a title.';
-		if (Object.keys(errors).length) return fail(400, { action: 'create', values, errors });
-		const r = await callApi<{ id: string }>(fetch, '/api/v1/setups', {
-			method: 'POST',
-			body: { ...(values.studioId ? { studioId: values.studioId } : {}), title: values.title, subject: values.subject, document: blankDocument() }
-		});
-		if (!r.ok) {
-			const fieldErrors = issuesByField(r.issues, ['studioId', 'title', 'subject']);
-			if (!Object.keys(fieldErrors).length || (r.status !== 400 && !fieldErrors.form)) fieldErrors.form = r.message;
-			return fail(r.status === 400 ? 400 : r.status, { action: 'create', values, errors: fieldErrors });
-		}
-		redirect(303, `/setups/${r.data.id}?created=1`);
+		const values = readNewSetupForm(await request.formData());
+		const r = await createSetupFrom(fetch, values, blankDocument());
+		if (!r.ok) return fail(r.status, { action: 'create', values, errors: r.errors });
+		redirect(303, `/setups/${r.id}?created=1`);
 	},
 
 	/** Import: a setup file from an export → POST /api/v1/setups/import; a bad file creates nothing. */

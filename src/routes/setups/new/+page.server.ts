@@ -1,0 +1,27 @@
+import { fail, redirect } from '@sveltejs/kit';
+import { myStudios } from '$lib/server/studios';
+import { blankDocument, requireSignedIn } from '$lib/notebook/load';
+import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
+
+/** A new setup in the editor: the empty plan, and the studios the user may add setups to. */
+export async function load({ locals, url }) {
+	const user = requireSignedIn(locals.user, url);
+	const studios = (await myStudios(user)).filter((s) => s.role === 'owner' || s.role === 'editor');
+	return {
+		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal })),
+		document: blankDocument(),
+		// The notebook's small form can open the editor with what was typed there.
+		values: { title: url.searchParams.get('title') ?? '', subject: url.searchParams.get('subject') ?? '', studioId: url.searchParams.get('studioId') ?? '' },
+		unitSystem: user.unitSystem
+	};
+}
+
+export const actions = {
+	/** Without JavaScript: the setup is made with the empty plan; the editor then opens on it. */
+	create: async ({ request, fetch }) => {
+		const values = readNewSetupForm(await request.formData());
+		const r = await createSetupFrom(fetch, values, blankDocument());
+		if (!r.ok) return fail(r.status, { values, errors: r.errors });
+		redirect(303, `/setups/${r.id}?created=1`);
+	}
+};
