@@ -223,68 +223,87 @@ export const sceneCameraSchema = z.object({
 	centreColumn: z.enum(['down', 'extended', 'reversed']).optional()
 });
 
-export const exposureSceneSchema = z
-	.object({
-		camera: sceneCameraSchema,
-		subject: z.object({
-			position: vec3Schema,
-			/** Extra: a person or an animal, for the short-range flash caution. */
-			living: z.boolean().optional(),
-			/** Extra: the subject's surface normal; when given, Lambert's cosine law applies to each light. */
-			normal: vec3Schema.optional()
-		}),
-		ambient: z.object({ ev100: ev100Field, kelvin: kelvinField.optional() }).optional(),
-		lights: z.array(sceneLightSchema).max(MAX_LIGHTS, `at most ${MAX_LIGHTS} lights`),
-		flags: z.array(flagSchema).max(MAX_FLAGS, `at most ${MAX_FLAGS} flags`).optional()
-	})
-	.superRefine((scene, ctx) => {
-		const { camera } = scene;
-		if (camera.minAperture !== undefined && camera.maxAperture !== undefined && camera.minAperture > camera.maxAperture) {
-			ctx.addIssue({ code: 'custom', path: ['camera', 'maxAperture'], message: 'must not be below minAperture' });
+/** The scene's fields, each checked on its own (the rules across fields follow). */
+export const exposureSceneShape = z.object({
+	camera: sceneCameraSchema,
+	subject: z.object({
+		position: vec3Schema,
+		/** Extra: a person or an animal, for the short-range flash caution. */
+		living: z.boolean().optional(),
+		/** Extra: the subject's surface normal; when given, Lambert's cosine law applies to each light. */
+		normal: vec3Schema.optional()
+	}),
+	ambient: z.object({ ev100: ev100Field, kelvin: kelvinField.optional() }).optional(),
+	lights: z.array(sceneLightSchema).max(MAX_LIGHTS, `at most ${MAX_LIGHTS} lights`),
+	flags: z.array(flagSchema).max(MAX_FLAGS, `at most ${MAX_FLAGS} flags`).optional()
+});
+
+/** A rule of the scene that spans fields (ids, sources, distances). */
+export interface SceneRuleIssue {
+	path: (string | number)[];
+	message: string;
+}
+
+/**
+ * The scene's rules that span fields, on a scene whose fields each passed: ids unique and not
+ * "ambient", every reflector's source an emitter (or the ambient, when there is one), nothing at the
+ * subject or at its own source, flags at least 1 mm long. Exported so a caller that checked the fields
+ * another way (the API's fast path, `src/lib/server/fast-accept.ts`) applies the very same rules.
+ */
+export function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): SceneRuleIssue[] {
+	const issues: SceneRuleIssue[] = [];
+	const { camera } = scene;
+	if (camera.minAperture !== undefined && camera.maxAperture !== undefined && camera.minAperture > camera.maxAperture) {
+		issues.push({ path: ['camera', 'maxAperture'], message: 'must not be below minAperture' });
+	}
+	const byId = new Map<string, (typeof scene.lights)[number]>();
+	scene.lights.forEach((light, i) => {
+		if (light.id === 'ambient') {
+			issues.push({ path: ['lights', i, 'id'], message: '"ambient" is reserved for the ambient light' });
+		} else if (byId.has(light.id)) {
+			issues.push({ path: ['lights', i, 'id'], message: `duplicate id "${light.id}"` });
 		}
-		const byId = new Map<string, (typeof scene.lights)[number]>();
-		scene.lights.forEach((light, i) => {
-			if (light.id === 'ambient') {
-				ctx.addIssue({ code: 'custom', path: ['lights', i, 'id'], message: '"ambient" is reserved for the ambient light' });
-			} else if (byId.has(light.id)) {
-				ctx.addIssue({ code: 'custom', path: ['lights', i, 'id'], message: `duplicate id "${light.id}"` });
-			}
-			byId.set(light.id, light);
-		});
-		scene.lights.forEach((light, i) => {
-			const d = Math.hypot(
-				light.position[0] - scene.subject.position[0],
-				light.position[1] - scene.subject.position[1],
-				light.position[2] - scene.subject.position[2]
-			);
-			if (light.kind !== 'reflector' && d < 0.001) {
-				ctx.addIssue({ code: 'custom', path: ['lights', i, 'position'], message: 'is at the subject (closer than 1 mm)' });
-			}
-			if (light.kind !== 'reflector') return;
-			if (light.source === 'ambient') {
-				if (!scene.ambient) ctx.addIssue({ code: 'custom', path: ['lights', i, 'source'], message: 'is "ambient" but the scene has no ambient' });
-				return;
-			}
-			const source = byId.get(light.source);
-			if (!source) {
-				ctx.addIssue({ code: 'custom', path: ['lights', i, 'source'], message: `names no light: "${light.source}"` });
-			} else if (source.kind === 'reflector') {
-				ctx.addIssue({ code: 'custom', path: ['lights', i, 'source'], message: 'must be a flash, a continuous light or "ambient", not another reflector' });
-			} else {
-				const d1 = Math.hypot(
-					light.position[0] - source.position[0],
-					light.position[1] - source.position[1],
-					light.position[2] - source.position[2]
-				);
-				if (d1 < 0.001) ctx.addIssue({ code: 'custom', path: ['lights', i, 'position'], message: `is at its source "${source.id}" (closer than 1 mm)` });
-			}
-		});
-		scene.flags?.forEach((flag, i) => {
-			if (Math.hypot(flag.to[0] - flag.from[0], flag.to[1] - flag.from[1]) < 0.001) {
-				ctx.addIssue({ code: 'custom', path: ['flags', i, 'to'], message: 'a flag must be at least 1 mm long' });
-			}
-		});
+		byId.set(light.id, light);
 	});
+	scene.lights.forEach((light, i) => {
+		const d = Math.hypot(
+			light.position[0] - scene.subject.position[0],
+			light.position[1] - scene.subject.position[1],
+			light.position[2] - scene.subject.position[2]
+		);
+		if (light.kind !== 'reflector' && d < 0.001) {
+			issues.push({ path: ['lights', i, 'position'], message: 'is at the subject (closer than 1 mm)' });
+		}
+		if (light.kind !== 'reflector') return;
+		if (light.source === 'ambient') {
+			if (!scene.ambient) issues.push({ path: ['lights', i, 'source'], message: 'is "ambient" but the scene has no ambient' });
+			return;
+		}
+		const source = byId.get(light.source);
+		if (!source) {
+			issues.push({ path: ['lights', i, 'source'], message: `names no light: "${light.source}"` });
+		} else if (source.kind === 'reflector') {
+			issues.push({ path: ['lights', i, 'source'], message: 'must be a flash, a continuous light or "ambient", not another reflector' });
+		} else {
+			const d1 = Math.hypot(
+				light.position[0] - source.position[0],
+				light.position[1] - source.position[1],
+				light.position[2] - source.position[2]
+			);
+			if (d1 < 0.001) issues.push({ path: ['lights', i, 'position'], message: `is at its source "${source.id}" (closer than 1 mm)` });
+		}
+	});
+	scene.flags?.forEach((flag, i) => {
+		if (Math.hypot(flag.to[0] - flag.from[0], flag.to[1] - flag.from[1]) < 0.001) {
+			issues.push({ path: ['flags', i, 'to'], message: 'a flag must be at least 1 mm long' });
+		}
+	});
+	return issues;
+}
+
+export const exposureSceneSchema = exposureSceneShape.superRefine((scene, ctx) => {
+	for (const issue of sceneRuleIssues(scene)) ctx.addIssue({ code: 'custom', ...issue });
+});
 
 export type ExposureScene = z.infer<typeof exposureSceneSchema>;
 export type ExposureSceneInput = z.input<typeof exposureSceneSchema>;

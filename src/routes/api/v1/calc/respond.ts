@@ -5,13 +5,24 @@
  */
 import type { RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
-import { apiError, parseJsonBody } from '$lib/server/http';
+import { apiError, DEFAULT_MAX_BODY_BYTES, parseJsonBody } from '$lib/server/http';
+import { fastAcceptor, type Acceptor } from '$lib/server/fast-accept';
 import { CALCULATIONS, computeSafely, type CalculationPath } from '$lib/light/calculations';
+import { exposureSceneShape, sceneRuleIssues } from '$lib/light/schema';
+
+/**
+ * Routes whose bodies are large enough for zod's parse to weigh: a valid scene is accepted by the
+ * compiled check (see fast-accept.ts); anything else goes through zod and its errors.
+ */
+const FAST_ACCEPTORS: Partial<Record<CalculationPath, () => Acceptor<unknown>>> = {
+	'/api/v1/exposure': () => fastAcceptor(exposureSceneShape, sceneRuleIssues)
+};
 
 export function calculationRoute(path: CalculationPath): RequestHandler {
 	const calc = CALCULATIONS[path] as { schema: z.ZodType; compute: (input: unknown) => unknown };
+	const fast = FAST_ACCEPTORS[path]?.();
 	return async ({ request }) => {
-		const parsed = await parseJsonBody(request, calc.schema);
+		const parsed = await parseJsonBody(request, calc.schema, DEFAULT_MAX_BODY_BYTES, fast);
 		if (!parsed.ok) return parsed.response;
 		const outcome = computeSafely(calc, parsed.data);
 		if (!outcome.ok) return apiError(400, outcome.message, outcome.issues);
