@@ -1,38 +1,12 @@
 // The plan editor at phone width with a touch screen: one finger drags a light (its new coordinates
 // read from the element list), two fingers pinch the plan (the zoom read from the plan's data-zoom).
 // Touches go through Chromium's DevTools protocol (Input.dispatchTouchEvent), as a real screen's would.
-import { randomUUID } from 'node:crypto';
 import type { CDPSession, Page } from '@playwright/test';
-import { expect, signedInAs, test } from './fixtures';
+import { createQuartzSetup, expect, signedInAs, test } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
 
 test.use({ viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true });
-
-/** A new setup in the owner's studio: a quartz cluster with one flash 30 cm to its left. */
-async function quartzSetup(page: Page): Promise<string> {
-	const list = await (await page.request.get('/api/v1/setups?pageSize=1')).json();
-	const studioId = list.items[0].studioId as string;
-	const res = await page.request.post('/api/v1/setups', {
-		data: {
-			studioId,
-			title: `Touch test ${randomUUID().slice(0, 8)}`,
-			subject: 'Quartz cluster (touch test)',
-			document: {
-				schemaVersion: 1,
-				scene: {
-					camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
-					subject: { position: [0, 0, 0.03] },
-					lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0, 0.03], guideNumber: 40, power: 0.125 }]
-				},
-				plan: {},
-				notes: ''
-			}
-		}
-	});
-	expect(res.status()).toBe(201);
-	return ((await res.json()) as { id: string }).id;
-}
 
 interface View {
 	zoom: number;
@@ -69,8 +43,8 @@ async function lightAt(page: Page): Promise<[number, number]> {
 
 test('at phone width, one finger drags a light and two fingers pinch-zoom the plan', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const id = await quartzSetup(page);
-	await page.goto(`/setups/${id}/plan`);
+	const id = await createQuartzSetup(page, 'Touch test');
+	await page.goto(`/setups/${id}`);
 	await page.waitForLoadState('networkidle');
 	const canvas = page.getByTestId('plan-canvas');
 	await expect(canvas.locator('canvas').first()).toBeVisible();

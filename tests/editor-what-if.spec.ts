@@ -1,35 +1,9 @@
 // The plan editor's what-if control and its shortcut sheet, in a real browser against the real app: a
 // trial distance shows the change in stops at once and moves nothing until kept; Keep is one undo step,
 // Drop forgets; "?" and the toolbar button open the shortcut sheet, Escape closes it and focus returns.
-import { randomUUID } from 'node:crypto';
-import type { Page } from '@playwright/test';
-import { expect, signedInAs, test } from './fixtures';
+import { createQuartzSetup, expect, signedInAs, test } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
-
-/** A quartz cluster with one flash 30 cm to its left at subject height, GN 40 at 1/8, f/16 at 1:2. */
-async function quartzSetup(page: Page): Promise<string> {
-	const list = await (await page.request.get('/api/v1/setups?pageSize=1')).json();
-	const res = await page.request.post('/api/v1/setups', {
-		data: {
-			studioId: list.items[0].studioId,
-			title: `What-if test ${randomUUID().slice(0, 8)}`,
-			subject: 'Quartz cluster (what-if test)',
-			document: {
-				schemaVersion: 1,
-				scene: {
-					camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
-					subject: { position: [0, 0, 0.03] },
-					lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0, 0.03], guideNumber: 40, power: 0.125 }]
-				},
-				plan: {},
-				notes: ''
-			}
-		}
-	});
-	expect(res.status()).toBe(201);
-	return ((await res.json()) as { id: string }).id;
-}
 
 test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Keep is one undo step, Drop forgets', async ({
 	page,
@@ -38,8 +12,8 @@ test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Kee
 	baseURL
 }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const id = await quartzSetup(page);
-	await page.goto(`/setups/${id}/plan`);
+	const id = await createQuartzSetup(page, 'What-if test');
+	await page.goto(`/setups/${id}`);
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 
@@ -79,8 +53,8 @@ test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Kee
 
 test('the shortcut sheet opens with ? and from the toolbar, closes with Escape and gives the focus back', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const id = await quartzSetup(page);
-	await page.goto(`/setups/${id}/plan`);
+	const id = await createQuartzSetup(page, 'What-if test');
+	await page.goto(`/setups/${id}`);
 	await page.waitForLoadState('networkidle');
 	const plan = page.getByRole('application', { name: /Plan of the setup/ });
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();

@@ -1,6 +1,7 @@
 // Shared Playwright fixtures. Every test gets a page whose requests are watched: any request to a host
 // other than this machine fails the test, so fonts, styles and scripts must all be served by the app.
 import fs from 'node:fs';
+import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { test as base, expect, type Browser, type BrowserContext, type Cookie, type Page } from '@playwright/test';
 
@@ -108,4 +109,31 @@ export async function signedInAs(context: BrowserContext, browser: Browser, base
 	fs.mkdirSync(path.dirname(file), { recursive: true });
 	fs.writeFileSync(file, JSON.stringify(cookies));
 	await context.addCookies(cookies);
+}
+
+/**
+ * A new setup in the signed-in user's first studio: a quartz cluster with one flash 30 cm to its left,
+ * at f/16, 1:2, ISO 100, the flash at 1/8 of guide number 40. `label` goes into the title and subject.
+ */
+export async function createQuartzSetup(page: Page, label: string): Promise<string> {
+	const list = await (await page.request.get('/api/v1/setups?pageSize=1')).json();
+	const res = await page.request.post('/api/v1/setups', {
+		data: {
+			studioId: list.items[0].studioId as string,
+			title: `${label} ${randomUUID().slice(0, 8)}`,
+			subject: `Quartz cluster (${label.toLowerCase()})`,
+			document: {
+				schemaVersion: 1,
+				scene: {
+					camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
+					subject: { position: [0, 0, 0.03] },
+					lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0, 0.03], guideNumber: 40, power: 0.125 }]
+				},
+				plan: {},
+				notes: ''
+			}
+		}
+	});
+	expect(res.status()).toBe(201);
+	return ((await res.json()) as { id: string }).id;
 }

@@ -9,6 +9,7 @@ import { gzipSync } from 'node:zlib';
 import { randomBytes } from 'node:crypto';
 import postgres from 'postgres';
 import { chromium } from '@playwright/test';
+import { median, percentile, round } from '../lib/stats.mjs';
 
 const DRAG_MS = 3000;
 const ROUNDS = 2;
@@ -64,15 +65,6 @@ function smallScene() {
 	return { camera: CAMERA, subject: { position: [0, 0, 0.03] }, lights: [KEY] };
 }
 
-function median(xs) {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.floor(s.length / 2)];
-}
-function percentile(xs, p) {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.min(s.length - 1, Math.floor(s.length * p))];
-}
-const round = (x) => Math.round(x * 100) / 100;
 const kib = (bytes) => Math.round((bytes / 1024) * 10) / 10;
 
 async function createSetup(baseUrl, cookie, studioId, title, scene, plan) {

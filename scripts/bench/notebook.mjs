@@ -4,6 +4,7 @@
 // no more than twice as slow as the small one's.
 import { createHash, randomBytes } from 'node:crypto';
 import postgres from 'postgres';
+import { median, percentile, round } from '../lib/stats.mjs';
 
 const LARGE_SETUPS = 10_000;
 const SMALL_SETUPS = 10;
@@ -40,15 +41,6 @@ const DOCUMENT = {
 const SUBJECTS = ['quartz', 'ammonite', 'moss', 'geode', 'trilobite', 'calcite', 'fluorite', 'pyrite', 'belemnite', 'crinoid', 'agate', 'garnet', 'lichen', 'fern', 'beetle', 'feather', 'shell', 'coral', 'obsidian', 'malachite'];
 const TAGS = ['minerals', 'fossils', 'window light', 'catalogue', 'workshop', 'raking light', 'black velvet', 'fill flash'];
 
-function median(xs) {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.floor(s.length / 2)];
-}
-function percentile(xs, p) {
-	const s = [...xs].sort((a, b) => a - b);
-	return s[Math.min(s.length - 1, Math.floor(s.length * p))];
-}
-const round = (x) => Math.round(x * 100) / 100;
 
 async function seedStudio(sql, { name, count, userId, prefix }) {
 	const [studio] = await sql`insert into studios (name) values (${name}) returning id`;
