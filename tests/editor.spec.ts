@@ -3,6 +3,7 @@
 // typed coordinates, delete); the aperture set to f/16 and the flash power the panel gives, checked
 // against the flash calculation route; and a save with a message that makes a new revision.
 import { randomUUID } from 'node:crypto';
+import fs from 'node:fs';
 import type { Page } from '@playwright/test';
 import { expect, signedInAs, test } from './fixtures';
 
@@ -249,4 +250,37 @@ test('a viewer gets the plan read-only, with the exposure but no editing panels'
 	await expect(page.getByRole('button', { name: 'Save revision' })).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Add element' })).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Undo' })).toHaveCount(0);
+
+	// A viewer may still take the plan away as a picture.
+	const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export PNG' }).click()]);
+	expect(download.suggestedFilename()).toMatch(/\.png$/);
+	const bytes = fs.readFileSync(await download.path());
+	expect([...bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]); // the PNG signature
+});
+
+test('printing in the dim theme still puts a light plan on paper', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const seeded = await seededId(page, AMMONITE);
+	await openPlan(page, seeded);
+	await page.evaluate(() => document.documentElement.classList.add('dark'));
+	await page.emulateMedia({ media: 'print' });
+	const img = page.getByTestId('setup-sheet').locator('img').first();
+	await expect(img).toHaveAttribute('src', /^data:image\/png/);
+	/** Mean brightness (0–255) of the top-left corner of the sheet's plan image (bare table), read through a canvas. */
+	const brightness = () =>
+		img.evaluate(async (el: HTMLImageElement) => {
+			await el.decode();
+			const c = document.createElement('canvas');
+			c.width = el.naturalWidth;
+			c.height = el.naturalHeight;
+			const g = c.getContext('2d')!;
+			g.drawImage(el, 0, 0);
+			const { data } = g.getImageData(0, 0, 12, 12);
+			let sum = 0;
+			for (let i = 0; i < data.length; i += 4) sum += (data[i] + data[i + 1] + data[i + 2]) / 3;
+			return sum / (data.length / 4);
+		});
+	// The stage on screen is dark; the printed plan is taken in the light theme.
+	await expect.poll(brightness).toBeGreaterThan(170);
+	expect(await page.evaluate(() => document.documentElement.classList.contains('dark'))).toBe(true);
 });
