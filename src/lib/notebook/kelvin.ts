@@ -1,41 +1,31 @@
 /**
- * Drawing colour of a light from its colour temperature: an sRGB approximation of the black-body
- * colour, interpolated between anchor points (values from memory of published black-body sRGB tables,
- * normalised to white at about 6500 K). For drawing only; never used in exposure or white-balance math.
+ * Drawing colours of a light from its colour temperature, for the notebook's sketches and thumbnails.
+ * The fill is the light's own colour from the editor's Planckian-locus conversion
+ * (`$lib/editor/kelvin-colour`, Kim et al. 2002), so a sketch and the plan editor agree; the stroke is
+ * our own ramp that stays visible on paper and on the dim theme. For drawing only; never used in
+ * exposure or white-balance math.
  */
-const ANCHORS: [number, [number, number, number]][] = [
-	[1000, [255, 56, 0]],
-	[1500, [255, 109, 0]],
-	[2000, [255, 137, 18]],
-	[2700, [255, 169, 87]],
-	[3200, [255, 187, 120]],
-	[4000, [255, 209, 163]],
-	[5000, [255, 228, 206]],
-	[5500, [255, 236, 224]],
-	[6500, [255, 249, 253]],
-	[7500, [235, 238, 255]],
-	[9000, [214, 225, 255]],
-	[12000, [191, 211, 255]],
-	[20000, [168, 197, 255]]
-];
+import { kelvinToHex as locusHex, kelvinToRgb as locusRgb } from '$lib/editor/kelvin-colour';
 
 /** Default drawing temperatures when a light gives none: a small flash and a tungsten lamp (common practice). */
 export const DEFAULT_FLASH_KELVIN = 5500;
 export const DEFAULT_CONTINUOUS_KELVIN = 3200;
 export const DEFAULT_DAYLIGHT_KELVIN = 6500;
 
+const drawable = (kelvin: number) => (Number.isFinite(kelvin) ? kelvin : DEFAULT_FLASH_KELVIN);
+
 export function kelvinToRgb(kelvin: number): [number, number, number] {
-	return interpolate(ANCHORS, kelvin);
+	return locusRgb(drawable(kelvin));
 }
 
 export function kelvinToHex(kelvin: number): string {
-	return '#' + kelvinToRgb(kelvin).map((v) => v.toString(16).padStart(2, '0')).join('');
+	return locusHex(drawable(kelvin));
 }
 
 /**
  * A colour that shows on paper and on the dark theme: black-body whites vanish on a pale page, so
  * outlines and beams use our own ramp from deep tungsten through a neutral grey to daylight blue,
- * interpolated in mired the same way.
+ * interpolated in mired (even steps of mired look like even steps of colour).
  */
 const STROKE_ANCHORS: [number, [number, number, number]][] = [
 	[1500, [178, 59, 18]],
