@@ -31,12 +31,15 @@ test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Kee
 	await expect(whatIf.getByTestId('what-if-distance')).toHaveText('twice as far: −2.0 stops');
 	await expect(whatIf.getByTestId('what-if-result')).toContainText(`${fmt(stops(0.6))} stops (now ${fmt(stops(0.3))} stops)`);
 	await expect(whatIf.getByTestId('what-if-summary')).toContainText('Whole exposure −2.0 stops');
-	// A trial only: the flash has not moved and there is nothing to undo.
+	// A trial only: the flash has not moved and there is nothing to undo; the plan marks where it would go.
 	await expect(flashRow).toHaveAccessibleName(/at -30 cm, 0 cm/);
 	await expect(undo).toBeDisabled();
+	const plan = page.getByRole('application', { name: /Plan of the setup/ });
+	await expect(plan).toHaveAttribute('data-trial', '-0.600,0.000');
 
 	await whatIf.getByRole('button', { name: 'Keep' }).click();
 	await expect(flashRow).toHaveAccessibleName(/at -60 cm, 0 cm/);
+	await expect(plan).not.toHaveAttribute('data-trial');
 	await expect(whatIf.getByTestId('what-if-distance')).toHaveText('same distance: 0.0 stops');
 	await undo.click();
 	await expect(flashRow).toHaveAccessibleName(/at -30 cm, 0 cm/);

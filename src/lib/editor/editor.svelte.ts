@@ -84,6 +84,11 @@ export class Editor implements ToolHost {
 	falloffVisible = $state(false);
 	snapToGrid = $state(true);
 	snapToElements = $state(true);
+	/**
+	 * Where a what-if trial would put a light (session state, never in the model or a save): the plan
+	 * draws it as a dashed mark on its overlay, which exports and prints leave out.
+	 */
+	trialPosition = $state<{ id: string; xM: number; yM: number } | null>(null);
 
 	// ----- input plumbing -----
 	readonly #tools: Record<ToolId, Tool>;
