@@ -10,8 +10,13 @@ export function subtract3(a: Vec3, b: Vec3): Vec3 {
 	return [a[0] - b[0], a[1] - b[1], a[2] - b[2]];
 }
 
+/**
+ * The length of a vector. `Math.sqrt` of the squares rather than `Math.hypot`, which guards against
+ * overflow far outside any table (coordinates are capped at 10 km) and is several times slower; this
+ * runs for every light on every request and for every cell of the falloff map.
+ */
 export function length3(v: Vec3): number {
-	return Math.hypot(v[0], v[1], v[2]);
+	return Math.sqrt(v[0] * v[0] + v[1] * v[1] + v[2] * v[2]);
 }
 
 export function distanceM(a: Vec3, b: Vec3): number {
@@ -105,7 +110,9 @@ export function pointSegmentDistanceM(p: Vec2, a: Vec2, b: Vec2): number {
 	const aby = b[1] - a[1];
 	const len2 = abx * abx + aby * aby;
 	const t = len2 === 0 ? 0 : Math.min(1, Math.max(0, ((p[0] - a[0]) * abx + (p[1] - a[1]) * aby) / len2));
-	return Math.hypot(p[0] - (a[0] + t * abx), p[1] - (a[1] + t * aby));
+	const dx = p[0] - (a[0] + t * abx);
+	const dy = p[1] - (a[1] + t * aby);
+	return Math.sqrt(dx * dx + dy * dy);
 }
 
 export function plan(v: Vec3): Vec2 {
