@@ -155,6 +155,33 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	expect(saved.revisionNumber).toBe(startRevision + 1);
 });
 
+test("a light takes a modifier from the studio's gear shelf, and the saved revision keeps a copy of it", async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const id = await freshCopy(page, await seededId(page, AMMONITE), 'shelf');
+	await openPlan(page, id);
+	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).first().click();
+	const modifier = page.getByLabel(/^Modifier on /);
+	// The studio's shelf (seeded: a grid, a softbox and a dome, listed by name) is offered beside the typical modifiers.
+	await expect(modifier.locator('optgroup[label="From the gear shelf"] option')).toHaveText([
+		'Honeycomb grid, 25° (−0.7 stops)',
+		'Larkspur 30 cm softbox (−1.7 stops)',
+		'Opal diffuser dome (−1 stop)'
+	]);
+	await modifier.selectOption({ label: 'Larkspur 30 cm softbox (−1.7 stops)' });
+	await expect(page.getByTestId('exposure-status')).toHaveText('up to date');
+	await page.getByLabel('What changed (optional)').fill('Softbox from the shelf');
+	await page.getByRole('button', { name: 'Save revision' }).click();
+	await expect(page.getByText(/Saved as revision 2\./)).toBeVisible();
+
+	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	const SOFTBOX = '7e1a9b30-4c2d-4f1e-9a0b-00000000b001';
+	const [lightId] = Object.entries(saved.document.plan.elements as Record<string, { modifier?: { gearId?: string } }>).find(([, el]) => el.modifier?.gearId === SOFTBOX)!;
+	expect(saved.document.gear).toContainEqual(expect.objectContaining({ id: SOFTBOX, kind: 'modifier', name: 'Larkspur 30 cm softbox' }));
+	const light = (saved.document.scene.lights as { id: string; lossStops?: number; beamAngleDeg?: number }[]).find((l) => l.id === lightId)!;
+	expect(light.lossStops).toBeGreaterThanOrEqual(1.7 - 1e-9); // the shelf's measured loss, plus any other
+	expect(light.beamAngleDeg).toBe(90);
+});
+
 test('unsaved work survives a reload, and a stale save says someone saved since and saves on top, losing nothing', async ({
 	page,
 	context,

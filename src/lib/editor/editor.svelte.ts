@@ -22,7 +22,7 @@ import type { GearSnapshot } from '$lib/scene/document';
 import { boundsContain, boundsOfElements, elementBounds, expandBounds, hitTest, type Bounds } from './model/geometry';
 import { emptySetupScene, modelFromScene } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
-import type { AmbientSettings, CameraSettings, EditorElement, ElementKind } from './model/schema';
+import type { AmbientSettings, CameraSettings, EditorElement, ElementKind, Modifier } from './model/schema';
 import { elementsInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
 import { HandTool } from './tools/hand-tool';
 import { PinchGesture } from './tools/pinch';
@@ -89,6 +89,8 @@ export class Editor implements ToolHost {
 	 * draws it as a dashed mark on its overlay, which exports and prints leave out.
 	 */
 	trialPosition = $state<{ id: string; xM: number; yM: number } | null>(null);
+	/** The studio's gear-shelf modifiers, offered beside the presets (the page loads them). */
+	shelfModifiers = $state<readonly Modifier[]>([]);
 
 	// ----- input plumbing -----
 	readonly #tools: Record<ToolId, Tool>;

@@ -139,14 +139,24 @@ export type PlanElement = z.output<typeof planElementSchema>;
 export type Plan = z.output<typeof planSchema>;
 export type GearSnapshot = z.output<typeof gearSnapshotSchema>;
 
+/**
+ * The gear ids one plan element refers to: its own `gearId`, and that of the modifier the editor fitted
+ * to a light (`modifier.gearId`, a field the editor writes beside the document's own).
+ */
+function gearIdsOf(el: PlanElement): string[] {
+	const modifier = (el as { modifier?: unknown }).modifier;
+	const fitted = modifier && typeof modifier === 'object' ? (modifier as { gearId?: unknown }).gearId : undefined;
+	return [el.gearId, typeof fitted === 'string' ? fitted : undefined].filter((id): id is string => Boolean(id));
+}
+
 /** Every gear id the plan refers to, in a stable order. */
 export function referencedGearIds(doc: Pick<SetupDocument, 'plan'>): string[] {
 	const ids = new Set<string>();
-	for (const el of Object.values(doc.plan.elements ?? {})) if (el.gearId) ids.add(el.gearId);
+	for (const el of Object.values(doc.plan.elements ?? {})) for (const id of gearIdsOf(el)) ids.add(id);
 	return [...ids].sort();
 }
 
 /** The plan element id that refers to a gear id (for error paths). */
 export function elementUsingGear(doc: Pick<SetupDocument, 'plan'>, gearId: string): string | undefined {
-	return Object.entries(doc.plan.elements ?? {}).find(([, el]) => el.gearId === gearId)?.[0];
+	return Object.entries(doc.plan.elements ?? {}).find(([, el]) => gearIdsOf(el).includes(gearId))?.[0];
 }

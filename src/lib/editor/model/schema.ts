@@ -54,7 +54,9 @@ export const modifierSchema = z.object({
 	beamAngleDeg: range(1, 180, '°').nullable(),
 	lossStops: lossStopsField,
 	/** Width of the front (a softbox's face, a snoot's opening), for the drawing. */
-	sizeM: sizeM
+	sizeM: sizeM,
+	/** The gear-shelf item it came from; the server copies that item into the revision's gear. */
+	gearId: z.uuid({ error: 'must be the id of an item on the gear shelf' }).optional()
 });
 export type Modifier = z.infer<typeof modifierSchema>;
 

@@ -1,6 +1,7 @@
 import { error, fail, redirect } from '@sveltejs/kit';
 import { can, studioAccess } from '$lib/server/authz';
 import { callApi, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
+import type { ShelfItem } from '$lib/editor/model/shelf';
 import type { ExposureResult } from '$lib/light/scene';
 import { elementLabels, getOrFail, requireSignedIn } from '$lib/notebook/load';
 import { renderNotes } from '$lib/notebook/markdown';
@@ -14,10 +15,11 @@ export async function load({ params, fetch, url, locals }) {
 		`/api/v1/setups/${encodeURIComponent(params.id)}`,
 		url
 	);
-	const [exposure, revisions, access] = await Promise.all([
+	const [exposure, revisions, access, shelf] = await Promise.all([
 		callApi<ExposureResult & { revisionNumber?: number }>(fetch, `/api/v1/setups/${setup.id}/exposure`),
 		callApi<RevisionSummary[]>(fetch, `/api/v1/setups/${setup.id}/revisions`),
-		studioAccess(user, setup.studioId)
+		studioAccess(user, setup.studioId),
+		callApi<{ items: ShelfItem[] }>(fetch, `/api/v1/gear?studio=${setup.studioId}&kind=modifier`)
 	]);
 	// The origin's title: the API adds it when the caller may see the origin; otherwise ask for it.
 	let origin: { setupId: string; revisionNumber: number; title: string | null } | null = null;
@@ -52,7 +54,9 @@ export async function load({ params, fetch, url, locals }) {
 		origin,
 		canEdit: setup.canEdit ?? can(access, 'setups.edit'),
 		canDuplicate: setup.canDuplicate ?? can(access, 'setups.duplicateFrom'),
-		unitSystem: user.unitSystem
+		unitSystem: user.unitSystem,
+		// The studio's modifiers, offered in the editor beside the presets (none if the shelf cannot be read).
+		shelf: shelf.ok ? shelf.data.items : []
 	};
 }
 

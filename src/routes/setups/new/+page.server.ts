@@ -1,5 +1,6 @@
 import { fail, redirect } from '@sveltejs/kit';
 import { myStudios } from '$lib/server/studios';
+import { listGear } from '$lib/server/gear';
 import { blankDocument, requireSignedIn } from '$lib/notebook/load';
 import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 
@@ -7,8 +8,11 @@ import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 export async function load({ locals, url }) {
 	const user = requireSignedIn(locals.user, url);
 	const studios = (await myStudios(user)).filter((s) => s.role === 'owner' || s.role === 'editor');
+	// Each studio's modifiers, so the editor offers the shelf of the studio the setup will go to.
+	const shelves = await Promise.all(studios.map((s) => listGear(user, { studioId: s.id, kind: 'modifier' }).catch(() => ({ items: [] }))));
 	return {
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal })),
+		shelfByStudio: Object.fromEntries(studios.map((s, i) => [s.id, shelves[i].items])),
 		document: blankDocument(),
 		// The notebook's small form can open the editor with what was typed there.
 		values: { title: url.searchParams.get('title') ?? '', subject: url.searchParams.get('subject') ?? '', studioId: url.searchParams.get('studioId') ?? '' },

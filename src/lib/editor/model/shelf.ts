@@ -1,0 +1,44 @@
+/**
+ * Gear-shelf modifiers as the editor fits them to a light: a shelf item's measured loss and beam angle,
+ * its name, the width of its front for the drawing, and its id, so the server copies the item into the
+ * revision's gear when the plan is saved (`referencedGearIds` in `$lib/scene/document`).
+ */
+import { modifierSchema, type Modifier } from './schema';
+
+/** A gear item as `GET /api/v1/gear` lists it (only what the editor reads). */
+export interface ShelfItem {
+	id: string;
+	kind: string;
+	name: string;
+	spec: Record<string, unknown>;
+	retiredAt?: string | null;
+}
+
+/** Width of a modifier's front for the drawing when the shelf gives none (round figures of our own). */
+const FRONT_WIDTH_M: Record<string, number> = {
+	softbox: 0.3,
+	umbrella: 0.8,
+	dome: 0.08,
+	'diffusion panel': 0.6,
+	snoot: 0.04,
+	grid: 0.075,
+	other: 0.1
+};
+
+const MAX_NAME = 80;
+
+/** The modifier a shelf item makes, or null when it is not a modifier or its figures do not pass. */
+export function modifierFromShelf(item: ShelfItem): Modifier | null {
+	if (item.kind !== 'modifier' || item.retiredAt) return null;
+	const spec = item.spec;
+	const shape = typeof spec.shape === 'string' ? spec.shape : 'other';
+	const width = typeof spec.widthM === 'number' ? spec.widthM : (FRONT_WIDTH_M[shape] ?? FRONT_WIDTH_M.other);
+	const name = item.name.length > MAX_NAME ? `${item.name.slice(0, MAX_NAME - 1)}…` : item.name;
+	const parsed = modifierSchema.safeParse({ name, beamAngleDeg: spec.beamAngleDeg, lossStops: spec.lossStops, sizeM: width, gearId: item.id });
+	return parsed.success ? parsed.data : null;
+}
+
+/** The shelf's modifiers, in the shelf's order, leaving out what is retired or does not pass. */
+export function shelfModifiers(items: readonly ShelfItem[]): Modifier[] {
+	return items.map(modifierFromShelf).filter((m): m is Modifier => m !== null);
+}
