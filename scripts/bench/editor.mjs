@@ -266,6 +266,13 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		log(`ratio (median) ${ratio}, p95 ratio ${p95Ratio} (goal < ${GOAL_RATIO}): ${goalMet ? 'met' : 'NOT met'}`);
 
 		const routeGzip = [...scripts.values()].filter((n) => typeof n === 'number').reduce((a, b) => a + b, 0);
+		// The largest files, so a change in the total can be traced to its chunk.
+		const largest = [...scripts]
+			.filter(([, n]) => typeof n === 'number')
+			.sort((a, b) => b[1] - a[1])
+			.slice(0, 6)
+			.map(([url, n]) => ({ file: new URL(url).pathname.split('/').pop(), gzipKiB: kib(n) }));
+		log(`largest: ${largest.map((f) => `${f.file} ${f.gzipKiB} KiB`).join(', ')}`);
 		const konvaFile = path.join(process.cwd(), 'node_modules', 'konva', 'konva.min.js');
 		const konvaGzip = gzipSync(fs.readFileSync(konvaFile)).length;
 		log(`editor route JavaScript: ${kib(routeGzip)} KiB gzip in ${scripts.size} files; konva alone (konva.min.js): ${kib(konvaGzip)} KiB gzip`);
@@ -280,7 +287,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 			p95Ratio,
 			goalRatio: GOAL_RATIO,
 			goalMet,
-			javascript: { routeGzipKiB: kib(routeGzip), files: scripts.size, konvaGzipKiB: kib(konvaGzip), konvaShare: round(konvaGzip / routeGzip) }
+			javascript: { routeGzipKiB: kib(routeGzip), files: scripts.size, konvaGzipKiB: kib(konvaGzip), konvaShare: round(konvaGzip / routeGzip), largest }
 		};
 	} finally {
 		await browser?.close();
