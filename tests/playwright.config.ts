@@ -1,4 +1,5 @@
 import { defineConfig } from '@playwright/test';
+import { chromiumLaunchOptions } from '../scripts/lib/chromium.mjs';
 
 const baseURL = process.env.TEST_BASE_URL;
 if (!baseURL) throw new Error('TEST_BASE_URL is not set: run the browser tests through `npm test`.');
@@ -17,18 +18,6 @@ export default defineConfig({
 		baseURL,
 		trace: 'retain-on-failure',
 		screenshot: 'only-on-failure',
-		launchOptions: {
-			executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
-			args: [
-				'--headless',
-				'--no-sandbox',
-				'--disable-gpu',
-				'--disable-quic',
-				'--no-first-run',
-				'--disable-background-networking',
-				'--disable-component-update',
-				'--disable-sync'
-			]
-		}
+		launchOptions: chromiumLaunchOptions
 	}
 });

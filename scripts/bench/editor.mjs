@@ -9,22 +9,13 @@ import { gzipSync } from 'node:zlib';
 import { randomBytes } from 'node:crypto';
 import postgres from 'postgres';
 import { chromium } from '@playwright/test';
+import { chromiumLaunchOptions } from '../lib/chromium.mjs';
 import { median, percentile, round } from '../lib/stats.mjs';
 
 const DRAG_MS = 3000;
 const ROUNDS = 2;
 const MOVE_EVERY_MS = 8;
 const GOAL_RATIO = 1.5;
-const CHROMIUM_ARGS = [
-	'--headless',
-	'--no-sandbox',
-	'--disable-gpu',
-	'--disable-quic',
-	'--no-first-run',
-	'--disable-background-networking',
-	'--disable-component-update',
-	'--disable-sync'
-];
 
 const CAMERA = { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 };
 /** The light both benches drag: a flash up and to the right of the subject, clear of the others. */
@@ -193,7 +184,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		const largeId = await createSetup(baseUrl, cookie, studio.id, `Bench large plan ${tag}`, largeScene(), LARGE_PLAN);
 		const smallId = await createSetup(baseUrl, cookie, studio.id, `Bench small plan ${tag}`, smallScene(), SMALL_PLAN);
 
-		browser = await chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: CHROMIUM_ARGS });
+		browser = await chromium.launch(chromiumLaunchOptions);
 		const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
 		await context.addCookies([{ name: 'authjs.session-token', value: sessionToken, url: baseUrl }]);
 

@@ -1,7 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { computeExposure } from '$lib/light/scene';
-import { exposureSceneSchema } from '$lib/light/schema';
-import { moveElementsTo } from './commands';
 import { Editor } from './editor.svelte';
 import { SHORTCUTS } from './tools/shortcuts';
 import { quartzScene } from './test-fixtures';
@@ -12,7 +9,6 @@ function editor() {
 	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
 	return e;
 }
-const keyStops = (e: Editor) => computeExposure(exposureSceneSchema.parse(e.scene)).lights.find((l) => l.id === 'key')!.stops!;
 
 describe('Editor: keyboard', () => {
 	it('Delete removes the selection and mod+Z brings it back', () => {
@@ -104,25 +100,6 @@ describe('Editor: keyboard', () => {
 		expect(e.viewport.zoom).toBeCloseTo(1000);
 		e.keyDown({ key: '0' });
 		expect(e.viewport.zoom).not.toBeCloseTo(1000);
-	});
-});
-
-describe('Editor: what-if', () => {
-	it('tries a change without committing: twice as far is −2 stops; drop restores, keep is one step', () => {
-		const e = editor();
-		const before = keyStops(e);
-		e.tryWhatIf(moveElementsTo({ key: { xM: -0.8, yM: 0 } }));
-		e.tryWhatIf(moveElementsTo({ key: { xM: -1, yM: 0 } }));
-		expect(e.whatIfActive).toBe(true);
-		expect(keyStops(e) - before).toBeCloseTo(-2, 9);
-		e.dropWhatIf();
-		expect(e.model.elements.key.xM).toBe(-0.5);
-		expect(e.canUndo).toBe(false);
-		e.tryWhatIf(moveElementsTo({ key: { xM: -1, yM: 0 } }));
-		e.keepWhatIf();
-		expect(e.undoSteps).toBe(1);
-		e.undo();
-		expect(e.model.elements.key.xM).toBe(-0.5);
 	});
 });
 

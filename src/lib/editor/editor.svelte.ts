@@ -97,7 +97,6 @@ export class Editor implements ToolHost {
 	#pointers = new Map<number, Vec2>();
 	#primaryPointer: number | null = null;
 	#pinch: PinchGesture | null = null;
-	#whatIfMark: string | null = null;
 	#destroyed = false;
 	readonly #falloffService = new FalloffService();
 	#stopEffects: (() => void) | null = null;
@@ -318,7 +317,6 @@ export class Editor implements ToolHost {
 
 	undo() {
 		this.#cancelGesture();
-		this.#whatIfMark = null;
 		const diff = this.#history.undo();
 		if (diff) this.#apply(diff);
 		this.#historyVersion++;
@@ -326,7 +324,6 @@ export class Editor implements ToolHost {
 
 	redo() {
 		this.#cancelGesture();
-		this.#whatIfMark = null;
 		const diff = this.#history.redo();
 		if (diff) this.#apply(diff);
 		this.#historyVersion++;
@@ -336,30 +333,6 @@ export class Editor implements ToolHost {
 	get undoSteps(): number {
 		void this.#historyVersion;
 		return this.#history.undoSteps;
-	}
-
-	// ----- what-if: try a change without committing to it -----
-
-	/** Applies a trial change; each call replaces the previous trial. Keep or drop it afterwards. */
-	tryWhatIf(command: Command): CommandResult {
-		if (this.#whatIfMark && this.#history.hasMark(this.#whatIfMark)) this.bailToMark(this.#whatIfMark);
-		this.#whatIfMark = this.mark();
-		const result = this.applyInGesture(command);
-		if (!result.ok) this.dropWhatIf();
-		return result;
-	}
-	get whatIfActive(): boolean {
-		void this.#historyVersion;
-		return this.#whatIfMark !== null && this.#history.hasMark(this.#whatIfMark);
-	}
-	/** The trial becomes an ordinary undo step. */
-	keepWhatIf() {
-		this.#whatIfMark = null;
-		this.#historyVersion++;
-	}
-	dropWhatIf() {
-		if (this.#whatIfMark) this.bailToMark(this.#whatIfMark);
-		this.#whatIfMark = null;
 	}
 
 	// ----- the usual commands, on the selection or by id -----
@@ -702,10 +675,6 @@ export class Editor implements ToolHost {
 		if (shortcut.action === 'clear-selection') {
 			if (this.#tool.state.busy) {
 				this.#cancelGesture();
-				return true;
-			}
-			if (this.#whatIfMark) {
-				this.dropWhatIf();
 				return true;
 			}
 			if (this.#toolId !== 'select') {

@@ -10,6 +10,7 @@
  */
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import { LOWEST_POWER, nearestPowerStep } from '$lib/light/flash';
+import { length3 } from '$lib/light/geometry';
 import type { ContinuousElement, FlashElement } from './model/schema';
 import { toExposureScene } from './model/scene';
 import { subjectOf, type EditorModel } from './model/types';
@@ -102,8 +103,8 @@ export function whatIfPatch(model: EditorModel, light: WhatIfLight, change: What
 	let distanceM: number | null = null;
 	let oldDistanceM: number | null = null;
 	if (subject) {
-		const v = [light.xM - subject.xM, light.yM - subject.yM, light.heightM - subject.heightM];
-		oldDistanceM = Math.hypot(v[0], v[1], v[2]);
+		const v: [number, number, number] = [light.xM - subject.xM, light.yM - subject.yM, light.heightM - subject.heightM];
+		oldDistanceM = length3(v);
 		distanceM = oldDistanceM * factor;
 		if (change.distanceSixths !== 0) {
 			patch.xM = subject.xM + v[0] * factor;

@@ -9,6 +9,7 @@
 import { z } from 'zod';
 import { SKY_PRESET_NAMES, type SkyPreset } from './ambient';
 import { GEL_NAMES, type GelName } from './colour';
+import { distanceM } from './geometry';
 
 export const MAX_LIGHTS = 100;
 export const MAX_FLAGS = 100;
@@ -266,11 +267,7 @@ export function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): Sce
 		byId.set(light.id, light);
 	});
 	scene.lights.forEach((light, i) => {
-		const d = Math.hypot(
-			light.position[0] - scene.subject.position[0],
-			light.position[1] - scene.subject.position[1],
-			light.position[2] - scene.subject.position[2]
-		);
+		const d = distanceM(light.position, scene.subject.position);
 		if (light.kind !== 'reflector' && d < 0.001) {
 			issues.push({ path: ['lights', i, 'position'], message: 'is at the subject (closer than 1 mm)' });
 		}
@@ -285,11 +282,7 @@ export function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): Sce
 		} else if (source.kind === 'reflector') {
 			issues.push({ path: ['lights', i, 'source'], message: 'must be a flash, a continuous light or "ambient", not another reflector' });
 		} else {
-			const d1 = Math.hypot(
-				light.position[0] - source.position[0],
-				light.position[1] - source.position[1],
-				light.position[2] - source.position[2]
-			);
+			const d1 = distanceM(light.position, source.position);
 			if (d1 < 0.001) issues.push({ path: ['lights', i, 'position'], message: `is at its source "${source.id}" (closer than 1 mm)` });
 		}
 	});

@@ -37,5 +37,5 @@ export async function createSetupFrom(fetchFn: Fetch, values: NewSetupValues, do
 	if (r.ok) return { ok: true, id: r.data.id };
 	const errors = issuesByField(r.issues, ['studioId', 'title', 'subject']);
 	if (!Object.keys(errors).length || (r.status !== 400 && !errors.form)) errors.form = r.message;
-	return { ok: false, status: r.status === 400 ? 400 : r.status, errors };
+	return { ok: false, status: r.status, errors };
 }

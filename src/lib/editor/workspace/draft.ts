@@ -38,3 +38,12 @@ export function clearDraft(setupId: string) {
 		/* nothing kept, nothing to clear */
 	}
 }
+
+/**
+ * Writes the draft a moment from now, so a burst of edits makes one write; returns the cancel, for an
+ * `$effect` to return: `$effect(() => writeDraftSoon(id, () => draft))`.
+ */
+export function writeDraftSoon(setupId: string, draft: () => PlanDraft, delayMs = 300): () => void {
+	const t = setTimeout(() => writeDraft(setupId, draft()), delayMs);
+	return () => clearTimeout(t);
+}
