@@ -6,6 +6,7 @@
 import type { z } from 'zod';
 import { ambientCalc } from './ambient';
 import { colourCalc } from './colour';
+import { exposureAnswerJson, type ExposureJson } from './exposure-json';
 import { findNonFinite } from './finite';
 import { flashCalc } from './flash';
 import { opticsCalc } from './optics';
@@ -15,16 +16,22 @@ import { ambientCalcSchema, colourCalcSchema, exposureSceneSchema, flashCalcSche
 interface Calculation<S extends z.ZodType> {
 	schema: S;
 	compute: (input: z.output<S>) => unknown;
+	/** The answer written straight to JSON text, for a route whose answer is large (see exposure-json.ts). */
+	json?: (input: z.output<S>) => ExposureJson;
 }
 
-const define = <S extends z.ZodType>(schema: S, compute: (input: z.output<S>) => unknown): Calculation<S> => ({ schema, compute });
+const define = <S extends z.ZodType>(
+	schema: S,
+	compute: (input: z.output<S>) => unknown,
+	json?: (input: z.output<S>) => ExposureJson
+): Calculation<S> => ({ schema, compute, json });
 
 export const CALCULATIONS = {
 	'/api/v1/calc/flash': define(flashCalcSchema, flashCalc),
 	'/api/v1/calc/optics': define(opticsCalcSchema, opticsCalc),
 	'/api/v1/calc/ambient': define(ambientCalcSchema, ambientCalc),
 	'/api/v1/calc/colour': define(colourCalcSchema, colourCalc),
-	'/api/v1/exposure': define(exposureSceneSchema, computeExposure)
+	'/api/v1/exposure': define(exposureSceneSchema, computeExposure, exposureAnswerJson)
 } as const;
 
 export type CalculationPath = keyof typeof CALCULATIONS;
@@ -47,19 +54,42 @@ export function computeSafely<S extends z.ZodType>(calc: Calculation<S>, input: 
 	try {
 		data = calc.compute(input);
 	} catch (e) {
-		const why = e instanceof Error ? e.message : 'unknown error';
-		return { ok: false, stage: 'compute', message: `These values could not be worked out: ${why}`, issues: [{ path: [], message: why }] };
+		return couldNotCompute(e);
 	}
 	const bad = findNonFinite(data);
-	if (bad) {
-		return {
-			ok: false,
-			stage: 'compute',
-			message: `These values give no finite result (${bad.join('.')}); check the inputs are in range.`,
-			issues: [{ path: [], message: `no finite value for ${bad.join('.')}` }]
-		};
-	}
+	if (bad) return notFinite(bad);
 	return { ok: true, data };
+}
+
+export type CalculationJsonOutcome = { ok: true; json: string } | Extract<CalculationOutcome, { ok: false }>;
+
+/** `computeSafely` with the answer as JSON text: what the JSON routes send. */
+export function computeJsonSafely<S extends z.ZodType>(calc: Calculation<S>, input: z.output<S>): CalculationJsonOutcome {
+	if (!calc.json) {
+		const outcome = computeSafely(calc, input);
+		return outcome.ok ? { ok: true, json: JSON.stringify(outcome.data) } : outcome;
+	}
+	let written: ExposureJson;
+	try {
+		written = calc.json(input);
+	} catch (e) {
+		return couldNotCompute(e);
+	}
+	return written.ok ? written : notFinite(written.nonFinite);
+}
+
+function couldNotCompute(e: unknown): Extract<CalculationOutcome, { ok: false }> {
+	const why = e instanceof Error ? e.message : 'unknown error';
+	return { ok: false, stage: 'compute', message: `These values could not be worked out: ${why}`, issues: [{ path: [], message: why }] };
+}
+
+function notFinite(bad: string[]): Extract<CalculationOutcome, { ok: false }> {
+	return {
+		ok: false,
+		stage: 'compute',
+		message: `These values give no finite result (${bad.join('.')}); check the inputs are in range.`,
+		issues: [{ path: [], message: `no finite value for ${bad.join('.')}` }]
+	};
 }
 
 /** Validates a raw body and computes: the whole route without HTTP. */

@@ -101,7 +101,103 @@ function crossingFlag(a: Vec3, b: Vec3, flags: readonly Flag[]): string | undefi
 	return flags.find((f) => segmentsIntersect(pa, pb, f.from, f.to))?.id;
 }
 
-export function computeExposure(scene: ExposureScene): ExposureResult {
+/**
+ * The camera-only columns of one aperture-table row: they depend on the lens settings alone, not on the
+ * lights, so a scene whose lights move (as in the editor) reuses them. `shiftStops` = 2·log2(N_w / N_w,row)
+ * is what every light's stops gain at this row against the camera's own aperture.
+ */
+export interface ApertureColumns {
+	readonly aperture: number;
+	readonly label: string;
+	readonly workingAperture: number;
+	readonly shiftStops: number;
+	readonly dofMm: number | null;
+	readonly airyDiskUm: number;
+	readonly diffractionLimited: boolean;
+}
+
+/** Everything of the answer but the aperture table, and what the table is made of. */
+export interface ExposureParts {
+	answer: Omit<ExposureResult, 'apertureTable'>;
+	columns: readonly ApertureColumns[];
+	totalStops: number | null;
+	flashStops: number | null;
+	shutterStops: number | null;
+}
+
+type Camera = ExposureScene['camera'];
+
+/** The lens settings the aperture table depends on, with their defaults filled in. */
+interface LensSettings {
+	aperture: number;
+	magnification: number;
+	pupil: number;
+	coc: number;
+	lambda: number;
+	minA: number;
+	maxA: number;
+}
+
+const lensSettings = (cam: Camera): LensSettings => ({
+	aperture: cam.aperture,
+	magnification: cam.magnification,
+	pupil: cam.pupilMagnification ?? 1,
+	coc: cam.cocMm ?? 0.03,
+	lambda: cam.wavelengthNm ?? 550,
+	minA: cam.minAperture ?? DEFAULT_MIN_APERTURE,
+	maxA: cam.maxAperture ?? DEFAULT_MAX_APERTURE
+});
+
+/** The last few lens settings seen, newest first: a handful of cameras at once, compared field by field. */
+const recentColumns: { lens: LensSettings; columns: readonly ApertureColumns[] }[] = [];
+const COLUMN_MEMO_SIZE = 8;
+
+/** The aperture table's camera-only columns for `cam` (whose working aperture is `wa`), memoised. */
+export function apertureColumns(cam: Camera, wa: number): readonly ApertureColumns[] {
+	const lens = lensSettings(cam);
+	for (const { lens: m, columns } of recentColumns) {
+		if (
+			m.aperture === lens.aperture &&
+			m.magnification === lens.magnification &&
+			m.pupil === lens.pupil &&
+			m.coc === lens.coc &&
+			m.lambda === lens.lambda &&
+			m.minA === lens.minA &&
+			m.maxA === lens.maxA
+		) {
+			return columns;
+		}
+	}
+	const columns = buildApertureColumns(cam, wa);
+	recentColumns.unshift({ lens, columns });
+	if (recentColumns.length > COLUMN_MEMO_SIZE) recentColumns.pop();
+	return columns;
+}
+
+/** `apertureColumns` without the memo. */
+export function buildApertureColumns(cam: Camera, wa: number): readonly ApertureColumns[] {
+	const { magnification, pupil, coc, lambda, minA, maxA } = lensSettings(cam);
+	const tol = 1e-9;
+	const columns = THIRD_STOP_APERTURES.filter(
+		(a) => a.nominal >= minA * (1 - tol) - 0.001 && a.nominal <= maxA * (1 + tol) + 0.001
+	).map((a): ApertureColumns => {
+		const rowWa = workingAperture(a.exact, magnification, pupil);
+		const airy = airyDiskUm(rowWa, lambda);
+		return Object.freeze({
+			aperture: a.exact,
+			label: a.label,
+			workingAperture: rowWa,
+			shiftStops: 2 * Math.log2(wa / rowWa),
+			dofMm: finiteOrNull(magnification > 0 ? closeUpDepthOfFieldMm(a.exact, magnification, coc, pupil) : null),
+			airyDiskUm: airy,
+			diffractionLimited: airy > coc * 1000
+		});
+	});
+	return Object.freeze(columns);
+}
+
+/** The whole computation; `computeExposure` assembles the answer from it, the exposure route writes it. */
+export function exposureParts(scene: ExposureScene): ExposureParts {
 	const cam = scene.camera;
 	const P = cam.pupilMagnification ?? 1;
 	const coc = cam.cocMm ?? 0.03;
@@ -205,28 +301,12 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	const runnerUp = ranked[1];
 	const lightingRatio = key && runnerUp && runnerUp.x > 0 ? key.x / runnerUp.x : null;
 
-	// The aperture table: every contribution scales with 1/N_w², so each row rescales the totals.
-	const minA = cam.minAperture ?? DEFAULT_MIN_APERTURE;
-	const maxA = cam.maxAperture ?? DEFAULT_MAX_APERTURE;
-	const tol = 1e-9;
-	const apertureTable: ApertureRow[] = THIRD_STOP_APERTURES.filter(
-		(a) => a.nominal >= minA * (1 - tol) - 0.001 && a.nominal <= maxA * (1 + tol) + 0.001
-	).map((a) => {
-		const rowWa = workingAperture(a.exact, cam.magnification, P);
-		const scale = (wa / rowWa) ** 2;
-		const airy = airyDiskUm(rowWa, lambda);
-		return {
-			aperture: a.exact,
-			label: a.label,
-			workingAperture: rowWa,
-			exposureOffsetStops: stopsOf(totalX * scale),
-			flashOffsetStops: stopsOf(flashX * scale),
-			ambientOffsetStops: stopsOf(shutterX * scale),
-			dofMm: finiteOrNull(cam.magnification > 0 ? closeUpDepthOfFieldMm(a.exact, cam.magnification, coc, P) : null),
-			airyDiskUm: airy,
-			diffractionLimited: airy > coc * 1000
-		};
-	});
+	// The aperture table: every contribution scales with 1/N_w², so each row shifts the totals' stops by
+	// the row's own `shiftStops`; its camera-only columns come from `apertureColumns`.
+	const columns = apertureColumns(cam, wa);
+	const totalStops = stopsOf(totalX);
+	const flashStops = stopsOf(flashX);
+	const shutterStops = stopsOf(shutterX);
 
 	const warnings: string[] = [];
 	const flashes = scene.lights.filter((l): l is FlashLight => l.kind === 'flash');
@@ -242,7 +322,6 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 			warnings.push(`${head}: high-speed sync on ${hss.map((id) => `“${id}”`).join(', ')} costs about ${cost.toFixed(1)} stops (${HSS_ENTRY_LOSS_STOPS} stop for pulsed output plus the shutter's share of the slit travel; the flash's manual has the real figure).`);
 		}
 	}
-	const totalStops = stopsOf(totalX);
 	if (totalStops === null) {
 		warnings.push('No light reaches the subject.');
 	} else if (Math.abs(totalStops) > EXPOSURE_WARNING_STOPS) {
@@ -266,15 +345,48 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 
 	const cautionDetails = sceneCautions(scene);
 	return {
-		workingAperture: wa,
-		lights: results,
-		total: { x: totalX, exposureOffsetStops: totalStops },
-		keyLightId: key?.id ?? null,
-		lightingRatio,
-		apertureTable,
-		whiteBalance,
-		warnings,
-		cautions: cautionDetails.map((c) => c.message),
-		cautionDetails
+		answer: {
+			workingAperture: wa,
+			lights: results,
+			total: { x: totalX, exposureOffsetStops: totalStops },
+			keyLightId: key?.id ?? null,
+			lightingRatio,
+			whiteBalance,
+			warnings,
+			cautions: cautionDetails.map((c) => c.message),
+			cautionDetails
+		},
+		columns,
+		totalStops,
+		flashStops,
+		shutterStops
 	};
+}
+
+/**
+ * The aperture table gives its stops to a millionth of a stop: far finer than any meter or eye, and the
+ * shorter numbers are much quicker to write as text (a table is 66 of them on every request).
+ */
+export const TABLE_STOPS_DECIMALS = 6;
+const TABLE_STOPS_SCALE = 10 ** TABLE_STOPS_DECIMALS;
+
+/** A row's stops: the light's stops at the camera's aperture moved by the row's shift (null stays null). */
+export const shifted = (stops: number | null, shiftStops: number) =>
+	stops === null ? null : Math.round((stops + shiftStops) * TABLE_STOPS_SCALE) / TABLE_STOPS_SCALE;
+
+export function computeExposure(scene: ExposureScene): ExposureResult {
+	const { answer, columns, totalStops, flashStops, shutterStops } = exposureParts(scene);
+	const apertureTable: ApertureRow[] = columns.map((c) => ({
+		aperture: c.aperture,
+		label: c.label,
+		workingAperture: c.workingAperture,
+		exposureOffsetStops: shifted(totalStops, c.shiftStops),
+		flashOffsetStops: shifted(flashStops, c.shiftStops),
+		ambientOffsetStops: shifted(shutterStops, c.shiftStops),
+		dofMm: c.dofMm,
+		airyDiskUm: c.airyDiskUm,
+		diffractionLimited: c.diffractionLimited
+	}));
+	const { workingAperture, lights, total, keyLightId, lightingRatio, whiteBalance, warnings, cautions, cautionDetails } = answer;
+	return { workingAperture, lights, total, keyLightId, lightingRatio, apertureTable, whiteBalance, warnings, cautions, cautionDetails };
 }

@@ -7,7 +7,7 @@ import type { RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiError, DEFAULT_MAX_BODY_BYTES, parseJsonBody } from '$lib/server/http';
 import { fastAcceptor, type Acceptor } from '$lib/server/fast-accept';
-import { CALCULATIONS, computeSafely, type CalculationPath } from '$lib/light/calculations';
+import { CALCULATIONS, computeJsonSafely, type CalculationPath } from '$lib/light/calculations';
 import { exposureSceneShape, sceneRuleIssues } from '$lib/light/schema';
 
 /**
@@ -19,14 +19,14 @@ const FAST_ACCEPTORS: Partial<Record<CalculationPath, () => Acceptor<unknown>>> 
 };
 
 export function calculationRoute(path: CalculationPath): RequestHandler {
-	const calc = CALCULATIONS[path] as { schema: z.ZodType; compute: (input: unknown) => unknown };
+	const calc = CALCULATIONS[path] as Parameters<typeof computeJsonSafely<z.ZodType>>[0];
 	const fast = FAST_ACCEPTORS[path]?.();
 	return async ({ request }) => {
 		const parsed = await parseJsonBody(request, calc.schema, DEFAULT_MAX_BODY_BYTES, fast);
 		if (!parsed.ok) return parsed.response;
-		const outcome = computeSafely(calc, parsed.data);
+		const outcome = computeJsonSafely(calc, parsed.data);
 		if (!outcome.ok) return apiError(400, outcome.message, outcome.issues);
-		return jsonResponse(outcome.data);
+		return jsonResponse(outcome.json);
 	};
 }
 
@@ -34,8 +34,8 @@ export function calculationRoute(path: CalculationPath): RequestHandler {
  * Like kit's `json()`, but the text is encoded once: `json()` encodes it to count the bytes and the
  * response encodes it again when it is sent. The exposure answer is several kilobytes, so this shows.
  */
-function jsonResponse(result: unknown): Response {
-	const bytes = Buffer.from(JSON.stringify(result), 'utf8');
+function jsonResponse(text: string): Response {
+	const bytes = Buffer.from(text, 'utf8');
 	return new Response(bytes, {
 		headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength), 'cache-control': 'no-store' }
 	});
