@@ -1,7 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { exposureAnswerJson } from './exposure-json';
-import { apertureColumns, buildApertureColumns, computeExposure } from './scene';
+import { exposureAnswerJson, tableStopsText } from './exposure-json';
+import { apertureColumns, buildApertureColumns, computeExposure, shifted } from './scene';
 import { exposureSceneSchema, type ExposureScene } from './schema';
 import { workingAperture } from './optics';
 
@@ -89,6 +89,22 @@ describe('exposureAnswerJson (the exposure route writes its answer itself)', () 
 			expect(Math.abs(row.exposureOffsetStops - exact)).toBeLessThanOrEqual(5e-7 + 1e-12);
 			expect(String(row.exposureOffsetStops).split('.')[1]?.length ?? 0).toBeLessThanOrEqual(6);
 		}
+	});
+
+	it('writes table stops that read back as exactly the rounded stops of the general path', () => {
+		fc.assert(
+			fc.property(fc.oneof(fc.double({ min: -1e6, max: 1e6, noNaN: true }), fc.double({ min: -1e-5, max: 1e-5, noNaN: true })), (stops) => {
+				const text = tableStopsText(stops);
+				expect(text).toMatch(/^-?\d+\.\d{6}$/);
+				expect(JSON.parse(text) === shifted(stops, 0)).toBe(true); // === : the general path writes −0 as 0
+			}),
+			{ numRuns: 5000 }
+		);
+		expect(tableStopsText(-0.26549)).toBe('-0.265490');
+		expect(tableStopsText(-1e-7)).toBe('0.000000');
+		expect(tableStopsText(12.5)).toBe('12.500000');
+		expect(tableStopsText(null)).toBe('null');
+		expect(JSON.parse(tableStopsText(1e300))).toBe(1e300);
 	});
 
 	it('names a number that is not finite instead of writing null', () => {

@@ -9,7 +9,7 @@
  * null without a word) and names where it is instead.
  */
 import { findNonFinite } from './finite';
-import { exposureParts, shifted, type ApertureColumns } from './scene';
+import { exposureParts, TABLE_STOPS_DECIMALS, type ApertureColumns } from './scene';
 import type { ExposureScene } from './schema';
 
 export type ExposureJson = { ok: true; json: string } | { ok: false; nonFinite: string[] };
@@ -43,6 +43,27 @@ function tableText(columns: readonly ApertureColumns[]): TableText {
 	return text;
 }
 
+const SCALE = 10 ** TABLE_STOPS_DECIMALS;
+
+/**
+ * `stops` rounded as the table rounds it (`shifted` in scene.ts), written with all its decimals
+ * ("-0.265490"): the digits of an integer, which are several times quicker to write than a double's
+ * shortest form. JSON reads it back as the same number. Null stays null; a value too large for the
+ * integer digits (none the schema allows) is written the ordinary way.
+ */
+export function tableStopsText(stops: number | null): string {
+	if (stops === null) return 'null';
+	let units = Math.round(stops * SCALE);
+	if (!(Math.abs(units) < Number.MAX_SAFE_INTEGER)) return String(units / SCALE);
+	let sign = '';
+	if (units < 0) {
+		units = -units;
+		sign = '-';
+	} else if (Object.is(units, -0)) units = 0;
+	const whole = Math.floor(units / SCALE);
+	return `${sign}${whole}.${String(units - whole * SCALE + SCALE).slice(1)}`;
+}
+
 export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 	const { answer, columns, totalStops, flashStops, shutterStops } = exposureParts(scene);
 	const table = tableText(columns);
@@ -52,15 +73,15 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 	const rows: string[] = new Array(columns.length);
 	for (let i = 0; i < columns.length; i++) {
 		const shift = columns[i].shiftStops;
-		const e = shifted(totalStops, shift);
-		const f = shifted(flashStops, shift);
-		const a = shifted(shutterStops, shift);
+		const e = totalStops === null ? null : totalStops + shift;
+		const f = flashStops === null ? null : flashStops + shift;
+		const a = shutterStops === null ? null : shutterStops + shift;
 		// Finite stops plus a finite shift can still overflow; say so as the general path would.
 		if (!(e === null || Number.isFinite(e))) return { ok: false, nonFinite: ['apertureTable', String(i), 'exposureOffsetStops'] };
 		if (!(f === null || Number.isFinite(f))) return { ok: false, nonFinite: ['apertureTable', String(i), 'flashOffsetStops'] };
 		if (!(a === null || Number.isFinite(a))) return { ok: false, nonFinite: ['apertureTable', String(i), 'ambientOffsetStops'] };
 		const row = table.rows[i];
-		rows[i] = `${row.head}${e},"flashOffsetStops":${f},"ambientOffsetStops":${a}${row.tail}`;
+		rows[i] = `${row.head}${tableStopsText(e)},"flashOffsetStops":${tableStopsText(f)},"ambientOffsetStops":${tableStopsText(a)}${row.tail}`;
 	}
 	const rest = JSON.stringify(answer);
 	return { ok: true, json: `${rest.slice(0, -1)},"apertureTable":[${rows.join(',')}]}` };

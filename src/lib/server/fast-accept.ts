@@ -23,7 +23,38 @@ const logger = {
 	},
 	error: console.error
 };
-const ajv = new Ajv2020({ strict: false, allErrors: false, validateFormats: false, unicode: false, logger });
+const ajv = new Ajv2020({ strict: false, allErrors: false, validateFormats: false, unicode: false, discriminator: true, logger });
+
+type JsonSchema = { [key: string]: unknown };
+
+/**
+ * zod writes a discriminated union as a plain `oneOf`, which Ajv checks by trying every branch (a light
+ * against the flash, the continuous light and the reflector). Where each branch fixes the same required
+ * property to its own constant, Ajv's `discriminator` picks the one branch to check: the same verdict,
+ * since no two branches can share that constant (and every branch is an object).
+ */
+function markDiscriminators(node: unknown): void {
+	if (Array.isArray(node)) return node.forEach(markDiscriminators);
+	if (!node || typeof node !== 'object') return;
+	const schema = node as JsonSchema;
+	Object.values(schema).forEach(markDiscriminators);
+	const branches = schema.oneOf as JsonSchema[] | undefined;
+	if (!Array.isArray(branches) || !branches.length) return;
+	const tag = (b: JsonSchema, key: string) => ((b.properties as Record<string, JsonSchema> | undefined)?.[key]?.const as unknown);
+	const first = branches[0].properties as Record<string, JsonSchema> | undefined;
+	const key = Object.keys(first ?? {}).find((k) => {
+		const consts = branches.map((b) => tag(b, k));
+		return (
+			consts.every((c) => typeof c === 'string') &&
+			new Set(consts).size === branches.length &&
+			branches.every((b) => Array.isArray(b.required) && b.required.includes(k))
+		);
+	});
+	if (!key || !branches.every((b) => b.type === 'object')) return;
+	// Ajv applies `discriminator` to objects only, and skips the `oneOf` it replaces: say "object" here.
+	schema.discriminator = { propertyName: key };
+	schema.type = 'object';
+}
 
 /**
  * A check that says yes only to a body `schema` would accept unchanged. `rules` are the schema's rules
@@ -34,6 +65,7 @@ export function fastAcceptor<S extends z.ZodType>(schema: S, rules: (value: z.ou
 	if (JSON.stringify(json).includes('"default"')) {
 		throw new Error('fastAcceptor: the schema has defaults, so its output differs from its input; validate it with zod');
 	}
+	markDiscriminators(json);
 	const validate = ajv.compile(json);
 	return (raw: unknown): raw is z.output<S> => validate(raw) === true && rules(raw as z.output<S>).length === 0;
 }

@@ -34,8 +34,9 @@ export function calculationRoute(path: CalculationPath): RequestHandler {
  * Like kit's `json()`, but the text is encoded once: `json()` encodes it to count the bytes and the
  * response encodes it again when it is sent. The exposure answer is several kilobytes, so this shows.
  */
+const encoder = new TextEncoder();
 function jsonResponse(text: string): Response {
-	const bytes = Buffer.from(text, 'utf8');
+	const bytes = encoder.encode(text);
 	return new Response(bytes, {
 		headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength), 'cache-control': 'no-store' }
 	});
