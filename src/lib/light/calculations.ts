@@ -16,7 +16,7 @@ import { ambientCalcSchema, colourCalcSchema, exposureSceneSchema, flashCalcSche
 interface Calculation<S extends z.ZodType> {
 	schema: S;
 	compute: (input: z.output<S>) => unknown;
-	/** The answer written straight to JSON text, for a route whose answer is large (see exposure-json.ts). */
+	/** The answer written straight to JSON bytes, for a route whose answer is large (see exposure-json.ts). */
 	json?: (input: z.output<S>) => ExposureJson;
 }
 
@@ -61,13 +61,15 @@ export function computeSafely<S extends z.ZodType>(calc: Calculation<S>, input: 
 	return { ok: true, data };
 }
 
-export type CalculationJsonOutcome = { ok: true; json: string } | Extract<CalculationOutcome, { ok: false }>;
+export type CalculationJsonOutcome = { ok: true; bytes: Uint8Array<ArrayBuffer> } | Extract<CalculationOutcome, { ok: false }>;
 
-/** `computeSafely` with the answer as JSON text: what the JSON routes send. */
+const encoder = new TextEncoder();
+
+/** `computeSafely` with the answer as UTF-8 JSON: what the JSON routes send. */
 export function computeJsonSafely<S extends z.ZodType>(calc: Calculation<S>, input: z.output<S>): CalculationJsonOutcome {
 	if (!calc.json) {
 		const outcome = computeSafely(calc, input);
-		return outcome.ok ? { ok: true, json: JSON.stringify(outcome.data) } : outcome;
+		return outcome.ok ? { ok: true, bytes: encoder.encode(JSON.stringify(outcome.data)) } : outcome;
 	}
 	let written: ExposureJson;
 	try {

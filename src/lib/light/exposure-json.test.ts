@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { exposureAnswerJson, tableStopsText } from './exposure-json';
+import { exposureAnswerJson, writeTableStops } from './exposure-json';
 import { apertureColumns, buildApertureColumns, computeExposure, shifted } from './scene';
 import { exposureSceneSchema, type ExposureScene } from './schema';
 import { workingAperture } from './optics';
@@ -30,7 +30,11 @@ const generalAnswer = (s: ExposureScene) => JSON.parse(JSON.stringify(computeExp
 const writtenAnswer = (s: ExposureScene) => {
 	const out = exposureAnswerJson(s);
 	if (!out.ok) throw new Error(`not finite: ${out.nonFinite.join('.')}`);
-	return JSON.parse(out.json);
+	return JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(out.bytes));
+};
+const tableStopsText = (stops: number | null) => {
+	const out = new Uint8Array(32);
+	return new TextDecoder().decode(out.subarray(0, writeTableStops(out, 0, stops)));
 };
 
 describe('exposureAnswerJson (the exposure route writes its answer itself)', () => {
@@ -43,6 +47,14 @@ describe('exposureAnswerJson (the exposure route writes its answer itself)', () 
 		expect(answer.cautions.length).toBeGreaterThan(0);
 		expect(answer.lights.find((l: { id: string }) => l.id === 'lamp').blockedBy).toBe('cutter');
 		expect(answer.lights.find((l: { id: string }) => l.id === 'sill').sourceBlocked).toBe(true);
+	});
+
+	it('writes any light name as UTF-8 (accents, other scripts, emoji)', () => {
+		const raw = structuredClone(scene);
+		raw.lights[0].id = 'Lumière 主光 💡'.repeat(6);
+		raw.lights[3].source = raw.lights[0].id;
+		const s = parsedScene(raw);
+		expect(writtenAnswer(s)).toEqual(generalAnswer(s));
 	});
 
 	it('agrees with the general path for 500 scenes with lights moved, powers changed and cameras reset', () => {

@@ -1,9 +1,10 @@
 /**
- * The `POST /api/v1/exposure` answer written as JSON text, for the route. It is the same answer as
- * `JSON.stringify(computeExposure(scene))` (a test holds the two equal), written without the aperture
- * table's row objects: each row's camera-only columns are turned into text once per lens setting (they
- * come memoised from `apertureColumns`), and a request writes only the three offset columns. The table is
- * most of the answer, and turning its numbers into text was most of the route's own cost.
+ * The `POST /api/v1/exposure` answer written as JSON (UTF-8 bytes), for the route. It is the same answer
+ * as `JSON.stringify(computeExposure(scene))` (a test holds the two equal), written without the aperture
+ * table's row objects: each row's camera-only columns are encoded once per lens setting (they come
+ * memoised from `apertureColumns`), and a request writes only the three offset columns, straight into
+ * the bytes. The table is most of the answer, and turning its numbers into text was most of the route's
+ * own cost.
  *
  * Like the route's general path, it refuses to write a number that is not finite (JSON would make it
  * null without a word) and names where it is instead.
@@ -12,65 +13,104 @@ import { findNonFinite } from './finite';
 import { exposureParts, TABLE_STOPS_DECIMALS, type ApertureColumns } from './scene';
 import type { ExposureScene } from './schema';
 
-export type ExposureJson = { ok: true; json: string } | { ok: false; nonFinite: string[] };
+export type ExposureJson = { ok: true; bytes: Uint8Array<ArrayBuffer> } | { ok: false; nonFinite: string[] };
 
-interface RowText {
-	/** `{"aperture":…,"label":…,"workingAperture":…,"exposureOffsetStops":` */
-	head: string;
-	/** `,"dofMm":…,"airyDiskUm":…,"diffractionLimited":…}` */
-	tail: string;
-}
-interface TableText {
-	rows: RowText[];
+const encoder = new TextEncoder();
+
+interface TableBytes {
+	/** UTF-8 of `{"aperture":…,"label":…,"workingAperture":…,"exposureOffsetStops":` per row. */
+	heads: Uint8Array[];
+	/** UTF-8 of `,"dofMm":…,"airyDiskUm":…,"diffractionLimited":…}` per row. */
+	tails: Uint8Array[];
+	/** The bytes every request writes for the table besides its 3 stops a row. */
+	fixedBytes: number;
 	/** Where a camera-only column is not finite, if one is. */
 	nonFinite: string[] | null;
 }
 
-const tableTexts = new WeakMap<readonly ApertureColumns[], TableText>();
+const FLASH_KEY = encoder.encode(',"flashOffsetStops":');
+const AMBIENT_KEY = encoder.encode(',"ambientOffsetStops":');
+const TABLE_KEY = encoder.encode(',"apertureTable":[');
+/** The most bytes one table stops value can take ("-" + 16 digits + "." + 6, or a double's own form). */
+const MAX_STOPS_BYTES = 26;
 
-function tableText(columns: readonly ApertureColumns[]): TableText {
-	let text = tableTexts.get(columns);
-	if (text) return text;
+const tableBytes = new WeakMap<readonly ApertureColumns[], TableBytes>();
+
+function tableBytesFor(columns: readonly ApertureColumns[]): TableBytes {
+	let bytes = tableBytes.get(columns);
+	if (bytes) return bytes;
 	const bad = findNonFinite(columns);
-	text = {
-		nonFinite: bad ? ['apertureTable', ...bad] : null,
-		rows: columns.map((c) => ({
-			head: `{"aperture":${c.aperture},"label":${JSON.stringify(c.label)},"workingAperture":${c.workingAperture},"exposureOffsetStops":`,
-			tail: `,"dofMm":${c.dofMm},"airyDiskUm":${c.airyDiskUm},"diffractionLimited":${c.diffractionLimited}}`
-		}))
-	};
-	tableTexts.set(columns, text);
-	return text;
+	const heads = columns.map((c) =>
+		encoder.encode(`{"aperture":${c.aperture},"label":${JSON.stringify(c.label)},"workingAperture":${c.workingAperture},"exposureOffsetStops":`)
+	);
+	const tails = columns.map((c) => encoder.encode(`,"dofMm":${c.dofMm},"airyDiskUm":${c.airyDiskUm},"diffractionLimited":${c.diffractionLimited}}`));
+	const perRow = FLASH_KEY.length + AMBIENT_KEY.length + 1; // and the comma between rows
+	const fixedBytes = heads.reduce((n, h, i) => n + h.length + tails[i].length + perRow, TABLE_KEY.length + 2);
+	bytes = { heads, tails, fixedBytes, nonFinite: bad ? ['apertureTable', ...bad] : null };
+	tableBytes.set(columns, bytes);
+	return bytes;
 }
 
 const SCALE = 10 ** TABLE_STOPS_DECIMALS;
 
-/**
- * `stops` rounded as the table rounds it (`shifted` in scene.ts), written with all its decimals
- * ("-0.265490"): the digits of an integer, which are several times quicker to write than a double's
- * shortest form. JSON reads it back as the same number. Null stays null; a value too large for the
- * integer digits (none the schema allows) is written the ordinary way.
- */
-export function tableStopsText(stops: number | null): string {
-	if (stops === null) return 'null';
-	let units = Math.round(stops * SCALE);
-	if (!(Math.abs(units) < Number.MAX_SAFE_INTEGER)) return String(units / SCALE);
-	let sign = '';
-	if (units < 0) {
-		units = -units;
-		sign = '-';
-	} else if (Object.is(units, -0)) units = 0;
-	const whole = Math.floor(units / SCALE);
-	return `${sign}${whole}.${String(units - whole * SCALE + SCALE).slice(1)}`;
+/** Writes the digits of a whole number `n` ≥ 0 at `at`; returns where they end. */
+function writeWhole(out: Uint8Array, at: number, n: number): number {
+	let length = 1;
+	for (let p = 10; p <= n; p *= 10) length++;
+	for (let i = length - 1; i >= 0; i--) {
+		const rest = Math.floor(n / 10);
+		out[at + i] = 48 + (n - rest * 10);
+		n = rest;
+	}
+	return at + length;
 }
 
+/**
+ * Writes `stops` rounded as the table rounds it (`shifted` in scene.ts) with all its decimals
+ * ("-0.265490"), digit by digit from the integer count of millionths: several times quicker than a
+ * double's shortest form, and JSON reads it back as the same number. Null is written as null; a value
+ * too large for the integer digits (none the schema allows) is written the ordinary way.
+ */
+export function writeTableStops(out: Uint8Array, at: number, stops: number | null): number {
+	if (stops === null) {
+		out[at] = 110; // n
+		out[at + 1] = 117; // u
+		out[at + 2] = 108; // l
+		out[at + 3] = 108; // l
+		return at + 4;
+	}
+	let units = Math.round(stops * SCALE);
+	if (!(Math.abs(units) < Number.MAX_SAFE_INTEGER)) return at + encoder.encodeInto(String(units / SCALE), out.subarray(at)).written;
+	if (units < 0) {
+		out[at++] = 45; // -
+		units = -units;
+	}
+	const whole = Math.floor(units / SCALE);
+	at = writeWhole(out, at, whole);
+	out[at++] = 46; // .
+	let fraction = units - whole * SCALE;
+	for (let i = TABLE_STOPS_DECIMALS - 1; i >= 0; i--) {
+		const rest = Math.floor(fraction / 10);
+		out[at + i] = 48 + (fraction - rest * 10);
+		fraction = rest;
+	}
+	return at + TABLE_STOPS_DECIMALS;
+}
+
+/** The answer as UTF-8 bytes, ready to send. */
 export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 	const { answer, columns, totalStops, flashStops, shutterStops } = exposureParts(scene);
-	const table = tableText(columns);
+	const table = tableBytesFor(columns);
 	if (table.nonFinite) return { ok: false, nonFinite: table.nonFinite };
 	const bad = findNonFinite(answer);
 	if (bad) return { ok: false, nonFinite: bad };
-	const rows: string[] = new Array(columns.length);
+	const rest = JSON.stringify(answer);
+	// UTF-8 takes at most 3 bytes per UTF-16 unit.
+	const out = new Uint8Array(rest.length * 3 + table.fixedBytes + columns.length * 3 * MAX_STOPS_BYTES);
+	// The rest of the answer without its closing brace, then the table as its last member.
+	let at = encoder.encodeInto(rest, out).written - 1;
+	out.set(TABLE_KEY, at);
+	at += TABLE_KEY.length;
 	for (let i = 0; i < columns.length; i++) {
 		const shift = columns[i].shiftStops;
 		const e = totalStops === null ? null : totalStops + shift;
@@ -80,9 +120,17 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 		if (!(e === null || Number.isFinite(e))) return { ok: false, nonFinite: ['apertureTable', String(i), 'exposureOffsetStops'] };
 		if (!(f === null || Number.isFinite(f))) return { ok: false, nonFinite: ['apertureTable', String(i), 'flashOffsetStops'] };
 		if (!(a === null || Number.isFinite(a))) return { ok: false, nonFinite: ['apertureTable', String(i), 'ambientOffsetStops'] };
-		const row = table.rows[i];
-		rows[i] = `${row.head}${tableStopsText(e)},"flashOffsetStops":${tableStopsText(f)},"ambientOffsetStops":${tableStopsText(a)}${row.tail}`;
+		if (i > 0) out[at++] = 44; // ,
+		out.set(table.heads[i], at);
+		at = writeTableStops(out, at + table.heads[i].length, e);
+		out.set(FLASH_KEY, at);
+		at = writeTableStops(out, at + FLASH_KEY.length, f);
+		out.set(AMBIENT_KEY, at);
+		at = writeTableStops(out, at + AMBIENT_KEY.length, a);
+		out.set(table.tails[i], at);
+		at += table.tails[i].length;
 	}
-	const rest = JSON.stringify(answer);
-	return { ok: true, json: `${rest.slice(0, -1)},"apertureTable":[${rows.join(',')}]}` };
+	out[at++] = 93; // ]
+	out[at++] = 125; // }
+	return { ok: true, bytes: out.subarray(0, at) };
 }
