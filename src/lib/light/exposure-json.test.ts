@@ -49,6 +49,14 @@ describe('exposureAnswerJson (the exposure route writes its answer itself)', () 
 		expect(answer.lights.find((l: { id: string }) => l.id === 'sill').sourceBlocked).toBe(true);
 	});
 
+	it('writes an empty table when no marked aperture falls in the range', () => {
+		const raw = structuredClone(scene);
+		Object.assign(raw.camera, { minAperture: 3.0, maxAperture: 3.1 });
+		const s = parsedScene(raw);
+		expect(writtenAnswer(s).apertureTable).toEqual([]);
+		expect(writtenAnswer(s)).toEqual(generalAnswer(s));
+	});
+
 	it('writes any light name as UTF-8 (accents, other scripts, emoji)', () => {
 		const raw = structuredClone(scene);
 		raw.lights[0].id = 'Lumière 主光 💡'.repeat(6);

@@ -18,11 +18,12 @@ export type ExposureJson = { ok: true; bytes: Uint8Array<ArrayBuffer> } | { ok: 
 const encoder = new TextEncoder();
 
 interface TableBytes {
-	/** UTF-8 of `{"aperture":…,"label":…,"workingAperture":…,"exposureOffsetStops":` per row. */
-	heads: Uint8Array[];
-	/** UTF-8 of `,"dofMm":…,"airyDiskUm":…,"diffractionLimited":…}` per row. */
-	tails: Uint8Array[];
-	/** The bytes every request writes for the table besides its 3 stops a row. */
+	/**
+	 * The table's fixed bytes around each row's three stops: `[{"aperture":…,"exposureOffsetStops":`
+	 * first, then `,"dofMm":…},{"aperture":…,"exposureOffsetStops":` between rows, and `…}]` last.
+	 */
+	between: Uint8Array[];
+	/** All the bytes a request writes for the table besides its stops. */
 	fixedBytes: number;
 	/** Where a camera-only column is not finite, if one is. */
 	nonFinite: string[] | null;
@@ -30,24 +31,46 @@ interface TableBytes {
 
 const FLASH_KEY = encoder.encode(',"flashOffsetStops":');
 const AMBIENT_KEY = encoder.encode(',"ambientOffsetStops":');
-const TABLE_KEY = encoder.encode(',"apertureTable":[');
+const TABLE_KEY = encoder.encode(',"apertureTable":');
+/** Where a row's three stops go in the table written with nulls for them. */
+const STOPS_GAP = 'null,"flashOffsetStops":null,"ambientOffsetStops":null';
 /** The most bytes one table stops value can take ("-" + 16 digits + "." + 6, or a double's own form). */
 const MAX_STOPS_BYTES = 26;
 
-const tableBytes = new WeakMap<readonly ApertureColumns[], TableBytes>();
+/** The byte forms of the last few tables, newest first (the same tables `apertureColumns` keeps). */
+const recentTables: { columns: readonly ApertureColumns[]; bytes: TableBytes }[] = [];
+const TABLE_MEMO_SIZE = 8;
 
 function tableBytesFor(columns: readonly ApertureColumns[]): TableBytes {
-	let bytes = tableBytes.get(columns);
-	if (bytes) return bytes;
-	const bad = findNonFinite(columns);
-	const heads = columns.map((c) =>
-		encoder.encode(`{"aperture":${c.aperture},"label":${JSON.stringify(c.label)},"workingAperture":${c.workingAperture},"exposureOffsetStops":`)
+	for (const m of recentTables) if (m.columns === columns) return m.bytes;
+	// The table written once with null stops, in API.md's order, and cut where the stops go. Its text is
+	// all ASCII (numbers, "f/…" labels, booleans, null), so characters and bytes count alike.
+	const text = JSON.stringify(
+		columns.map((c) => ({
+			aperture: c.aperture,
+			label: c.label,
+			workingAperture: c.workingAperture,
+			exposureOffsetStops: null,
+			flashOffsetStops: null,
+			ambientOffsetStops: null,
+			dofMm: c.dofMm,
+			airyDiskUm: c.airyDiskUm,
+			diffractionLimited: c.diffractionLimited
+		}))
 	);
-	const tails = columns.map((c) => encoder.encode(`,"dofMm":${c.dofMm},"airyDiskUm":${c.airyDiskUm},"diffractionLimited":${c.diffractionLimited}}`));
-	const perRow = FLASH_KEY.length + AMBIENT_KEY.length + 1; // and the comma between rows
-	const fixedBytes = heads.reduce((n, h, i) => n + h.length + tails[i].length + perRow, TABLE_KEY.length + 2);
-	bytes = { heads, tails, fixedBytes, nonFinite: bad ? ['apertureTable', ...bad] : null };
-	tableBytes.set(columns, bytes);
+	const all = encoder.encode(text);
+	const between: Uint8Array[] = [];
+	let from = 0;
+	for (let gap = text.indexOf(STOPS_GAP); gap >= 0; gap = text.indexOf(STOPS_GAP, from)) {
+		between.push(all.subarray(from, gap));
+		from = gap + STOPS_GAP.length;
+	}
+	between.push(all.subarray(from));
+	const bad = findNonFinite(columns);
+	const fixedBytes = TABLE_KEY.length + all.length - columns.length * (STOPS_GAP.length - FLASH_KEY.length - AMBIENT_KEY.length) + 1;
+	const bytes = { between, fixedBytes, nonFinite: bad ? ['apertureTable', ...bad] : null };
+	recentTables.unshift({ columns, bytes });
+	if (recentTables.length > TABLE_MEMO_SIZE) recentTables.pop();
 	return bytes;
 }
 
@@ -111,6 +134,8 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 	let at = encoder.encodeInto(rest, out).written - 1;
 	out.set(TABLE_KEY, at);
 	at += TABLE_KEY.length;
+	out.set(table.between[0], at);
+	at += table.between[0].length;
 	for (let i = 0; i < columns.length; i++) {
 		const shift = columns[i].shiftStops;
 		const e = totalStops === null ? null : totalStops + shift;
@@ -120,17 +145,15 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 		if (!(e === null || Number.isFinite(e))) return { ok: false, nonFinite: ['apertureTable', String(i), 'exposureOffsetStops'] };
 		if (!(f === null || Number.isFinite(f))) return { ok: false, nonFinite: ['apertureTable', String(i), 'flashOffsetStops'] };
 		if (!(a === null || Number.isFinite(a))) return { ok: false, nonFinite: ['apertureTable', String(i), 'ambientOffsetStops'] };
-		if (i > 0) out[at++] = 44; // ,
-		out.set(table.heads[i], at);
-		at = writeTableStops(out, at + table.heads[i].length, e);
+		at = writeTableStops(out, at, e);
 		out.set(FLASH_KEY, at);
 		at = writeTableStops(out, at + FLASH_KEY.length, f);
 		out.set(AMBIENT_KEY, at);
 		at = writeTableStops(out, at + AMBIENT_KEY.length, a);
-		out.set(table.tails[i], at);
-		at += table.tails[i].length;
+		const next = table.between[i + 1];
+		out.set(next, at);
+		at += next.length;
 	}
-	out[at++] = 93; // ]
 	out[at++] = 125; // }
 	return { ok: true, bytes: out.subarray(0, at) };
 }
