@@ -10,7 +10,7 @@
  * null without a word) and names where it is instead.
  */
 import { findNonFinite } from './finite';
-import { exposureParts, TABLE_STOPS_DECIMALS, type ApertureColumns } from './scene';
+import { COLUMN_MEMO_SIZE, exposureParts, TABLE_STOPS_DECIMALS, type ApertureColumns } from './scene';
 import type { ExposureScene } from './schema';
 
 export type ExposureJson = { ok: true; bytes: Uint8Array<ArrayBuffer> } | { ok: false; nonFinite: string[] };
@@ -39,7 +39,7 @@ const MAX_STOPS_BYTES = 26;
 
 /** The byte forms of the last few tables, newest first (the same tables `apertureColumns` keeps). */
 const recentTables: { columns: readonly ApertureColumns[]; bytes: TableBytes }[] = [];
-const TABLE_MEMO_SIZE = 8;
+const TABLE_MEMO_SIZE = COLUMN_MEMO_SIZE;
 
 function tableBytesFor(columns: readonly ApertureColumns[]): TableBytes {
 	for (const m of recentTables) if (m.columns === columns) return m.bytes;

@@ -150,7 +150,7 @@ const lensSettings = (cam: Camera): LensSettings => ({
 
 /** The last few lens settings seen, newest first: a handful of cameras at once, compared field by field. */
 const recentColumns: { lens: LensSettings; columns: readonly ApertureColumns[] }[] = [];
-const COLUMN_MEMO_SIZE = 8;
+export const COLUMN_MEMO_SIZE = 8;
 
 /** The aperture table's camera-only columns for `cam` (whose working aperture is `wa`), memoised. */
 export function apertureColumns(cam: Camera, wa: number): readonly ApertureColumns[] {
