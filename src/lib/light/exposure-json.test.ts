@@ -49,6 +49,16 @@ describe('exposureAnswerJson (the exposure route writes its answer itself)', () 
 		expect(answer.lights.find((l: { id: string }) => l.id === 'sill').sourceBlocked).toBe(true);
 	});
 
+	it('gives each answer its own bytes (the scratch buffer is never handed out)', () => {
+		const first = exposureAnswerJson(parsedScene(scene));
+		const raw = structuredClone(scene);
+		raw.lights[0].power = 1;
+		const second = exposureAnswerJson(parsedScene(raw));
+		if (!first.ok || !second.ok) throw new Error('not finite');
+		expect(first.bytes.buffer).not.toBe(second.bytes.buffer);
+		expect(JSON.parse(new TextDecoder().decode(first.bytes))).toEqual(generalAnswer(parsedScene(scene)));
+	});
+
 	it('writes an empty table when no marked aperture falls in the range', () => {
 		const raw = structuredClone(scene);
 		Object.assign(raw.camera, { minAperture: 3.0, maxAperture: 3.1 });

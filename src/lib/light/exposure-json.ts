@@ -75,6 +75,7 @@ function tableBytesFor(columns: readonly ApertureColumns[]): TableBytes {
 }
 
 const SCALE = 10 ** TABLE_STOPS_DECIMALS;
+let scratch = new Uint8Array(16 * 1024);
 
 /** Writes the digits of a whole number `n` ≥ 0 at `at`; returns where they end. */
 function writeWhole(out: Uint8Array, at: number, n: number): number {
@@ -128,8 +129,11 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 	const bad = findNonFinite(answer);
 	if (bad) return { ok: false, nonFinite: bad };
 	const rest = JSON.stringify(answer);
-	// UTF-8 takes at most 3 bytes per UTF-16 unit.
-	const out = new Uint8Array(rest.length * 3 + table.fixedBytes + columns.length * 3 * MAX_STOPS_BYTES);
+	// UTF-8 takes at most 3 bytes per UTF-16 unit. The answer is written into a scratch buffer kept between
+	// calls (the writing never yields, so no two answers share it) and copied out at its exact length.
+	const bound = rest.length * 3 + table.fixedBytes + columns.length * 3 * MAX_STOPS_BYTES;
+	if (scratch.length < bound) scratch = new Uint8Array(Math.max(bound, 2 * scratch.length));
+	const out = scratch;
 	// The rest of the answer without its closing brace, then the table as its last member.
 	let at = encoder.encodeInto(rest, out).written - 1;
 	out.set(TABLE_KEY, at);
@@ -155,5 +159,5 @@ export function exposureAnswerJson(scene: ExposureScene): ExposureJson {
 		at += next.length;
 	}
 	out[at++] = 125; // }
-	return { ok: true, bytes: out.subarray(0, at) };
+	return { ok: true, bytes: out.slice(0, at) };
 }
