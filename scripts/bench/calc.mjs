@@ -1,7 +1,7 @@
 // Benchmark of the calculation API against the built server: requests per second of
-// POST /api/v1/exposure with a six-light scene (moved on every request) and of POST /api/v1/calc/colour, measured the same way
-// in one run, and their ratio. Goal: exposure / colour ≥ 0.8 (the engine costs little beside the
-// framework). Called by scripts/bench.mjs with the running server's origin.
+// POST /api/v1/exposure with a six-light scene (moved on every request) and of POST /api/v1/calc/colour,
+// measured the same way in one run, and their ratio. Goal: exposure / colour ≥ 0.8 (the engine costs
+// little beside the framework). Called by scripts/bench.mjs with the running server's origin.
 import autocannon from 'autocannon';
 
 const CONNECTIONS = Number(process.env.SQUARELAW_BENCH_CONNECTIONS ?? 50);

@@ -13,7 +13,7 @@ import { opticsCalc } from './optics';
 import { computeExposure } from './scene';
 import { ambientCalcSchema, colourCalcSchema, exposureSceneSchema, flashCalcSchema, opticsCalcSchema } from './schema';
 
-interface Calculation<S extends z.ZodType> {
+export interface Calculation<S extends z.ZodType> {
 	schema: S;
 	compute: (input: z.output<S>) => unknown;
 	/** The answer written straight to JSON bytes, for a route whose answer is large (see exposure-json.ts). */

@@ -1,9 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { exposureAnswerJson, writeTableStops } from './exposure-json';
-import { apertureColumns, buildApertureColumns, computeExposure, shifted } from './scene';
+import { apertureColumns, buildApertureColumns, computeExposure, lensSettings, shifted } from './scene';
 import { exposureSceneSchema, type ExposureScene } from './schema';
-import { workingAperture } from './optics';
 
 /** A scene that touches every part of the answer: both groups, all reflector kinds, a flag, warnings and cautions. */
 const scene = {
@@ -161,9 +160,8 @@ describe('apertureColumns (the camera-only columns, memoised per lens setting)',
 		fc.assert(
 			fc.property(fc.array(lens, { minLength: 1, maxLength: 40 }), (cams) => {
 				for (const cam of cams) {
-					const wa = workingAperture(cam.aperture, cam.magnification, cam.pupilMagnification ?? 1);
-					const c = cam as ExposureScene['camera'];
-					expect(apertureColumns(c, wa)).toEqual(buildApertureColumns(c, wa));
+					const lens = lensSettings(cam as ExposureScene['camera']);
+					expect(apertureColumns(lens)).toEqual(buildApertureColumns(lens));
 				}
 			}),
 			{ numRuns: 200 }

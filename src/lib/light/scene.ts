@@ -128,7 +128,7 @@ export interface ExposureParts {
 type Camera = ExposureScene['camera'];
 
 /** The lens settings the aperture table depends on, with their defaults filled in. */
-interface LensSettings {
+export interface LensSettings {
 	aperture: number;
 	magnification: number;
 	pupil: number;
@@ -138,7 +138,7 @@ interface LensSettings {
 	maxA: number;
 }
 
-const lensSettings = (cam: Camera): LensSettings => ({
+export const lensSettings = (cam: Camera): LensSettings => ({
 	aperture: cam.aperture,
 	magnification: cam.magnification,
 	pupil: cam.pupilMagnification ?? 1,
@@ -152,9 +152,8 @@ const lensSettings = (cam: Camera): LensSettings => ({
 const recentColumns: { lens: LensSettings; columns: readonly ApertureColumns[] }[] = [];
 export const COLUMN_MEMO_SIZE = 8;
 
-/** The aperture table's camera-only columns for `cam` (whose working aperture is `wa`), memoised. */
-export function apertureColumns(cam: Camera, wa: number): readonly ApertureColumns[] {
-	const lens = lensSettings(cam);
+/** The aperture table's camera-only columns for these lens settings, memoised. */
+export function apertureColumns(lens: LensSettings): readonly ApertureColumns[] {
 	for (const { lens: m, columns } of recentColumns) {
 		if (
 			m.aperture === lens.aperture &&
@@ -168,15 +167,16 @@ export function apertureColumns(cam: Camera, wa: number): readonly ApertureColum
 			return columns;
 		}
 	}
-	const columns = buildApertureColumns(cam, wa);
+	const columns = buildApertureColumns(lens);
 	recentColumns.unshift({ lens, columns });
 	if (recentColumns.length > COLUMN_MEMO_SIZE) recentColumns.pop();
 	return columns;
 }
 
 /** `apertureColumns` without the memo. */
-export function buildApertureColumns(cam: Camera, wa: number): readonly ApertureColumns[] {
-	const { magnification, pupil, coc, lambda, minA, maxA } = lensSettings(cam);
+export function buildApertureColumns(lens: LensSettings): readonly ApertureColumns[] {
+	const { magnification, pupil, coc, lambda, minA, maxA } = lens;
+	const wa = workingAperture(lens.aperture, magnification, pupil);
 	const tol = 1e-9;
 	const columns = THIRD_STOP_APERTURES.filter(
 		(a) => a.nominal >= minA * (1 - tol) - 0.001 && a.nominal <= maxA * (1 + tol) + 0.001
@@ -199,9 +199,8 @@ export function buildApertureColumns(cam: Camera, wa: number): readonly Aperture
 /** The whole computation; `computeExposure` assembles the answer from it, the exposure route writes it. */
 export function exposureParts(scene: ExposureScene): ExposureParts {
 	const cam = scene.camera;
-	const P = cam.pupilMagnification ?? 1;
-	const coc = cam.cocMm ?? 0.03;
-	const lambda = cam.wavelengthNm ?? 550;
+	const lens = lensSettings(cam);
+	const { pupil: P, coc, lambda } = lens;
 	const sync = cam.syncSpeed ?? DEFAULT_SYNC_SPEED_S;
 	const wa = workingAperture(cam.aperture, cam.magnification, P);
 	const cameraFactor = 2 ** -(cam.lossStops ?? 0);
@@ -303,7 +302,7 @@ export function exposureParts(scene: ExposureScene): ExposureParts {
 
 	// The aperture table: every contribution scales with 1/N_w², so each row shifts the totals' stops by
 	// the row's own `shiftStops`; its camera-only columns come from `apertureColumns`.
-	const columns = apertureColumns(cam, wa);
+	const columns = apertureColumns(lens);
 	const totalStops = stopsOf(totalX);
 	const flashStops = stopsOf(flashX);
 	const shutterStops = stopsOf(shutterX);

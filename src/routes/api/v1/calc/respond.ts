@@ -7,7 +7,7 @@ import type { RequestHandler } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { apiError, DEFAULT_MAX_BODY_BYTES, parseJsonBody } from '$lib/server/http';
 import { fastAcceptor, type Acceptor } from '$lib/server/fast-accept';
-import { CALCULATIONS, computeJsonSafely, type CalculationPath } from '$lib/light/calculations';
+import { CALCULATIONS, computeJsonSafely, type Calculation, type CalculationPath } from '$lib/light/calculations';
 import { exposureSceneShape, sceneRuleIssues } from '$lib/light/schema';
 
 /**
@@ -19,7 +19,7 @@ const FAST_ACCEPTORS: Partial<Record<CalculationPath, () => Acceptor<unknown>>> 
 };
 
 export function calculationRoute(path: CalculationPath): RequestHandler {
-	const calc = CALCULATIONS[path] as Parameters<typeof computeJsonSafely<z.ZodType>>[0];
+	const calc = CALCULATIONS[path] as Calculation<z.ZodType>;
 	const fast = FAST_ACCEPTORS[path]?.();
 	return async ({ request }) => {
 		const parsed = await parseJsonBody(request, calc.schema, DEFAULT_MAX_BODY_BYTES, fast);
