@@ -1,6 +1,10 @@
 // `npm test`: the same set-up as `npm start` against a separate test database, then the type check,
 // vitest (unit and integration tests against the real PostgreSQL and the running app) and Playwright
 // in Debian's Chromium. Ends with each runner's summary and a non-zero exit on any failure.
+//
+// For a quicker loop while working on one thing (never in CI): `npm test -- --only` followed by any of
+// `--no-check`, `--vitest=<filter>` and `--playwright=<filter>` (each repeatable; `none` skips that
+// runner) runs the same set-up and then only what is named.
 import fs from 'node:fs';
 import path from 'node:path';
 import { spawn } from 'node:child_process';
@@ -11,6 +15,14 @@ const chromium = ensureChromium();
 const { appEnv, build, prepareDatabase, profiles, seed, serve, startMail } = await import('./lib/stack.mjs');
 
 const profile = profiles.test;
+const args = process.argv.slice(2);
+const partial = args.includes('--only');
+const named = (flag) => args.filter((a) => a.startsWith(`--${flag}=`)).map((a) => a.slice(flag.length + 3));
+const vitestFilters = named('vitest');
+const playwrightFilters = named('playwright');
+const runCheck = !partial || !args.includes('--no-check');
+const runVitest = !partial || (vitestFilters.length > 0 && !vitestFilters.includes('none'));
+const runPlaywright = !partial || (playwrightFilters.length > 0 && !playwrightFilters.includes('none'));
 const cleanups = [];
 const results = [];
 let exitCode = 0;
@@ -88,17 +100,20 @@ try {
 	fs.rmSync(path.join(reports, 'playwright.json'), { force: true });
 	fs.mkdirSync(reports, { recursive: true });
 
-	await step('type check (svelte-check)', 'npx', ['svelte-check', '--tsconfig', './tsconfig.json', '--threshold', 'error'], testEnv);
-	await step(
-		'unit and integration tests (vitest)',
-		'npx',
-		['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.join(reports, 'vitest.json')}`],
-		testEnv
-	);
-	await step('browser tests (Playwright, Chromium)', 'npx', ['playwright', 'test', '-c', 'tests/playwright.config.ts'], {
-		...testEnv,
-		PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(reports, 'playwright.json')
-	});
+	if (runCheck)
+		await step('type check (svelte-check)', 'npx', ['svelte-check', '--tsconfig', './tsconfig.json', '--threshold', 'error'], testEnv);
+	if (runVitest)
+		await step(
+			'unit and integration tests (vitest)',
+			'npx',
+			['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile.json=${path.join(reports, 'vitest.json')}`, ...vitestFilters],
+			testEnv
+		);
+	if (runPlaywright)
+		await step('browser tests (Playwright, Chromium)', 'npx', ['playwright', 'test', '-c', 'tests/playwright.config.ts', ...playwrightFilters], {
+			...testEnv,
+			PLAYWRIGHT_JSON_OUTPUT_NAME: path.join(reports, 'playwright.json')
+		});
 
 	const vitest = readJson(path.join(reports, 'vitest.json'));
 	const pw = readJson(path.join(reports, 'playwright.json'));
@@ -110,7 +125,7 @@ try {
 		failed += vitest.numFailedTests ?? 0;
 		skipped += (vitest.numPendingTests ?? 0) + (vitest.numTodoTests ?? 0);
 		log(`vitest: ${vitest.numPassedTests} passed, ${vitest.numFailedTests} failed`);
-	} else {
+	} else if (runVitest) {
 		exitCode = 1;
 		log('vitest wrote no report');
 	}
@@ -121,7 +136,7 @@ try {
 		failed += pwFailed;
 		skipped += pw.stats.skipped ?? 0;
 		log(`playwright: ${pwPassed} passed, ${pwFailed} failed`);
-	} else {
+	} else if (runPlaywright) {
 		exitCode = 1;
 		log('Playwright wrote no report');
 	}
@@ -130,7 +145,7 @@ try {
 		log(`${skipped} tests were skipped; a skipped test is a defect here`);
 		exitCode = 1;
 	}
-	if (passed === 0) exitCode = 1;
+	if (passed === 0 && (runVitest || runPlaywright)) exitCode = 1;
 	process.stdout.write(`\ntotal: ${passed} passed, ${failed} failed\n`);
 } catch (e) {
 	process.stderr.write(`\n[squarelaw] ${e instanceof Error ? e.stack : String(e)}\n`);
