@@ -8,6 +8,7 @@ import { db } from '$lib/server/db';
 import { accounts, sessions, users, verificationTokens } from '$lib/server/db/schema';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import { sendMail } from '$lib/server/mail';
+import { sessionMaxAgeMs, withHashedSessions } from '$lib/server/hashed-sessions';
 import { signInLetter } from '$lib/server/mail/letters';
 
 export const SIGN_IN_LINK_MINUTES = 15;
@@ -15,12 +16,16 @@ export const SIGN_IN_LINK_MINUTES = 15;
 const secureCookies = (env.ORIGIN ?? '').startsWith('https://');
 
 export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
-	adapter: DrizzleAdapter(db, {
-		usersTable: users,
-		accountsTable: accounts,
-		sessionsTable: sessions,
-		verificationTokensTable: verificationTokens
-	}),
+	// Session rows hold a hash of the cookie's token and end SQUARELAW_SESSION_MAX_DAYS (30) after sign-in.
+	adapter: withHashedSessions(
+		DrizzleAdapter(db, {
+			usersTable: users,
+			accountsTable: accounts,
+			sessionsTable: sessions,
+			verificationTokensTable: verificationTokens
+		}),
+		sessionMaxAgeMs
+	),
 	providers: [
 		Nodemailer({
 			server: env.EMAIL_SERVER || 'smtp://127.0.0.1:2525',
@@ -31,6 +36,7 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 			}
 		})
 	],
+	// maxAge is the idle limit: a session unused for 30 days ends (the absolute limit is in the adapter).
 	session: { strategy: 'database', maxAge: 30 * 24 * 3600, updateAge: 24 * 3600 },
 	secret: env.AUTH_SECRET,
 	// A production build ignores AUTH_TRUST_HOST; ORIGIN fixes the host anyway.

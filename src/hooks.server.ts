@@ -6,6 +6,8 @@ import { emailSchema } from '$lib/schemas/account';
 import { getUserById } from '$lib/server/db/queries/users';
 import { userForAccessToken } from '$lib/server/db/queries/tokens';
 import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+import { tokenMayReach, tokenMayUse } from '$lib/server/authz';
+import { apiError } from '$lib/server/http';
 
 /**
  * Sign-in links per IP address per 15 minutes. A workshop of thirty students behind one hall router
@@ -52,17 +54,26 @@ const guardSignInRequests: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-/** Puts the caller on `locals.user`: from a bearer token for scripts, else from the session cookie. */
+/**
+ * Puts the caller on `locals.user`: from a bearer token for scripts, else from the session cookie. A
+ * bearer token is answered here when it cannot be used: outside the JSON API (401), unknown, revoked or
+ * expired (401), or read-only on a write (403).
+ */
 const identify: Handle = async ({ event, resolve }) => {
 	event.locals.user = null;
 	event.locals.authMethod = null;
 	const header = event.request.headers.get('authorization');
 	if (header?.toLowerCase().startsWith('bearer ')) {
-		const user = await userForAccessToken(header.slice(7).trim());
-		if (user) {
-			event.locals.user = user;
-			event.locals.authMethod = 'token';
+		if (!tokenMayReach(event.url.pathname)) {
+			return apiError(401, 'Personal access tokens work only on the JSON API (/api/v1/…). Pages and forms need a browser sign-in.');
 		}
+		const found = await userForAccessToken(header.slice(7).trim());
+		if (!found) return apiError(401, 'This access token is unknown, revoked or expired. Make a new one on your account page.');
+		if (!tokenMayUse(found.scope, event.request.method)) {
+			return apiError(403, 'This access token is read-only: it may read (GET) but not change anything.');
+		}
+		event.locals.user = found.user;
+		event.locals.authMethod = 'token';
 	} else if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
 		// Only ask Auth.js (and the database) when a session cookie is present.
 		const session = await event.locals.auth();

@@ -6,7 +6,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { gzipSync } from 'node:zlib';
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import postgres from 'postgres';
 import { chromium } from '@playwright/test';
 import { chromiumLaunchOptions } from '../lib/chromium.mjs';
@@ -179,7 +179,9 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		const [studio] = await sql`insert into studios (name) values (${`Bench editor ${tag}`}) returning id`;
 		await sql`insert into memberships (studio_id, user_id, role) values (${studio.id}, ${user.id}, 'owner')`;
 		const sessionToken = randomBytes(32).toString('hex');
-		await sql`insert into sessions (session_token, user_id, expires) values (${sessionToken}, ${user.id}, now() + interval '1 hour')`;
+		// The sessions table keeps the SHA-256 of the cookie's token, as Auth.js's sign-in leaves it.
+		const tokenHash = createHash('sha256').update(sessionToken).digest('hex');
+		await sql`insert into sessions (session_token, user_id, expires) values (${tokenHash}, ${user.id}, now() + interval '1 hour')`;
 		const cookie = `authjs.session-token=${sessionToken}`;
 		const largeId = await createSetup(baseUrl, cookie, studio.id, `Bench large plan ${tag}`, largeScene(), LARGE_PLAN);
 		const smallId = await createSetup(baseUrl, cookie, studio.id, `Bench small plan ${tag}`, smallScene(), SMALL_PLAN);

@@ -31,6 +31,17 @@ export const tokenNameSchema = z
 	.min(1, 'Name the token so you can tell it apart later.')
 	.max(60, 'A token name has at most 60 characters.');
 
+export const tokenScopeSchema = z.enum(['read-only', 'read-write'], { error: 'Choose read-only or read-write.' });
+
+/** How long a new token lasts, in days, or `never`. */
+export const TOKEN_LIFETIMES = ['7', '30', '90', '365', 'never'] as const;
+
+export const newTokenSchema = z.object({
+	tokenName: tokenNameSchema,
+	scope: tokenScopeSchema,
+	expiresInDays: z.enum(TOKEN_LIFETIMES, { error: 'Choose when the token expires.' })
+});
+
 /** zod issues as `{ field: message }`, the shape forms show beside each field. */
 export function fieldErrors(error: z.ZodError): Record<string, string> {
 	const out: Record<string, string> = {};

@@ -2,7 +2,7 @@
 import { error } from '@sveltejs/kit';
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { memberships, studios, type StudioRole } from '$lib/server/db/schema';
+import { memberships, studios, type StudioRole, type TokenScope } from '$lib/server/db/schema';
 import type { SessionUser } from '$lib/server/session';
 
 export const CAPABILITIES = [
@@ -32,6 +32,13 @@ export const ROLE_CAPABILITIES: Record<StudioRole, ReadonlySet<Capability>> = {
 	editor: new Set(editor),
 	owner: new Set(CAPABILITIES)
 };
+
+const ROLE_ORDER: readonly StudioRole[] = ['viewer', 'editor', 'owner'];
+
+/** Whether `role` is above `than` (owner above editor above viewer): an invitation may raise a role, never lower it. */
+export function outranks(role: StudioRole, than: StudioRole): boolean {
+	return ROLE_ORDER.indexOf(role) > ROLE_ORDER.indexOf(than);
+}
 
 export interface StudioAccess {
 	studioId: string;
@@ -89,4 +96,19 @@ export async function authorizeStudio(
 
 export function isUuid(value: string): boolean {
 	return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
+}
+
+/**
+ * Personal access tokens are for the JSON API only: on a page or a form action a bearer token is never a
+ * signed-in user (pages act for a person at a browser, with a session cookie and the origin check).
+ */
+export function tokenMayReach(pathname: string): boolean {
+	return pathname === '/api' || pathname.startsWith('/api/');
+}
+
+const READ_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** A read-only token may only read; any other method is a write, whatever the route. */
+export function tokenMayUse(scope: TokenScope, method: string): boolean {
+	return scope === 'read-write' || READ_METHODS.has(method.toUpperCase());
 }

@@ -22,6 +22,7 @@ const { ensurePersonalStudio, listOpenInvitations } = await import('$lib/server/
 const { toSessionUser } = await import('$lib/server/db/queries/users');
 const { RuleViolation } = await import('$lib/server/errors');
 const studioRules = await import('$lib/server/studios');
+const { hashSecret } = await import('$lib/server/tokens');
 
 type SessionUser = import('$lib/server/session').SessionUser;
 type StudioRole = import('$lib/server/db/schema').StudioRole;
@@ -312,7 +313,7 @@ function post(path: string, form: Record<string, string>, cookie?: string) {
 
 async function sessionCookie(user: SessionUser): Promise<string> {
 	const token = randomUUID();
-	await db.insert(sessions).values({ sessionToken: token, userId: user.id, expires: new Date(Date.now() + 3600_000) });
+	await db.insert(sessions).values({ sessionToken: hashSecret(token), userId: user.id, expires: new Date(Date.now() + 3600_000) });
 	return `authjs.session-token=${token}`;
 }
 

@@ -1,7 +1,7 @@
 // Studio rules: who may do what is asked of authz; what must stay true (an owner always remains,
 // an invitation works once and expires) is kept here.
 import { error } from '@sveltejs/kit';
-import { authorizeStudio, can, isUuid, requireUser } from '$lib/server/authz';
+import { authorizeStudio, can, isUuid, outranks, requireUser } from '$lib/server/authz';
 import { RuleViolation } from '$lib/server/errors';
 import { sendMail } from '$lib/server/mail';
 import { invitationLetter } from '$lib/server/mail/letters';
@@ -17,6 +17,7 @@ import {
 	listMembers,
 	listOpenInvitations,
 	listStudiosForUser,
+	memberRoleByEmail,
 	membershipOf,
 	membershipOfUser,
 	renameStudioRow,
@@ -63,6 +64,14 @@ export async function inviteToStudio(
 	const access = await authorizeStudio(user, studioId, 'invitations.manage');
 	if (access.isPersonal) {
 		throw new RuleViolation('A personal studio is yours alone. Make a shared studio to invite people.', 'email');
+	}
+	// An invitation can raise an existing member's role when accepted; one that could not is refused here.
+	const currentRole = await memberRoleByEmail(studioId, input.email);
+	if (currentRole && !outranks(input.role, currentRole)) {
+		throw new RuleViolation(
+			`${input.email} is already a member of this studio as ${currentRole}. Change their role in the member list instead.`,
+			'email'
+		);
 	}
 	const limits = await hitRateLimits([
 		{ bucket: `invite:addr:${input.email}`, limit: 5, windowMs: 3600_000 },

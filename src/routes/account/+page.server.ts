@@ -1,13 +1,18 @@
 import { fail, redirect } from '@sveltejs/kit';
-import { displayNameSchema, fieldErrors, tokenNameSchema } from '$lib/schemas/account';
+import { displayNameSchema, fieldErrors, newTokenSchema } from '$lib/schemas/account';
+import { signOut } from '../../auth';
 import { renameUser, saveUnitPreference } from '$lib/server/db/queries/users';
 import { createAccessToken, listAccessTokens, revokeAccessToken } from '$lib/server/db/queries/tokens';
+import { sessionMaxAgeMs } from '$lib/server/hashed-sessions';
+import { deleteSessionsOfUser } from '$lib/server/db/queries/sessions';
 import { myStudios } from '$lib/server/studios';
 
 export async function load({ locals, url }) {
 	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
 	return {
 		account: locals.user,
+		loadedAt: Date.now(),
+		sessionMaxDays: Math.round((sessionMaxAgeMs() / (24 * 3600_000)) * 10) / 10,
 		tokens: await listAccessTokens(locals.user.id),
 		studios: await myStudios(locals.user)
 	};
@@ -33,10 +38,15 @@ export const actions = {
 	},
 	createToken: async ({ locals, request }) => {
 		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
-		const parsed = tokenNameSchema.safeParse((await request.formData()).get('tokenName') ?? '');
-		if (!parsed.success) return fail(400, { action: 'createToken', errors: fieldErrors(parsed.error), tokenNameField: true });
-		const token = await createAccessToken(locals.user.id, parsed.data);
-		return { action: 'createToken', newToken: { name: token.name, secret: token.secret } };
+		const parsed = newTokenSchema.safeParse(Object.fromEntries(await request.formData()));
+		if (!parsed.success) return fail(400, { action: 'createToken', errors: fieldErrors(parsed.error) });
+		const { tokenName, scope, expiresInDays } = parsed.data;
+		const expiresAt = expiresInDays === 'never' ? null : new Date(Date.now() + Number(expiresInDays) * 24 * 3600_000);
+		const token = await createAccessToken(locals.user.id, tokenName, { scope, expiresAt });
+		return {
+			action: 'createToken',
+			newToken: { name: token.name, secret: token.secret, scope: token.scope, expiresAt: token.expiresAt }
+		};
 	},
 	revokeToken: async ({ locals, request }) => {
 		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
@@ -44,5 +54,14 @@ export const actions = {
 		const done = /^[0-9a-f-]{36}$/i.test(id) && (await revokeAccessToken(locals.user.id, id));
 		if (!done) return fail(400, { action: 'revokeToken', errors: { tokenId: 'That token is already revoked or is not yours.' } });
 		return { action: 'revokeToken', revoked: true };
+	},
+	/**
+	 * Ends every session of this account, this browser's included (Auth.js then clears the cookie and sends
+	 * the browser to `redirectTo`, the signed-out page). Access tokens are not sessions and stay.
+	 */
+	signOutEverywhere: async (event) => {
+		if (!event.locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
+		await deleteSessionsOfUser(event.locals.user.id);
+		await signOut(event);
 	}
 };

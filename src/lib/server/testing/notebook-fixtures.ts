@@ -8,6 +8,7 @@ import { memberships, sessions, studios, users, type StudioRole } from '$lib/ser
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import { createAccessToken } from '$lib/server/db/queries/tokens';
 import { toSessionUser } from '$lib/server/db/queries/users';
+import { hashSecret } from '$lib/server/tokens';
 import type { SessionUser } from '$lib/server/session';
 import type { SetupDocumentInput } from '$lib/scene/document';
 
@@ -45,10 +46,19 @@ export async function makeUser(label: string, { isAdmin = false } = {}): Promise
 		})
 		.returning();
 	const personal = await ensurePersonalStudio(row.id, `Test ${label}`);
-	const sessionToken = randomBytes(32).toString('hex');
-	await db.insert(sessions).values({ sessionToken, userId: row.id, expires: new Date(Date.now() + 24 * 3600_000) });
+	const cookie = await openSession(row.id);
 	const token = await createAccessToken(row.id, `notebook tests ${label}`);
-	return { user: toSessionUser(row), personalStudioId: personal.id, cookie: `authjs.session-token=${sessionToken}`, token: token.secret };
+	return { user: toSessionUser(row), personalStudioId: personal.id, cookie, token: token.secret };
+}
+
+/**
+ * A session row as Auth.js's sign-in would leave it (the table keeps the token's SHA-256), by default
+ * signed in now and good for a day; returns `authjs.session-token=<token>` for the Cookie header.
+ */
+export async function openSession(userId: string, { createdAt = new Date(), expires = new Date(Date.now() + 24 * 3600_000) } = {}) {
+	const sessionToken = randomBytes(32).toString('hex');
+	await db.insert(sessions).values({ sessionToken: hashSecret(sessionToken), userId, expires, createdAt });
+	return `authjs.session-token=${sessionToken}`;
 }
 
 export interface TestStudio {

@@ -1,6 +1,7 @@
 import { and, asc, count, desc, eq, gt, isNull, sql } from 'drizzle-orm';
 import { db, type Tx } from '../index';
 import { invitations, memberships, studios, users, type StudioRole } from '../schema';
+import { outranks } from '$lib/server/authz';
 
 export async function createStudioWithOwner(name: string, ownerId: string, personal = false, tx?: Tx) {
 	const run = async (t: Tx) => {
@@ -153,7 +154,10 @@ export async function changeMembership(studioId: string, change: MembershipChang
 	});
 }
 
-/** Accepts an invitation once: marks it used and adds (or upgrades) the membership, in one transaction. */
+/**
+ * Accepts an invitation once: marks it used and adds the membership, or raises an existing member to the
+ * invited role (never lowers it), in one transaction.
+ */
 export async function consumeInvitation(invitationId: string, userId: string) {
 	return db.transaction(async (tx) => {
 		const [inv] = await tx.select().from(invitations).where(eq(invitations.id, invitationId)).for('update');
@@ -166,11 +170,15 @@ export async function consumeInvitation(invitationId: string, userId: string) {
 		const [existing] = await tx
 			.select()
 			.from(memberships)
-			.where(and(eq(memberships.studioId, inv.studioId), eq(memberships.userId, userId)));
+			.where(and(eq(memberships.studioId, inv.studioId), eq(memberships.userId, userId)))
+			.for('update');
 		if (!existing) {
 			await tx.insert(memberships).values({ studioId: inv.studioId, userId, role: inv.role });
+			return { studioId: inv.studioId, role: inv.role };
 		}
-		return { studioId: inv.studioId, role: existing?.role ?? inv.role };
+		if (!outranks(inv.role, existing.role)) return { studioId: inv.studioId, role: existing.role };
+		await tx.update(memberships).set({ role: inv.role }).where(eq(memberships.id, existing.id));
+		return { studioId: inv.studioId, role: inv.role };
 	});
 }
 
@@ -188,4 +196,14 @@ export async function membershipOfUser(studioId: string, userId: string) {
 		.from(memberships)
 		.where(and(eq(memberships.studioId, studioId), eq(memberships.userId, userId)));
 	return row ?? null;
+}
+
+/** The role of whoever has this e-mail address in the studio, or null when they are not a member. */
+export async function memberRoleByEmail(studioId: string, email: string): Promise<StudioRole | null> {
+	const [row] = await db
+		.select({ role: memberships.role })
+		.from(memberships)
+		.innerJoin(users, eq(users.id, memberships.userId))
+		.where(and(eq(memberships.studioId, studioId), eq(users.email, email)));
+	return row?.role ?? null;
 }

@@ -1,5 +1,5 @@
 // The tables Auth.js's Drizzle adapter needs, with our naming (plural tables, snake_case columns).
-import { boolean, integer, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 export const users = pgTable('users', {
 	id: uuid().primaryKey().defaultRandom(),
@@ -33,13 +33,23 @@ export const accounts = pgTable(
 	(t) => [primaryKey({ columns: [t.provider, t.providerAccountId] })]
 );
 
-export const sessions = pgTable('sessions', {
-	sessionToken: text().primaryKey(),
-	userId: uuid()
-		.notNull()
-		.references(() => users.id, { onDelete: 'cascade' }),
-	expires: timestamp({ mode: 'date', withTimezone: true }).notNull()
-});
+/**
+ * Database sessions. `sessionToken` holds the SHA-256 (hex) of the cookie's token, never the token itself
+ * (`src/lib/server/hashed-sessions.ts` hashes it before every adapter call). `expires` is the idle limit,
+ * moved forward as the session is used; `createdAt` (sign-in) bounds its whole life.
+ */
+export const sessions = pgTable(
+	'sessions',
+	{
+		sessionToken: text().primaryKey(),
+		userId: uuid()
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		expires: timestamp({ mode: 'date', withTimezone: true }).notNull(),
+		createdAt: timestamp({ mode: 'date', withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('sessions_user_idx').on(t.userId)]
+);
 
 export const verificationTokens = pgTable(
 	'verification_tokens',

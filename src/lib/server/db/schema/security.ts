@@ -1,5 +1,9 @@
-import { bigserial, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { bigserial, check, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { users } from './auth';
+
+export const TOKEN_SCOPES = ['read-only', 'read-write'] as const;
+export type TokenScope = (typeof TOKEN_SCOPES)[number];
 
 /** Personal access tokens for the API; only a sha-256 of the secret is kept. */
 export const accessTokens = pgTable(
@@ -14,10 +18,18 @@ export const accessTokens = pgTable(
 		/** The first characters, shown in lists so the owner can tell tokens apart. */
 		tokenPrefix: text().notNull(),
 		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		/** Written at most once a minute while the token is in use. */
 		lastUsedAt: timestamp({ withTimezone: true }),
+		/** Null: never expires. */
+		expiresAt: timestamp({ withTimezone: true }),
+		/** 'read-only' tokens may only read (GET) the JSON API. Tokens made before scopes existed keep 'read-write'. */
+		scope: text({ enum: TOKEN_SCOPES }).notNull().default('read-write'),
 		revokedAt: timestamp({ withTimezone: true })
 	},
-	(t) => [index('access_tokens_user_idx').on(t.userId)]
+	(t) => [
+		index('access_tokens_user_idx').on(t.userId),
+		check('access_tokens_scope_check', sql`${t.scope} in ('read-only', 'read-write')`)
+	]
 );
 
 /**
