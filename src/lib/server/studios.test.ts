@@ -203,6 +203,31 @@ describe('invitations', () => {
 		expect(await membersOf(studioId)).toEqual(before);
 	});
 
+	it('raise an existing member to the invited role when accepted', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'viewer']);
+		const [owner, viewer] = people;
+		await studioRules.inviteToStudio(owner.user, studioId, { email: viewer.user.email, role: 'editor' }, context());
+		const token = await invitationLink(viewer.user.email);
+		expect(await studioRules.acceptInvitation(viewer.user, token)).toEqual({ studioId, role: 'editor' });
+		const members = await membersOf(studioId);
+		expect(members.filter((m) => m.userId === viewer.user.id)).toEqual([{ id: viewer.membershipId, userId: viewer.user.id, role: 'editor' }]);
+		expect(await studioRules.lookUpInvitation(token)).toEqual({ state: 'used' });
+	});
+
+	it('to a member who already has that role or a higher one are refused before anything is sent', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'editor']);
+		const [owner, editor] = people;
+		for (const role of ['editor', 'viewer'] as const) {
+			const e = await refusal(() => studioRules.inviteToStudio(owner.user, studioId, { email: editor.user.email, role }, context()));
+			expect(e).toBeInstanceOf(RuleViolation);
+			expect(e.message).toBe(`${editor.user.email} is already a member of this studio as editor. Change their role in the member list instead.`);
+		}
+		const [{ n }] = await db.select({ n: count() }).from(invitations).where(eq(invitations.studioId, studioId));
+		expect(n).toBe(0);
+		expect(await mailsTo(editor.user.email)).toBe(0);
+		expect((await membersOf(studioId)).find((m) => m.userId === editor.user.id)?.role).toBe('editor');
+	});
+
 	it('cannot be used by someone signed in with another address', async () => {
 		const { studioId, people } = await makeStudio(['owner']);
 		const email = address('pebble.finch');
