@@ -36,8 +36,9 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 			}
 		})
 	],
-	// maxAge is the idle limit: a session unused for 30 days ends (the absolute limit is in the adapter).
-	session: { strategy: 'database', maxAge: 30 * 24 * 3600, updateAge: 24 * 3600 },
+	// maxAge is the idle limit: a session unused for 7 days ends. The absolute limit (30 days from sign-in)
+	// is kept by withHashedSessions; were the idle limit as long, it could never end a session first.
+	session: { strategy: 'database', maxAge: 7 * 24 * 3600, updateAge: 24 * 3600 },
 	secret: env.AUTH_SECRET,
 	// A production build ignores AUTH_TRUST_HOST; ORIGIN fixes the host anyway.
 	trustHost: true,

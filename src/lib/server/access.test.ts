@@ -178,8 +178,8 @@ describe('token scope and expiry', () => {
 describe('browser sessions', () => {
 	it('end at the absolute limit after sign-in even when used a moment ago', async () => {
 		const u = await makeUser('absolute');
-		// Signed in 31 days ago and used just now: the idle limit alone would keep it for another 30 days.
-		const stale = await openSession(u.user.id, { createdAt: new Date(Date.now() - 31 * DAY_MS), expires: new Date(Date.now() + 30 * DAY_MS - 60_000) });
+		// Signed in 31 days ago and used a minute ago: the idle limit (7 days) alone would keep it for a week.
+		const stale = await openSession(u.user.id, { createdAt: new Date(Date.now() - 31 * DAY_MS), expires: new Date(Date.now() + 7 * DAY_MS - 60_000) });
 		const res = await getPage('/account', { cookie: stale });
 		expect(res.status).toBe(303);
 		expect(res.headers.get('location')).toMatch(/^\/signin/);
