@@ -3,8 +3,9 @@
 // one is 401, use is noted at most once a minute. Sessions (OWASP ASVS v4 §3.3): an absolute limit from
 // sign-in, sign out everywhere, and a table that never holds a cookie's token. Nothing is mocked.
 import { beforeAll, describe, expect, it } from 'vitest';
-import { createHash } from 'node:crypto';
-import { and, count, eq, sql } from 'drizzle-orm';
+import { createHash, randomBytes } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { and, count, eq, sql, TransactionRollbackError } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { accessTokens, sessions, setups, studios, users } from '$lib/server/db/schema';
 import { createAccessToken } from '$lib/server/db/queries/tokens';
@@ -239,6 +240,30 @@ describe('browser sessions', () => {
 		const account = await getPage('/account', { cookie: `authjs.session-token=${cookieToken}` });
 		expect(account.status).toBe(200);
 		expect(await account.text()).toContain(email);
+	});
+});
+
+describe('migration 0002_hardening', () => {
+	it('hashes a session open at migration time the way the app looks it up', async () => {
+		const migration = readFileSync('drizzle/0002_hardening.sql', 'utf8');
+		const update = migration.split('--> statement-breakpoint').map((s) => s.trim()).find((s) => /UPDATE "sessions"/.test(s));
+		expect(update).toBeDefined();
+		const u = await makeUser('migration');
+		const plain = randomBytes(32).toString('hex');
+		let hashed: string | undefined;
+		// Run the migration's statement on a session stored the old way, then undo everything.
+		await db
+			.transaction(async (tx) => {
+				await tx.insert(sessions).values({ sessionToken: plain, userId: u.user.id, expires: new Date(Date.now() + DAY_MS) });
+				await tx.execute(sql.raw(update!.replace(/^--.*$/gm, '')));
+				const rows = await tx.select().from(sessions).where(eq(sessions.userId, u.user.id));
+				hashed = rows.map((r) => r.sessionToken).find((t) => t === createHash('sha256').update(plain).digest('hex'));
+				tx.rollback();
+			})
+			.catch((e) => {
+				if (!(e instanceof TransactionRollbackError)) throw e;
+			});
+		expect(hashed).toBe(createHash('sha256').update(plain).digest('hex'));
 	});
 });
 
