@@ -42,8 +42,8 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 		// Auth.js logs and swallows its lookups' errors: a session lookup that failed reads as "no
 		// session". Marking the request lets the hooks answer an outage with 503 instead of a sign-out.
 		error(error) {
-			noteIfUnreachable(error);
-			console.error(`[auth][error] ${error.name}: ${error.message}`, error.cause ?? '');
+			if (noteIfUnreachable(error)) console.error(`[auth][error] ${error.name}: the database is unreachable`);
+			else console.error(`[auth][error] ${error.name}: ${error.message}`, error.cause ?? '');
 		}
 	},
 	callbacks: {

@@ -31,21 +31,22 @@ export function needsNoDatabase(routeId: string | null): boolean {
 /**
  * Marks the current request as having met an unreachable database. Auth.js logs and swallows the
  * errors of its own lookups (a failed session lookup reads as "no session"), so its logger calls this.
+ * Says whether the error was an unreachable database.
  */
-export function noteIfUnreachable(e: unknown): void {
-	if (!unreachable(e)) return;
+export function noteIfUnreachable(e: unknown): boolean {
+	if (!unreachable(e)) return false;
 	try {
 		getRequestEvent().locals.databaseUnreachable = true;
 	} catch {
 		/* outside a request: nothing to mark */
 	}
+	return true;
 }
 
 /** Route errors (a load or an endpoint whose query failed): our words, and the mark for `answerDuringOutage`. */
 export const handleError: HandleServerError = ({ error: e, event, message }) => {
 	if (unreachable(e)) {
 		event.locals.databaseUnreachable = true;
-		console.error(`[outage] ${event.request.method} ${event.url.pathname}: the database is unreachable`);
 		return { message: OUTAGE_MESSAGE, reason: OUTAGE_REASON };
 	}
 	// SvelteKit's own handling, which a custom hook replaces: log it, answer with its message.
@@ -97,6 +98,7 @@ export const answerDuringOutage: Handle = async ({ event, resolve }) => {
 };
 
 function outageAnswer(event: RequestEvent): Response {
+	console.error(`[outage] ${event.request.method} ${event.url.pathname}: 503, the database is unreachable`);
 	const headers = { 'retry-after': String(RETRY_AFTER_S), 'cache-control': 'no-store' };
 	let response: Response;
 	if (event.url.pathname.startsWith('/api/')) {
