@@ -136,6 +136,23 @@ describe('a database outage', () => {
 			expect(data.status).toBe(503);
 			expect(JSON.parse(data.body)).toMatchObject({ reason: OUTAGE_REASON });
 
+			// A form sent by `use:enhance` gets an action result the page can show.
+			const action = await ask({
+				name: 'enhanced form',
+				path: '/account?/rename',
+				method: 'POST',
+				headers: {
+					cookie: person.cookie,
+					origin: baseUrl(),
+					accept: 'application/json',
+					'x-sveltekit-action': 'true',
+					'content-type': 'application/x-www-form-urlencoded'
+				},
+				body: 'name=Pebble'
+			});
+			expect(action.status).toBe(503);
+			expect(JSON.parse(action.body)).toMatchObject({ type: 'error', error: { reason: OUTAGE_REASON } });
+
 			// An anonymous page whose load needs the database: the same page, not a 500.
 			const invitation = await ask({ name: 'invitation', path: `/invitations/${randomBytes(16).toString('hex')}`, headers: { accept: 'text/html' } });
 			expect(invitation.status).toBe(503);

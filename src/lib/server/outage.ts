@@ -1,7 +1,7 @@
 // Answers during a database outage: 503 with our words instead of a sign-out (401, a redirect to
 // /signin), a 500 or a hung request, and the session cookie left alone. Recovery needs nothing: the
 // next request after the database returns is answered as usual.
-import { error, json, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
+import { json, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
 import { getRequestEvent } from '$app/server';
 import { env } from '$env/dynamic/private';
 import { DatabaseUnreachable, isDatabaseUnreachable } from '$lib/server/db/unreachable';
@@ -11,6 +11,8 @@ import { OUTAGE_MESSAGE, OUTAGE_REASON, OUTAGE_TITLE } from '$lib/outage';
 /** How long a client should wait before asking again (the Retry-After header), in seconds. */
 const RETRY_AFTER_S = 5;
 
+const outageError: App.Error = { message: OUTAGE_MESSAGE, reason: OUTAGE_REASON };
+
 function databasePort(): number | null {
 	try {
 		return Number(new URL(env.DATABASE_URL ?? '').port || 5432);
@@ -19,7 +21,7 @@ function databasePort(): number | null {
 	}
 }
 
-export function unreachable(e: unknown): boolean {
+function unreachable(e: unknown): boolean {
 	return isDatabaseUnreachable(e, databasePort());
 }
 
@@ -47,7 +49,7 @@ export function noteIfUnreachable(e: unknown): boolean {
 export const handleError: HandleServerError = ({ error: e, event, message }) => {
 	if (unreachable(e)) {
 		event.locals.databaseUnreachable = true;
-		return { message: OUTAGE_MESSAGE, reason: OUTAGE_REASON };
+		return outageError;
 	}
 	// SvelteKit's own handling, which a custom hook replaces: log it, answer with its message.
 	console.error(e);
@@ -83,7 +85,8 @@ export function identifyThroughOutages(identify: Handle): Handle {
 /**
  * First in the chain: any request that met an unreachable database (thrown out of a hook, reported
  * by `handleError` or by Auth.js's logger) is answered with 503: API.md's error body for JSON routes,
- * SvelteKit's error shape for a client-side navigation, and a page of our own for everything else.
+ * SvelteKit's error shape for a client-side navigation or an enhanced form, and a page of our own for
+ * everything else.
  */
 export const answerDuringOutage: Handle = async ({ event, resolve }) => {
 	let response: Response;
@@ -99,13 +102,23 @@ export const answerDuringOutage: Handle = async ({ event, resolve }) => {
 
 function outageAnswer(event: RequestEvent): Response {
 	console.error(`[outage] ${event.request.method} ${event.url.pathname}: 503, the database is unreachable`);
-	const headers = { 'retry-after': String(RETRY_AFTER_S), 'cache-control': 'no-store' };
+	// `securityHeaders` is further down the chain and never sees these answers.
+	const headers = {
+		'retry-after': String(RETRY_AFTER_S),
+		'cache-control': 'no-store',
+		'x-content-type-options': 'nosniff',
+		'referrer-policy': 'same-origin',
+		'x-frame-options': 'DENY'
+	};
 	let response: Response;
 	if (event.url.pathname.startsWith('/api/')) {
 		response = apiError(503, `${OUTAGE_TITLE}. ${OUTAGE_MESSAGE}`);
 	} else if (event.isDataRequest) {
 		// SvelteKit's client shows this body on the error page, with the status.
-		response = json({ message: OUTAGE_MESSAGE, reason: OUTAGE_REASON } satisfies App.Error, { status: 503 });
+		response = json(outageError, { status: 503 });
+	} else if (event.request.headers.get('x-sveltekit-action') === 'true') {
+		// A form sent by `use:enhance` reads an action result.
+		response = json({ type: 'error', error: outageError }, { status: 503 });
 	} else {
 		response = new Response(outagePage(), {
 			status: 503,
@@ -113,10 +126,7 @@ function outageAnswer(event: RequestEvent): Response {
 				'content-type': 'text/html; charset=utf-8',
 				// The page's own policy: its one script is the theme switch, its style is inline.
 				'content-security-policy':
-					"default-src 'none'; script-src 'self'; style-src 'unsafe-inline'; img-src 'self'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'",
-				'x-content-type-options': 'nosniff',
-				'referrer-policy': 'same-origin',
-				'x-frame-options': 'DENY'
+					"default-src 'none'; script-src 'self'; style-src 'unsafe-inline'; img-src 'self'; base-uri 'none'; form-action 'none'; frame-ancestors 'none'"
 			}
 		});
 	}
@@ -128,7 +138,7 @@ function outageAnswer(event: RequestEvent): Response {
  * A page that needs nothing the outage could take away: no layout data, no database, no built
  * assets but the favicon and the theme switch (`static/theme.js`, which sets the dark class).
  */
-export function outagePage(): string {
+function outagePage(): string {
 	return `<!doctype html>
 <html lang="en">
 <head>
