@@ -51,6 +51,8 @@ try {
 	log(`Squarelaw is running at ${origin}`);
 	log(`Sign in at ${origin}/signin with a demo address, then open ${origin}/dev/mail and click the link:`);
 	for (const u of users) log(`  ${u.email.padEnd(34)} ${u.name} (${u.role} of ${u.studio})`);
+	// The app's mailbox only answers on a loopback-only server (README, "The local mailbox").
+	if (mail) log(`The mail fake's own list, readable on this machine only: ${mail.httpUrl}/messages`);
 	log('Press Ctrl-C to stop.');
 } catch (e) {
 	process.stderr.write(`\n[squarelaw] ${e instanceof Error ? e.message : String(e)}\n`);

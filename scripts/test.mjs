@@ -92,6 +92,8 @@ try {
 		NODE_ENV: 'test',
 		TEST_BASE_URL: origin,
 		CHROMIUM_PATH: chromium,
+		// The outage test stops and starts the test cluster with these (unset with DATABASE_URL).
+		SQUARELAW_TEST_CLUSTER: db.cluster ? JSON.stringify(db.cluster) : '',
 		CI: process.env.CI ?? ''
 	};
 	const reports = path.join(dataDir, 'reports');

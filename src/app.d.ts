@@ -5,12 +5,16 @@ declare global {
 	namespace App {
 		interface Error {
 			message: string;
+			/** Set when the database could not be reached (see `src/lib/server/outage.ts`). */
+			reason?: 'database-unreachable';
 		}
 		interface Locals {
 			/** The signed-in user, from the Auth.js session cookie or a personal access token; null when anonymous. */
 			user: SessionUser | null;
 			/** How the user was identified: a browser session or a bearer token. */
 			authMethod: 'session' | 'token' | null;
+			/** Set when this request met an unreachable database; the answer is then a 503. */
+			databaseUnreachable?: boolean;
 		}
 		// interface PageData {}
 		// interface PageState {}

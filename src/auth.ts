@@ -10,6 +10,7 @@ import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import { sendMail } from '$lib/server/mail';
 import { sessionMaxAgeMs, withHashedSessions } from '$lib/server/hashed-sessions';
 import { signInLetter } from '$lib/server/mail/letters';
+import { noteIfUnreachable } from '$lib/server/outage';
 
 export const SIGN_IN_LINK_MINUTES = 15;
 
@@ -44,6 +45,14 @@ export const { handle: authHandle, signIn, signOut } = SvelteKitAuth({
 	trustHost: true,
 	useSecureCookies: secureCookies,
 	pages: { signIn: '/signin', verifyRequest: '/signin/check', error: '/signin/error' },
+	logger: {
+		// Auth.js logs and swallows its lookups' errors: a session lookup that failed reads as "no
+		// session". Marking the request lets the hooks answer an outage with 503 instead of a sign-out.
+		error(error) {
+			if (noteIfUnreachable(error)) console.error(`[auth][error] ${error.name}: the database is unreachable`);
+			else console.error(`[auth][error] ${error.name}: ${error.message}`, error.cause ?? '');
+		}
+	},
 	callbacks: {
 		session({ session, user }) {
 			session.user.id = user.id;

@@ -5,9 +5,13 @@ import { authHandle } from './auth';
 import { emailSchema } from '$lib/schemas/account';
 import { getUserById } from '$lib/server/db/queries/users';
 import { userForAccessToken } from '$lib/server/db/queries/tokens';
-import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+import { hitRateLimits, type RateRule } from '$lib/server/db/queries/rate-limits';
 import { tokenMayReach, tokenMayUse } from '$lib/server/authz';
 import { apiError } from '$lib/server/http';
+import { provesAddress, rememberProvenAddress, signInProofCookie } from '$lib/server/signin-proof';
+import { answerDuringOutage, identifyThroughOutages } from '$lib/server/outage';
+
+export { handleError } from '$lib/server/outage';
 
 /**
  * Sign-in links per IP address per 15 minutes. A workshop of thirty students behind one hall router
@@ -19,6 +23,21 @@ function signInLimitPerIp(): number {
 }
 
 const SESSION_COOKIES = ['authjs.session-token', '__Secure-authjs.session-token'];
+
+const SIGN_IN_WINDOW_MS = 15 * 60_000;
+
+/**
+ * The limits on a request for a sign-in link. A browser that used a link for this address recently
+ * (see `signin-proof.ts`) is counted in a bucket of its own, so strangers who use up the address's
+ * limit cannot lock its owner out; both buckets keep the mailbox from being flooded.
+ */
+function signInRules(email: string, ip: string, proven: boolean): RateRule[] {
+	if (proven) return [{ bucket: `signin:proven:${email}`, limit: 5, windowMs: SIGN_IN_WINDOW_MS }];
+	return [
+		{ bucket: `signin:addr:${email}`, limit: 5, windowMs: SIGN_IN_WINDOW_MS },
+		{ bucket: `signin:ip:${ip}`, limit: signInLimitPerIp(), windowMs: SIGN_IN_WINDOW_MS }
+	];
+}
 
 /**
  * Checks a sign-in link request before Auth.js sees it: a malformed address is sent back to the form
@@ -45,10 +64,8 @@ const guardSignInRequests: Handle = async ({ event, resolve }) => {
 		};
 		const parsed = emailSchema.safeParse(raw);
 		if (!parsed.success) redirect(303, back('InvalidEmail', raw));
-		const limits = await hitRateLimits([
-			{ bucket: `signin:addr:${parsed.data}`, limit: 5, windowMs: 15 * 60_000 },
-			{ bucket: `signin:ip:${event.getClientAddress()}`, limit: signInLimitPerIp(), windowMs: 15 * 60_000 }
-		]);
+		const proven = provesAddress(event.cookies.get(signInProofCookie()), parsed.data, env.AUTH_SECRET);
+		const limits = await hitRateLimits(signInRules(parsed.data, event.getClientAddress(), proven));
 		if (!limits.allowed) redirect(303, back('RateLimited', parsed.data));
 	}
 	return resolve(event);
@@ -94,4 +111,11 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(guardSignInRequests, authHandle, identify, securityHeaders);
+export const handle = sequence(
+	answerDuringOutage,
+	guardSignInRequests,
+	rememberProvenAddress,
+	authHandle,
+	identifyThroughOutages(identify),
+	securityHeaders
+);

@@ -197,15 +197,30 @@ export async function ensureCluster({ port, password }) {
 		);
 	}
 	log(`starting PostgreSQL on 127.0.0.1:${port} (${dir})`);
-	const options = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories= -c fsync=on`;
-	asPostgres(path.join(bin, 'pg_ctl'), ['start', '-w', '-t', '60', '-D', dir, '-l', path.join(dir, 'server.log'), '-o', options]);
+	const commands = clusterCommands({ port, password });
+	run(commands.start[0], commands.start.slice(1), { cwd: '/' });
 	return () => {
 		log('stopping PostgreSQL');
 		try {
-			asPostgres(path.join(bin, 'pg_ctl'), ['stop', '-m', 'fast', '-D', dir]);
+			run(commands.stop[0], commands.stop.slice(1), { cwd: '/' });
 		} catch (e) {
 			log(`could not stop PostgreSQL: ${e.message}`);
 		}
+	};
+}
+
+/**
+ * The commands (argument lists, run from `/`) that start and stop the local cluster. `npm test`
+ * hands them to the outage test, which stops the test cluster and starts it again.
+ */
+export function clusterCommands({ port, password }) {
+	const bin = ensurePostgresBinaries();
+	const dir = clusterDir(password);
+	const pgCtl = isRoot ? ['runuser', '-u', 'postgres', '--', path.join(bin, 'pg_ctl')] : [path.join(bin, 'pg_ctl')];
+	const options = `-c listen_addresses=127.0.0.1 -p ${port} -c unix_socket_directories= -c fsync=on`;
+	return {
+		start: [...pgCtl, 'start', '-w', '-t', '60', '-D', dir, '-l', path.join(dir, 'server.log'), '-o', options],
+		stop: [...pgCtl, 'stop', '-w', '-m', 'fast', '-D', dir]
 	};
 }
 

@@ -14,7 +14,11 @@ function connect() {
 	return postgres(url, {
 		max: Number(env.DATABASE_POOL_SIZE ?? 10),
 		idle_timeout: 30,
-		connect_timeout: 10,
+		// While the database is away, fail fast so the app can answer 503 within about two seconds:
+		// a connection attempt gives up after 2 s, and a closed connection tries again after a fixed
+		// 0.2 s instead of postgres.js's growing backoff (up to 20 s, which held requests for as long).
+		connect_timeout: 2,
+		backoff: () => 0.2,
 		onnotice: () => {}
 	});
 }

@@ -1,5 +1,5 @@
-import { env } from '$env/dynamic/private';
+import { devMailboxEnabled } from '$lib/server/dev-mail';
 
 export function load() {
-	return { devMailbox: Boolean(env.DEV_MAIL_URL) };
+	return { devMailbox: devMailboxEnabled() };
 }

@@ -4,6 +4,6 @@ import { readDevMailbox } from '$lib/server/dev-mail';
 
 export async function GET() {
 	const messages = await readDevMailbox();
-	if (!messages) return apiError(404, 'The local mail fake is not running.');
+	if (!messages) return apiError(404, 'The local mailbox is closed: it answers only on a loopback-only development server that sends mail to the local mail fake.');
 	return json(messages);
 }
