@@ -5,6 +5,8 @@ declare global {
 	namespace App {
 		interface Error {
 			message: string;
+			/** Set on an unexpected error: the same id is in the server's log beside the stack. */
+			errorId?: string;
 		}
 		interface Locals {
 			/** The signed-in user, from the Auth.js session cookie or a personal access token; null when anonymous. */

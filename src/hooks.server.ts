@@ -6,6 +6,9 @@ import { emailSchema } from '$lib/schemas/account';
 import { getUserById } from '$lib/server/db/queries/users';
 import { userForAccessToken } from '$lib/server/db/queries/tokens';
 import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+import { requestEdge } from '$lib/server/edge';
+
+export { handleError } from '$lib/server/edge';
 
 /**
  * Sign-in links per IP address per 15 minutes. A workshop of thirty students behind one hall router
@@ -83,4 +86,4 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(guardSignInRequests, authHandle, identify, securityHeaders);
+export const handle = sequence(requestEdge, guardSignInRequests, authHandle, identify, securityHeaders);
