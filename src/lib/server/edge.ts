@@ -20,10 +20,17 @@ const FORM_TYPES = new Set(['application/x-www-form-urlencoded', 'multipart/form
 
 const isApi = (event: RequestEvent) => event.url.pathname.startsWith('/api/');
 
+/**
+ * Each request's unexpected error id, for an answer SvelteKit wrote as HTML without it. Keyed by the
+ * request: SvelteKit hands `handleError` an event object of its own.
+ */
+const errorIds = new WeakMap<Request, string>();
+
 /** An unexpected error's id: in the log beside the stack and in the answer, so a report can be matched. */
 function reportUnexpected(e: unknown, event: RequestEvent): string {
 	const errorId = crypto.randomUUID();
 	console.error(`[${errorId}] ${event.request.method} ${event.url.pathname}`, e);
+	errorIds.set(event.request, errorId);
 	return errorId;
 }
 
@@ -111,16 +118,18 @@ function isKitErrorBody(body: unknown): body is { message: string; errorId?: str
 }
 
 /** A 5xx under `/api/` in API.md's shape; an answer already in a JSON shape of its own is kept. */
-async function inApiShape(response: Response): Promise<Response> {
+async function inApiShape(event: RequestEvent, response: Response): Promise<Response> {
+	const errorId = errorIds.get(event.request);
 	if ((response.headers.get('content-type') ?? '').includes('json')) {
 		const body: unknown = await response
 			.clone()
 			.json()
 			.catch(() => null);
 		if (!isKitErrorBody(body)) return response;
-		return apiError(response.status, body.message, [], body.errorId ? { errorId: body.errorId } : {});
+		const id = body.errorId ?? errorId;
+		return apiError(response.status, body.message, [], id ? { errorId: id } : {});
 	}
-	return apiError(response.status, UNEXPECTED);
+	return apiError(response.status, UNEXPECTED, [], errorId ? { errorId } : {});
 }
 
 const NOTEBOOK_API = /^\/api\/v1\/(?:setups|gear)(?:\/|$)/;
@@ -150,7 +159,7 @@ const answerSafely: Handle = async ({ event, resolve }) => {
 			? apiError(e.status, e.body.message)
 			: apiError(500, UNEXPECTED, [], { errorId: reportUnexpected(e, event) });
 	}
-	if (isApi(event) && response.status >= 500) response = await inApiShape(response);
+	if (isApi(event) && response.status >= 500) response = await inApiShape(event, response);
 	return withoutCaching(event, response);
 };
 
