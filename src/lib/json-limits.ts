@@ -37,7 +37,7 @@ export function unstorableTextProblem(text: string): string | null {
 }
 
 /** A key as it may appear in a path shown to people: the characters refused are written as escapes. */
-function printableKey(key: string): string {
+export function printableKey(key: string): string {
 	return key.replace(/[\u0000\ud800-\udfff]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
 }
 

@@ -11,7 +11,7 @@
 import { error, isHttpError, isRedirect, json, text, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { stringify } from 'devalue';
-import { unstorableTextProblem } from '$lib/json-limits';
+import { printableKey, unstorableTextProblem } from '$lib/json-limits';
 import { apiError, bodyMediaType, invalidInput } from './http';
 
 const WRITES = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
@@ -61,7 +61,7 @@ const refuseCrossSiteForms: Handle = ({ event, resolve }) => {
 function unstorableField(form: Iterable<[string, FormDataEntryValue]>): { field: string; message: string } | null {
 	for (const [name, value] of form) {
 		const nameProblem = unstorableTextProblem(name);
-		if (nameProblem) return { field: name.replace(/[\u0000\ud800-\udfff]/g, '\ufffd'), message: `(a field name) ${nameProblem}` };
+		if (nameProblem) return { field: printableKey(name), message: `(a field name) ${nameProblem}` };
 		if (typeof value !== 'string') continue;
 		const problem = unstorableTextProblem(value);
 		if (problem) return { field: name, message: problem };
@@ -76,11 +76,11 @@ function actionName(url: URL): string {
 }
 
 /**
- * Refuses a query or form body holding text that cannot be stored, before any action or route sees it
- * (a query answers 400 like a form posted without JavaScript). A page's
- * form action sent by `use:enhance` gets the failure it would get from `fail(400, { action, values,
- * errors })`, so the page shows the message beside the field; a form posted without JavaScript gets
- * SvelteKit's error page (400) naming the field; a path under `/api/` gets API.md's 400.
+ * Refuses a query or form body holding text that cannot be stored, before any action or route sees it.
+ * A page's form action sent by `use:enhance` gets the failure it would get from `fail(400, { action,
+ * values, errors })`, so the page shows the message beside the field; a form posted without JavaScript,
+ * or a page's query, gets SvelteKit's error page (400) naming the field; a path under `/api/` gets
+ * API.md's 400.
  */
 const refuseUnstorableText: Handle = async ({ event, resolve }) => {
 	const inQuery = unstorableField(event.url.searchParams);
