@@ -7,6 +7,8 @@ declare global {
 			message: string;
 			/** Set when the database could not be reached (see `src/lib/server/outage.ts`). */
 			reason?: 'database-unreachable';
+			/** Set on an unexpected error: the same id is in the server's log beside the stack. */
+			errorId?: string;
 		}
 		interface Locals {
 			/** The signed-in user, from the Auth.js session cookie or a personal access token; null when anonymous. */

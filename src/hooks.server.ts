@@ -9,9 +9,10 @@ import { hitRateLimits, type RateRule } from '$lib/server/db/queries/rate-limits
 import { tokenMayReach, tokenMayUse } from '$lib/server/authz';
 import { apiError } from '$lib/server/http';
 import { provesAddress, rememberProvenAddress, signInProofCookie } from '$lib/server/signin-proof';
-import { answerDuringOutage, identifyThroughOutages } from '$lib/server/outage';
+import { answerDuringOutage, handleOutages, identifyThroughOutages } from '$lib/server/outage';
+import { handleUnexpected, requestEdge } from '$lib/server/edge';
 
-export { handleError } from '$lib/server/outage';
+export const handleError = handleOutages(handleUnexpected);
 
 /**
  * Sign-in links per IP address per 15 minutes. A workshop of thirty students behind one hall router
@@ -112,6 +113,7 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 };
 
 export const handle = sequence(
+	requestEdge,
 	answerDuringOutage,
 	guardSignInRequests,
 	rememberProvenAddress,

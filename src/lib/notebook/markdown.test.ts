@@ -17,7 +17,47 @@ describe('renderNotes', () => {
 	it('drops images from other hosts, so no request leaves the machine', () => {
 		expect(renderNotes('![a](https://elsewhere.example/a.png)')).not.toContain('<img');
 		expect(renderNotes('![a](//elsewhere.example/a.png)')).not.toContain('<img');
-		expect(renderNotes('![a](/uploads/a.png)')).toContain('<img src="/uploads/a.png" alt="a" />');
+		expect(renderNotes('<img src="https://elsewhere.example/a.png">')).not.toContain('<img');
+	});
+
+	const setupId = '0b6f4f7e-3c1a-4a57-9d55-2f1e8c0d9a10';
+
+	it("shows images from the product's own image routes: a revision's thumbnail, a setup's shots", () => {
+		const thumb = `/api/v1/setups/${setupId}/revisions/3/thumbnail`;
+		expect(renderNotes(`![plan](${thumb})`)).toContain(`<img src="${thumb}" alt="plan" />`);
+		const shot = `/api/v1/setups/${setupId}/shots/7c1e/full.jpg`;
+		expect(renderNotes(`![shot](${shot})`)).toContain(`<img src="${shot}" alt="shot" />`);
+	});
+
+	it('never loads a sign-in link, or any other path of this site, as an image', () => {
+		const attempts = [
+			'/auth/callback/nodemailer?token=abc&email=victim%40example.com',
+			'/auth/signout',
+			'/signout',
+			'/uploads/a.png',
+			'/api/v1/setups',
+			`/api/v1/setups/${setupId}/export`,
+			// Paths a browser resolves to another route: dot segments, escaped dots, backslashes, a query.
+			`/api/v1/setups/${setupId}/shots/../../../../auth/callback/nodemailer`,
+			`/api/v1/setups/${setupId}/shots/%2e%2e/%2e%2e/%2e%2e/%2e%2e/auth/signout`,
+			`/api/v1/setups/${setupId}/shots/a\\..\\..\\..\\auth`,
+			`/api/v1/setups/${setupId}/revisions/3/thumbnail?next=/auth/signout`,
+			`/api/v1/setups/../../auth/callback/nodemailer/revisions/1/thumbnail`,
+			`api/v1/setups/${setupId}/revisions/3/thumbnail`,
+			`http://127.0.0.1:3000/api/v1/setups/${setupId}/revisions/3/thumbnail`,
+			'data:image/png;base64,iVBORw0KGgo='
+		];
+		for (const src of attempts) {
+			expect(renderNotes(`![x](${src})`), src).not.toContain('<img');
+			expect(renderNotes(`<img src="${src}" alt="x">`), src).not.toContain('<img');
+		}
+		// As a link the sign-in path is only text to click, never fetched by the page.
+		expect(renderNotes('[sign in](/auth/signin)')).toContain('<a href="/auth/signin"');
+	});
+
+	it('reads an entity-encoded path as the browser would before deciding', () => {
+		expect(renderNotes('<img src="&#47;auth&#47;signout">')).not.toContain('<img');
+		expect(renderNotes(`<img src="/api/v1/setups/${setupId}/shots/a&#x2f;..&#x2f;..&#x2f;..&#x2f;..&#x2f;auth&#x2f;signout">`)).not.toContain('<img');
 	});
 
 	it('gives nothing for empty notes', () => {

@@ -1,7 +1,7 @@
 /**
  * Setup notes are Markdown, rendered on the server with `marked` and cleaned with `sanitize-html`
- * before they reach a page: no scripts, styles, event handlers or off-machine images, and links open
- * safely. Import this from server code only (sanitize-html is not meant for the browser bundle).
+ * before they reach a page: no scripts, styles or event handlers, images only from the product's own
+ * image routes, and links open safely. Import this from server code only (sanitize-html is not meant for the browser bundle).
  */
 import { Marked } from 'marked';
 import sanitizeHtml from 'sanitize-html';
@@ -21,19 +21,30 @@ const ALLOWED = {
 		code: ['class']
 	},
 	allowedSchemes: ['http', 'https', 'mailto'],
-	// Images only from this site (a request may never leave the machine): relative paths and data URLs.
-	allowedSchemesByTag: { img: ['data'] },
+	allowedSchemesByTag: { img: [] },
 	allowProtocolRelative: false,
 	transformTags: {
 		a: (tagName: string, attribs: Record<string, string>) => ({
 			tagName,
 			attribs: { ...attribs, rel: 'noopener noreferrer nofollow' }
 		}),
-		// An image from another host is dropped (turned into a tag that is not allowed, so it vanishes).
+		// Any other image is dropped (turned into a tag that is not allowed, so it vanishes).
 		img: (tagName: string, attribs: Record<string, string>) =>
-			/^(?:[a-z][a-z0-9+.-]*:)?\/\//i.test((attribs.src ?? '').trim()) ? { tagName: 'dropped-image', attribs: {} } : { tagName, attribs }
+			isOwnImage(attribs.src ?? '') ? { tagName, attribs } : { tagName: 'dropped-image', attribs: {} }
 	}
 } satisfies sanitizeHtml.IOptions;
+
+/**
+ * The product's own image routes: a revision's thumbnail and a setup's shots. A browser loads an image
+ * with the reader's cookies, so notes may not point one anywhere else on this site (a sign-in link under
+ * `/auth/` would sign the reader in as someone else) nor off the machine. Segments are plain names: no
+ * dots, escapes or backslashes that a browser would resolve to another path.
+ */
+const OWN_IMAGE = /^\/api\/v1\/setups\/[A-Za-z0-9-]+\/(?:revisions\/\d+\/thumbnail|shots(?:\/[A-Za-z0-9_-]+(?:\.[A-Za-z0-9]+)?)+)$/;
+
+export function isOwnImage(src: string): boolean {
+	return OWN_IMAGE.test(src);
+}
 
 /** Markdown to safe HTML. Empty notes give an empty string. */
 export function renderNotes(markdown: string): string {

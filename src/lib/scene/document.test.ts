@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { CURRENT_SCHEMA_VERSION, MAX_NOTES_CHARS, referencedGearIds, setupDocumentSchema } from './document';
+import { MAX_DOCUMENT_DEPTH, MAX_DOCUMENT_ENTRIES } from '$lib/json-limits';
 
 const scene = {
 	camera: { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.5 },
@@ -47,6 +48,30 @@ describe('setupDocumentSchema', () => {
 		expect(paths(bad).sort()).toEqual(
 			['plan.elements.key.colour', 'plan.elements.key.gearId', 'plan.elements.key.kind', 'plan.elements.key.rotationDeg', 'plan.elements.key.widthM'].sort()
 		);
+	});
+
+	it('bounds what the loose objects keep: nesting and entries, naming the field', () => {
+		const deepValue = (levels: number) => JSON.parse('{"a":'.repeat(levels) + '1' + '}'.repeat(levels));
+		// futureField's object is at level 4 (the document is 0): 28 nested objects end at level 31, 29 at 32.
+		const within = { elements: { key: { kind: 'flash', futureField: deepValue(28) } } };
+		expect(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: within }).success).toBe(true);
+		for (const levels of [29, 2000, 10_000]) {
+			const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: { elements: { key: { futureField: deepValue(levels) } } } });
+			expect(r.success, `${levels} levels`).toBe(false);
+			expect(paths(r)[0]).toMatch(/^plan\.elements\.key\.futureField(\.a)+$/);
+			expect(r.error?.issues[0].message).toBe(`nests more than ${MAX_DOCUMENT_DEPTH} levels deep`);
+		}
+		const wide = { elements: { key: { futureField: Array(MAX_DOCUMENT_ENTRIES + 1).fill(0) } }, viewport: { extra: {} } };
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: wide }))).toEqual(['plan.elements.key.futureField']);
+		const manyKeys = Object.fromEntries(Array.from({ length: MAX_DOCUMENT_ENTRIES + 1 }, (_, i) => [`k${i}`, i]));
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: { viewport: manyKeys } }))).toEqual(['plan.viewport']);
+	});
+
+	it('refuses text that cannot be stored anywhere in the document', () => {
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'a\u0000b' }))).toEqual(['notes']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'a\ud800b' }))).toEqual(['notes']);
+		const label = { elements: { key: { label: 'Key\u0000' } } };
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: label }))).toEqual(['plan.elements.key.label']);
 	});
 
 	it('limits notes', () => {

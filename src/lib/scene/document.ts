@@ -17,6 +17,7 @@
 import { z } from 'zod';
 import { exposureSceneSchema, vec2Schema, vec3Schema } from '$lib/light/schema';
 import { gearKindSchema, gearSpecSchemas } from './gear';
+import { findJsonProblem, MAX_DOCUMENT_DEPTH, MAX_DOCUMENT_ENTRIES } from '$lib/json-limits';
 
 export const CURRENT_SCHEMA_VERSION = 1;
 
@@ -126,6 +127,9 @@ export const setupDocumentSchema = z
 			.default([])
 	})
 	.superRefine((doc, ctx) => {
+		// The loose objects keep fields this server does not know; those may not nest or grow without bound.
+		const problem = findJsonProblem(doc, { maxDepth: MAX_DOCUMENT_DEPTH, maxEntries: MAX_DOCUMENT_ENTRIES });
+		if (problem) ctx.addIssue({ code: 'custom', path: problem.path, message: problem.message });
 		const seen = new Set<string>();
 		doc.gear.forEach((g, i) => {
 			if (seen.has(g.id)) ctx.addIssue({ code: 'custom', path: ['gear', i, 'id'], message: `gear ${g.id} is copied twice` });

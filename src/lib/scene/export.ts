@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import type { SetupDocument } from './document';
 import { documentInputSchema, subjectField, tagsField, titleField } from './inputs';
+import { findJsonProblem, MAX_BODY_DEPTH } from '$lib/json-limits';
 
 export const EXPORT_FORMAT_VERSION = 1;
 export const EXPORT_KIND = 'squarelaw.setup';
@@ -125,6 +126,11 @@ export function parseSetupExport(text: unknown): ParseExportResult {
 		return problem('invalid', `The file's formatVersion must be ${EXPORT_FORMAT_VERSION}.`, [
 			{ path: ['formatVersion'], message: `must be ${EXPORT_FORMAT_VERSION}` }
 		]);
+	}
+	// The same rule as every request body: text that can be stored, nesting within bounds.
+	const unstorable = findJsonProblem(obj, { maxDepth: MAX_BODY_DEPTH });
+	if (unstorable) {
+		return problem('invalid', `The setup file is not valid: ${unstorable.path.join('.') || 'file'} ${unstorable.message}.`, [unstorable]);
 	}
 	const parsed = setupExportSchema.safeParse(obj);
 	if (!parsed.success) {

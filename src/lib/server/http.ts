@@ -1,6 +1,7 @@
 import { isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
 import { RuleViolation } from './errors';
+import { findJsonProblem, MAX_BODY_DEPTH } from '$lib/json-limits';
 
 /** The error shape fixed by API.md for every JSON route. */
 export interface ApiErrorBody {
@@ -16,16 +17,28 @@ export function apiError(
 	return json({ error: { message, issues }, ...extra } satisfies ApiErrorBody, { status });
 }
 
-/** Turns a zod error into API.md's 400 answer, naming every field at fault. */
-export function zodErrorResponse(error: z.ZodError) {
-	const issues = error.issues.map((issue) => ({
-		path: issue.path.map(String),
-		message: issue.message
-	}));
+/** API.md's 400 answer naming every field at fault; the message names the first. */
+export function invalidInput(issues: { path: string[]; message: string }[]) {
 	const first = issues[0];
 	const where = first && first.path.length ? `${first.path.join('.')}: ` : '';
 	return apiError(400, `Invalid input. ${where}${first?.message ?? 'check the body'}`, issues);
 }
+
+/** Turns a zod error into API.md's 400 answer, naming every field at fault. */
+export function zodErrorResponse(error: z.ZodError) {
+	return invalidInput(error.issues.map((issue) => ({ path: issue.path.map(String), message: issue.message })));
+}
+
+/** The media type of a request's body, lower-case without parameters; null when not given. */
+export function bodyMediaType(request: Request): string | null {
+	const header = request.headers.get('content-type');
+	return header ? header.split(';')[0].trim().toLowerCase() : null;
+}
+
+const notJson = () =>
+	apiError(415, 'The body must be JSON, sent with Content-Type: application/json.', [
+		{ path: [], message: 'send Content-Type: application/json' }
+	]);
 
 export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
 
@@ -33,7 +46,9 @@ type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
 
 /**
  * Reads a JSON body with a size limit and validates it with `schema`.
- * Oversized bodies get 413, unreadable JSON and schema failures get 400; nothing here can throw a 500.
+ * A body that is not `application/json` gets 415, oversized bodies 413; unreadable JSON, text that
+ * cannot be stored (NUL, a lone surrogate), nesting past `MAX_BODY_DEPTH` and schema failures get 400
+ * naming the field; nothing here can throw a 500.
  * `fast` (see `fast-accept.ts`) may accept a valid body without zod; anything it does not accept is
  * validated by `schema`, which names the fields at fault.
  */
@@ -43,6 +58,8 @@ export async function parseJsonBody<S extends z.ZodType>(
 	maxBytes = DEFAULT_MAX_BODY_BYTES,
 	fast?: (raw: unknown) => raw is z.output<S>
 ): Promise<ParseResult<z.output<S>>> {
+	const type = bodyMediaType(request);
+	if (type !== null && type !== 'application/json') return { ok: false, response: notJson() };
 	const declared = Number(request.headers.get('content-length') ?? '0');
 	if (declared > maxBytes) {
 		return { ok: false, response: apiError(413, `Body too large: at most ${maxBytes} bytes.`) };
@@ -56,6 +73,7 @@ export async function parseJsonBody<S extends z.ZodType>(
 		}
 		return { ok: false, response: apiError(400, 'The body could not be read.') };
 	}
+	if (text.length && type === null) return { ok: false, response: notJson() };
 	let raw: unknown;
 	try {
 		raw = text.length ? JSON.parse(text) : undefined;
@@ -65,6 +83,9 @@ export async function parseJsonBody<S extends z.ZodType>(
 			response: apiError(400, 'The body is not valid JSON.', [{ path: [], message: 'Expected a JSON object' }])
 		};
 	}
+	// One rule for every text field, and a bound on nesting, before any schema or the database sees it.
+	const problem = findJsonProblem(raw, { maxDepth: MAX_BODY_DEPTH });
+	if (problem) return { ok: false, response: invalidInput([problem]) };
 	if (fast?.(raw)) return { ok: true, data: raw };
 	const parsed = schema.safeParse(raw);
 	if (!parsed.success) return { ok: false, response: zodErrorResponse(parsed.error) };

@@ -45,16 +45,17 @@ export function noteIfUnreachable(e: unknown): boolean {
 	return true;
 }
 
-/** Route errors (a load or an endpoint whose query failed): our words, and the mark for `answerDuringOutage`. */
-export const handleError: HandleServerError = ({ error: e, event, message }) => {
-	if (unreachable(e)) {
-		event.locals.databaseUnreachable = true;
+/**
+ * Route errors (a load or an endpoint whose query failed): an unreachable database gets our words and
+ * the mark for `answerDuringOutage`; every other error goes on to `next`.
+ */
+export function handleOutages(next: HandleServerError): HandleServerError {
+	return (input) => {
+		if (!unreachable(input.error)) return next(input);
+		input.event.locals.databaseUnreachable = true;
 		return outageError;
-	}
-	// SvelteKit's own handling, which a custom hook replaces: log it, answer with its message.
-	console.error(e);
-	return { message };
-};
+	};
+}
 
 /**
  * Wraps `identify`: when the caller's session or token could not be looked up because the database

@@ -30,6 +30,7 @@ import {
 	type SetupDocument
 } from '$lib/scene/document';
 import { migrateDocument, type DocumentIssue } from '$lib/scene/migrations';
+import { MAX_DOCUMENT_DEPTH, trimJson } from '$lib/json-limits';
 import type {
 	SetupCreateInput,
 	SetupDuplicateInput,
@@ -110,14 +111,24 @@ export interface ReadDocument {
 	document: SetupDocument;
 	/** Set when the stored document no longer passes today's checks; it is shown as stored, never lost. */
 	documentIssues?: DocumentIssue[];
+	/** Parts nested too deep to show (stored before the limit existed), left out of `document`. */
+	documentTrimmed?: string[][];
 	migratedFrom?: number;
 }
 
-/** A stored document, migrated to the current schemaVersion. */
+/**
+ * A stored document, migrated to the current schemaVersion. One that nests deeper than a document may
+ * (stored before that limit) is read without the too-deep parts, which no page could render.
+ */
 export function readStoredDocument(raw: unknown): ReadDocument {
 	const result = migrateDocument(raw);
 	if (result.ok) return { document: result.document, ...(result.migratedFrom !== null ? { migratedFrom: result.migratedFrom } : {}) };
-	return { document: raw as SetupDocument, documentIssues: result.issues };
+	const trimmed = trimJson(raw, MAX_DOCUMENT_DEPTH);
+	if (!trimmed.dropped.length) return { document: raw as SetupDocument, documentIssues: result.issues };
+	const again = migrateDocument(trimmed.value);
+	return again.ok
+		? { document: again.document, documentTrimmed: trimmed.dropped }
+		: { document: trimmed.value as SetupDocument, documentIssues: again.issues, documentTrimmed: trimmed.dropped };
 }
 
 function searchTextOf(title: string, subject: string, tags: string[], document: SetupDocument) {

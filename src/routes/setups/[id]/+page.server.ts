@@ -45,6 +45,7 @@ export async function load({ params, fetch, url, locals }) {
 			derivatives: setup.derivatives
 		},
 		document: setup.document,
+		documentTrimmed: (setup.documentTrimmed as string[][] | undefined) ?? [],
 		labels: elementLabels(setup.document),
 		notesHtml: renderNotes(setup.document.notes ?? ''),
 		exposure: exposure.ok ? exposure.data : null,
