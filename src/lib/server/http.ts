@@ -1,5 +1,6 @@
 import { isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { MAX_JSON_BODY_BYTES } from '$lib/scene/inputs';
 import { RuleViolation } from './errors';
 
 /** The error shape fixed by API.md for every JSON route. */
@@ -27,7 +28,8 @@ export function zodErrorResponse(error: z.ZodError) {
 	return apiError(400, `Invalid input. ${where}${first?.message ?? 'check the body'}`, issues);
 }
 
-export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+/** Derived with the thumbnail and document limits in `$lib/scene/inputs`, so a valid save always fits. */
+export const DEFAULT_MAX_BODY_BYTES = MAX_JSON_BODY_BYTES;
 
 type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
 
