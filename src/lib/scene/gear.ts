@@ -134,6 +134,13 @@ export const gearCreateSchema = z
 	});
 export type GearCreateInput = z.output<typeof gearCreateSchema>;
 
+/** The query string of `GET /api/v1/gear`. */
+export const gearQuerySchema = z.object({
+	studio: z.uuid({ error: 'must be a studio id' }).optional(),
+	kind: gearKindSchema.optional(),
+	retired: z.enum(['0', '1', 'true', 'false'], { error: 'must be 1 or 0' }).optional()
+});
+
 /** A change to an item: any of name, spec (whole, checked against the item's kind), notes, retired. */
 export const gearUpdateSchema = z
 	.object({
