@@ -250,7 +250,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	await expect(sheet.locator('img')).toHaveAttribute('src', /^data:image\/png;base64,/);
 	const sheetRow = sheet.getByTestId('sheet-aperture-table').locator('tr[aria-current="true"]');
 	const wa16 = (await sheetRow.locator('td').first().textContent())!.trim();
-	expect(wa16).toBe('f/32'); // working aperture N × (1 + m/P) = 16 × 2 at 1:1 (API.md)
+	expect(wa16).toBe('f/32'); // working aperture N × (1 + m/P) = 16 × 2 at 1:1 (/api/v1/openapi.json)
 	const pdf = await page.pdf({ format: 'A4', printBackground: true });
 	const doc = await getDocumentProxy(new Uint8Array(pdf));
 	expect(doc.numPages).toBe(1);

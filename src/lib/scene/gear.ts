@@ -31,7 +31,7 @@ const positive = (max: number, unit = '') =>
 const syncSpeedS = positive(10, 's');
 
 export const flashSpecSchema = z.object({
-	/** Guide number in metres at ISO 100 and full power, as the head is set (API.md). */
+	/** Guide number in metres at ISO 100 and full power, as the head is set (/api/v1/openapi.json). */
 	guideNumberM: guideNumberField,
 	/** The lowest power the flash offers, as a fraction of full power (1/128 = 0.0078125). */
 	lowestPower: z

@@ -17,7 +17,7 @@ export function apiError(
 	return json({ error: { message, issues }, ...extra } satisfies ApiErrorBody, { status });
 }
 
-/** Turns a zod error into API.md's 400 answer, naming every field at fault. */
+/** Turns a zod error into the API's 400 answer (/api/v1/openapi.json), naming every field at fault. */
 export function zodErrorResponse(error: z.ZodError) {
 	const issues = error.issues.map((issue) => ({
 		path: issue.path.map(String),
@@ -114,7 +114,7 @@ type IssueList = { path: string[]; message: string }[];
 
 /**
  * Wraps a JSON route handler so that a refusal thrown with SvelteKit's `error()` (401, 403, 404, …) or a
- * `RuleViolation` becomes API.md's error body with the same status. A RuleViolation may carry `issues`
+ * `RuleViolation` becomes the API's error body with the same status. A RuleViolation may carry `issues`
  * (else its `field` names the one at fault) and `extra` fields for the body (e.g. `latestRevision` on a
  * 409). Anything else is a bug and is left to SvelteKit.
  */

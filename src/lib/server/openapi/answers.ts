@@ -27,19 +27,22 @@ export const staleSaveAnswer = errorAnswer.extend({ latestRevision: revisionNumb
 
 export const flashAnswer = z.object({
 	effectiveGuideNumber: num.describe('GN × √(ISO/100) × √power × 2^(−lossStops/2), metres'),
-	workingApertureForCorrect: num,
-	markedApertureForCorrect: num,
+	workingApertureForCorrect: num.describe('effectiveGuideNumber / distance'),
+	markedApertureForCorrect: num.describe('workingApertureForCorrect / (1 + m/P)'),
 	bellowsFactor: num.describe('1 + m/P'),
-	workingAperture: num.optional(),
+	workingAperture: num.optional().describe('N × (1 + m/P), N the marked aperture'),
 	exposureOffsetStops: num.optional().describe('2·log2(workingApertureForCorrect / workingAperture); positive = over'),
 	requiredPower: num.optional().describe('the exact fraction of full power for a correct exposure; may exceed 1'),
 	withinRange: z.boolean().optional(),
-	nearestPowerStep: z.object({ fraction: num, label: text, residualStops: num }).optional(),
+	nearestPowerStep: z
+		.object({ fraction: num, label: text, residualStops: num })
+		.optional()
+		.describe('the ladder step (2^(−k/3), k = 0…24) nearest to requiredPower in stops, with the error left there (positive = over)'),
 	cautions: z.array(text)
 });
 
 export const opticsAnswer = z.object({
-	workingAperture: num,
+	workingAperture: num.describe('N × (1 + m/P)'),
 	lightLossStops: num.describe('2·log2(1 + m/P)'),
 	bellowsFactor: num,
 	dofMm: num.describe('total depth of field, 2·N·c·(1 + m/P) / m²'),
@@ -48,18 +51,21 @@ export const opticsAnswer = z.object({
 	diffractionLimitAperture: num.describe('the marked aperture where the Airy disk reaches the circle of confusion'),
 	extensionMm: num.optional(),
 	subjectDistanceMm: num.optional(),
-	stack: z.object({ frames: z.int(), stepMm: num }).optional(),
+	stack: z
+		.object({ frames: z.int(), stepMm: num })
+		.optional()
+		.describe('with subjectDepthMm: stepMm = dofMm × (1 − overlap), frames = max(1, ceil((subjectDepthMm − dofMm) / stepMm) + 1)'),
 	balancedAperture: z.object({ workingAperture: num, markedAperture: num, blurUm: num }).optional()
 });
 
 const markedShutter = z.object({ label: text, exactS: num, residualStops: num });
 
 export const ambientAnswer = z.object({
-	ev100: num,
+	ev100: num.describe('EV at ISO 100; from incident lux E: log2(E · 100 / C)'),
 	ev100From: z.enum(['ev100', 'illuminance', 'luminance', 'skyPreset', 'meter']),
 	illuminanceLux: num,
 	workingAperture: num,
-	exposureOffsetStops: num.optional(),
+	exposureOffsetStops: num.optional().describe('ev100 + log2(ISO/100) + log2(shutter) − 2·log2(workingAperture) − lossStops'),
 	shutterForCorrect: num.describe('seconds'),
 	shutterForBalance: num.optional(),
 	markedShutterForCorrect: markedShutter.optional(),

@@ -130,7 +130,7 @@ export function openApiDocument(): JsonSchema {
 			title: 'Squarelaw API',
 			version: '1',
 			description:
-				'The calculation API (public) and the setups API (signed in) of Squarelaw, a lighting-setup notebook. Paths, field names, units and meanings under /api/v1 are stable: fields are added, never renamed or re-united. Units: distances in metres, small lengths in millimetres (…Mm), micrometres (…Um) and nanometres (…Nm), time in seconds, angles in degrees, exposure offsets in stops (positive = over-exposed). An f-number without qualifier is the marked aperture; the working aperture is N × (1 + m/P).'
+				'The calculation API (public) and the setups API (signed in) of Squarelaw, a lighting-setup notebook. Paths, field names, units and meanings under /api/v1 are stable: fields are added, never renamed or re-united. Units: distances in metres, small lengths in millimetres (…Mm), micrometres (…Um) and nanometres (…Nm), time in seconds, angles in degrees, exposure offsets in stops (positive = over-exposed). Guide numbers are in metres at ISO 100 and full power, as the flash head is set. An f-number without qualifier is the marked aperture; the working aperture is N × (1 + m/P) for magnification m and pupil magnification P (default 1).'
 		},
 		tags: Object.values(GROUPS).map(({ name, description }) => ({ name, description })),
 		paths,

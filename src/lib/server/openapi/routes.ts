@@ -102,7 +102,7 @@ export const API_ROUTES: ApiRoute[] = [
 		'A whole scene: every light at the subject, the total, key light, lighting ratio and the aperture table',
 		exposureSceneSchema,
 		answers.exposureAnswer,
-		'Exposure units: X = 1 is a correct exposure at the working aperture; stops = log2(X). Reflectors take their light from `source` (a light id or "ambient"); a flag between a light and the subject (in plan) blocks it.'
+		'Exposure units: X = 1 is a correct exposure at the working aperture N_w; stops = log2(X). Direct flash: X = (effectiveGuideNumber / (d · N_w))². Continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250. Ambient: X = 2^ev100 × (ISO/100) × t / N_w². A diffuse reflector is a Lambertian disc of its area lit by its `source` (a light id or "ambient"); a specular one returns reflectance × the source’s X over the whole path. A light whose straight path to the subject crosses a flag, in plan, gives 0. The aperture table runs in third stops (exact values 2^(k/6)) from minAperture (default 2.8) to maxAperture (default 32).'
 	),
 	{
 		method: 'get',
@@ -137,7 +137,8 @@ export const API_ROUTES: ApiRoute[] = [
 		group: GROUPS.setups.name,
 		access: 'signed-in',
 		summary: 'A new setup with its first revision',
-		description: '`document` is the setup document `{ schemaVersion, scene, plan, notes }`; `scene` is the body of POST /api/v1/exposure and `plan` may be `{}`. `thumbnailPng` is base64 (or a data URL).',
+		description:
+			'`document` is the setup document `{ schemaVersion, scene, plan, notes }`: `scene` is the body of POST /api/v1/exposure; a document with an empty `plan` (`{}`) and empty `notes` is valid, and the editor lays out what the plan lacks. An older `schemaVersion` is migrated. `thumbnailPng` is a PNG as base64 (or a data URL).',
 		body: { schema: setupCreateSchema },
 		answer: { status: 201, description: 'Created', schema: answers.createdAnswer }
 	},

@@ -1,6 +1,6 @@
 /**
  * The calculation API through HTTP against the running app (`npm test` starts it and sets
- * TEST_BASE_URL). Answers are checked field by field against API.md; a fuzz run sends well over a
+ * TEST_BASE_URL). Answers are checked field by field against the API (/api/v1/openapi.json); a fuzz run sends well over a
  * thousand malformed bodies and accepts no 5xx.
  */
 import fc from 'fast-check';
