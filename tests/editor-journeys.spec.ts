@@ -219,7 +219,10 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	expect(saved.thumbnailRevision).toBe(1);
 	const thumb = await page.request.get(`/api/v1/setups/${id}/revisions/1/thumbnail`);
 	expect(thumb.headers()['content-type']).toBe('image/png');
-	expect([...(await thumb.body()).subarray(1, 4)].map((c) => String.fromCharCode(c)).join('')).toBe('PNG');
+	const png = await thumb.body();
+	expect([...png.subarray(1, 4)].map((c) => String.fromCharCode(c)).join('')).toBe('PNG');
+	// At most THUMBNAIL_BOX_PX (360) on its longer side (IHDR width and height), so any the editor makes fits the API's limit.
+	expect(Math.max(png.readUInt32BE(16), png.readUInt32BE(20))).toBeLessThanOrEqual(360);
 
 	// Reload: the plan is as saved, nothing restored from a draft.
 	await page.reload();
@@ -250,7 +253,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	await expect(sheet.locator('img')).toHaveAttribute('src', /^data:image\/png;base64,/);
 	const sheetRow = sheet.getByTestId('sheet-aperture-table').locator('tr[aria-current="true"]');
 	const wa16 = (await sheetRow.locator('td').first().textContent())!.trim();
-	expect(wa16).toBe('f/32'); // working aperture N × (1 + m/P) = 16 × 2 at 1:1 (API.md)
+	expect(wa16).toBe('f/32'); // working aperture N × (1 + m/P) = 16 × 2 at 1:1 (/api/v1/openapi.json)
 	const pdf = await page.pdf({ format: 'A4', printBackground: true });
 	const doc = await getDocumentProxy(new Uint8Array(pdf));
 	expect(doc.numPages).toBe(1);

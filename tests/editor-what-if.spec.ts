@@ -24,7 +24,7 @@ test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Kee
 	const undo = page.getByRole('button', { name: 'Undo' });
 	await expect(undo).toBeDisabled();
 
-	// Guide-number exposure X = (GN·√power / (d·N_w))² (API.md): GN 40 at 1/8 from 30 cm at f/16 × 1.5.
+	// Guide-number exposure X = (GN·√power / (d·N_w))² (/api/v1/openapi.json): GN 40 at 1/8 from 30 cm at f/16 × 1.5.
 	const stops = (dM: number) => Math.log2(((40 * Math.sqrt(1 / 8)) / (dM * 24)) ** 2);
 	const fmt = (s: number) => `${s > 0 ? '+' : '−'}${Math.abs(s).toFixed(1)}`;
 	await whatIf.getByLabel('Distance to the subject').fill('6');

@@ -118,7 +118,7 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	const shownStep = (await rakeLine.getByTestId('flash-power-step').textContent())!.trim();
 
 	// The same flash through the flash calculation route: GN / (d · N_w) is the guide-number relation
-	// (any flash manual; API.md, calc/flash), with the working aperture N × (1 + m/P).
+	// (any flash manual; /api/v1/openapi.json, calc/flash), with the working aperture N × (1 + m/P).
 	const setup = await (await page.request.get(`/api/v1/setups/${id}`)).json();
 	const scene = setup.document.scene;
 	const rake = scene.lights.find((l: { id: string }) => l.id === 'rake');

@@ -52,7 +52,7 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	const cam = setup.document.scene.camera;
 	const row16 = (exposure.apertureTable as ApiRow[]).find((r) => r.label === 'f/16')!;
 	const cells = chosen.getByRole('cell');
-	// Working aperture N × (1 + m/P) and close-up depth of field 2·N·c·(1 + m/P)/m² (API.md, calc/optics;
+	// Working aperture N × (1 + m/P) and close-up depth of field 2·N·c·(1 + m/P)/m² (/api/v1/openapi.json, calc/optics;
 	// the close-up approximation of any macro handbook, e.g. Lefkowitz, The Manual of Close-Up Photography).
 	const wa = 16 * (1 + cam.magnification / (cam.pupilMagnification ?? 1));
 	const dof = (2 * 16 * (cam.cocMm ?? 0.03) * (1 + cam.magnification / (cam.pupilMagnification ?? 1))) / cam.magnification ** 2;
@@ -62,7 +62,7 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	await expect(cells.nth(1)).toHaveText(stops === 0 ? '0' : `${stops > 0 ? '+' : '−'}${Math.abs(stops).toFixed(1)}`);
 	expect(row16.dofMm).toBeCloseTo(dof, 9);
 	await expect(cells.nth(2)).toHaveText(`${Number(dof.toPrecision(3))} mm`);
-	// Airy disk 2.44·λ·N_w at 550 nm (API.md): larger than the 30 µm circle of confusion, so it softens.
+	// Airy disk 2.44·λ·N_w at 550 nm (/api/v1/openapi.json): larger than the 30 µm circle of confusion, so it softens.
 	expect(row16.airyDiskUm).toBeCloseTo(2.44 * 0.55 * wa, 6);
 	await expect(chosen).toContainText('softens detail');
 	await expect(page.getByTestId('exposure-summary')).toContainText('Key light');

@@ -38,7 +38,7 @@ describe('falloff map', () => {
 	});
 
 	it('twice as far from a single bare flash reads −2 stops (inverse-square law)', () => {
-		// Inverse-square law, API.md (POST /api/v1/exposure): X = (GN_eff / (d · N_w))².
+		// Inverse-square law, the API (POST /api/v1/exposure in /api/v1/openapi.json): X = (GN_eff / (d · N_w))².
 		const one: ExposureScene = exposureSceneSchema.parse({
 			camera: { iso: 100, aperture: 16, shutter: 1 / 125, magnification: 0 },
 			subject: { position: [0, 0, 0] },

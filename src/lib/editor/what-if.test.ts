@@ -48,7 +48,7 @@ describe('previewWhatIf', () => {
 		expect(p.distanceWords).toBe('twice as far: −2.0 stops');
 		expect(p.oldDistanceM).toBeCloseTo(0.5, 12);
 		expect(p.distanceM).toBeCloseTo(1, 12);
-		// Guide-number exposure, X = (GN·√power / (d·N_w))² (API.md's formula; GN = distance × f-number is
+		// Guide-number exposure, X = (GN·√power / (d·N_w))² (the API's formula, /api/v1/openapi.json; GN = distance × f-number is
 		// the definition of a guide number, common practice). GN 40 at 1/8 power, f/16 at 1:2 → N_w = 24.
 		const gn = 40 * Math.sqrt(1 / 8);
 		expect(p.contributionStops.before).toBeCloseTo(Math.log2((gn / (0.5 * 24)) ** 2), 9);

@@ -40,7 +40,7 @@ export function ev100FromMeterReading(aperture: number, shutterS: number, iso = 
 	return exposureValue(aperture, shutterS) - Math.log2(iso / 100);
 }
 
-/** EV at ISO 100 from incident illuminance: log2(E · 100 / C) (API.md). */
+/** EV at ISO 100 from incident illuminance: log2(E · 100 / C) (API: /api/v1/openapi.json). */
 export function ev100FromIlluminance(illuminanceLux: number, calibrationC = CALIBRATION_C_FLAT): number {
 	return Math.log2((illuminanceLux * 100) / calibrationC);
 }
@@ -60,7 +60,7 @@ export function ev100FromSkyPreset(preset: SkyPreset): number {
 }
 
 /**
- * Ambient exposure offset in stops (positive = over) at a working aperture (API.md):
+ * Ambient exposure offset in stops (positive = over) at a working aperture (API: /api/v1/openapi.json):
  * ev100 + log2(ISO/100) + log2(t) − 2·log2(N_w) − lossStops.
  */
 export function ambientOffsetStops(
@@ -73,7 +73,7 @@ export function ambientOffsetStops(
 	return ev100 + Math.log2(iso / 100) + Math.log2(shutterS) - 2 * Math.log2(workingF) - lossStops;
 }
 
-/** Ambient exposure in exposure units (1 = correct): 2^ev100 × (ISO/100) × t / N_w² (API.md). */
+/** Ambient exposure in exposure units (1 = correct): 2^ev100 × (ISO/100) × t / N_w² (API: /api/v1/openapi.json). */
 export function ambientExposure(ev100: number, iso: number, shutterS: number, workingF: number): number {
 	return (2 ** ev100 * (iso / 100) * shutterS) / (workingF * workingF);
 }
@@ -153,7 +153,7 @@ export function resolveEv100(input: AmbientCalcInput): { ev100: number; from: Am
 	throw new RangeError('no ambient reading given');
 }
 
-/** `POST /api/v1/calc/ambient` (API.md). */
+/** `POST /api/v1/calc/ambient` (see /api/v1/openapi.json). */
 export function ambientCalc(input: AmbientCalcInput): AmbientCalcResult {
 	const { ev100, from } = resolveEv100(input);
 	const wa = workingAperture(input.aperture, input.magnification, input.pupilMagnification);

@@ -1,5 +1,5 @@
 /**
- * The calculation routes of API.md as plain functions: each route's schema and engine call, keyed by its
+ * The calculation routes (/api/v1/openapi.json) as plain functions: each route's schema and engine call, keyed by its
  * path. The JSON routes serve them over HTTP; the calculator's form actions call them directly, so a
  * page view does not make internal HTTP requests (nor the session look-ups that come with them).
  */

@@ -15,12 +15,12 @@ export function kelvinFromMired(miredValue: number): number {
 	return 1e6 / miredValue;
 }
 
-/** The gel (in mired) that turns a `fromKelvin` source into `toKelvin`: 10⁶/to − 10⁶/from (API.md). */
+/** The gel (in mired) that turns a `fromKelvin` source into `toKelvin`: 10⁶/to − 10⁶/from (API: /api/v1/openapi.json). */
 export function miredShift(fromKelvin: number, toKelvin: number): number {
 	return 1e6 / toKelvin - 1e6 / fromKelvin;
 }
 
-/** A gel of `gelMired` on a source of `kelvin`: 10⁶ / (10⁶/kelvin + gelMired) (API.md). */
+/** A gel of `gelMired` on a source of `kelvin`: 10⁶ / (10⁶/kelvin + gelMired) (API: /api/v1/openapi.json). */
 export function gelledKelvin(kelvin: number, gelMired: number): number {
 	return 1e6 / (1e6 / kelvin + gelMired);
 }
@@ -110,7 +110,7 @@ export interface ColourCalcResult {
 	warnings: string[];
 }
 
-/** `POST /api/v1/calc/colour` (API.md), with a named gel and a mix as extras. */
+/** `POST /api/v1/calc/colour` (see /api/v1/openapi.json), with a named gel and a mix as extras. */
 export function colourCalc(input: ColourCalcInput): ColourCalcResult {
 	const result: ColourCalcResult = { warnings: [] };
 	if (input.fromKelvin !== undefined && input.toKelvin !== undefined) {

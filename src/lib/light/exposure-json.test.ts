@@ -109,7 +109,7 @@ describe('exposureAnswerJson (the exposure route writes its answer itself)', () 
 	});
 
 	it('gives the table stops to a millionth of a stop, equal to the stops at the camera moved by 2·log2(N_w / N_w,row)', () => {
-		// Source: API.md (every light scales with 1/N_w²); the rounding is ours (TABLE_STOPS_DECIMALS).
+		// Source: the API, /api/v1/openapi.json (every light scales with 1/N_w²); the rounding is ours (TABLE_STOPS_DECIMALS).
 		const s = parsedScene(scene);
 		const answer = writtenAnswer(s);
 		const wa = answer.workingAperture;

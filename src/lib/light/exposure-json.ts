@@ -43,7 +43,7 @@ const TABLE_MEMO_SIZE = COLUMN_MEMO_SIZE;
 
 function tableBytesFor(columns: readonly ApertureColumns[]): TableBytes {
 	for (const m of recentTables) if (m.columns === columns) return m.bytes;
-	// The table written once with null stops, in API.md's order, and cut where the stops go. Its text is
+	// The table written once with null stops, in the API's order, and cut where the stops go. Its text is
 	// all ASCII (numbers, "f/…" labels, booleans, null), so characters and bytes count alike.
 	const text = JSON.stringify(
 		columns.map((c) => ({

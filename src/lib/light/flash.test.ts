@@ -74,7 +74,7 @@ describe('guide number: published definition and scaling', () => {
 
 describe('flash exposure and required power (API.md formulas)', () => {
 	it('a whole stop under at f/16 when f/11.3 is correct', () => {
-		// Source: API.md: exposureOffsetStops = 2·log2(N_correct / N_w); one stop per √2 of f-number
+		// Source: the API (/api/v1/openapi.json): exposureOffsetStops = 2·log2(N_correct / N_w); one stop per √2 of f-number
 		// (APEX Av = 2·log2 N, ANSI PH2.5).
 		expect(flashExposureOffsetStops(16 / Math.SQRT2, 16)).toBeCloseTo(-1, 12);
 	});

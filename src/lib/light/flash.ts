@@ -20,7 +20,7 @@ export interface GuideNumberInput {
 	lossStops?: number;
 }
 
-/** GN × √(ISO/100) × √power × 2^(−lossStops/2) (API.md). */
+/** GN × √(ISO/100) × √power × 2^(−lossStops/2) (API: /api/v1/openapi.json). */
 export function effectiveGuideNumber({ guideNumber, iso = 100, power = 1, lossStops = 0 }: GuideNumberInput): number {
 	return guideNumber * Math.sqrt(iso / 100) * Math.sqrt(power) * 2 ** (-lossStops / 2);
 }
@@ -156,7 +156,7 @@ export interface FlashCalcResult {
 	cautions: string[];
 }
 
-/** `POST /api/v1/calc/flash` (API.md). */
+/** `POST /api/v1/calc/flash` (see /api/v1/openapi.json). */
 export function flashCalc(input: FlashCalcInput): FlashCalcResult {
 	const gn = effectiveGuideNumber(input);
 	const correctWorking = workingApertureForCorrect(gn, input.distance);

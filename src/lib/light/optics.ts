@@ -8,7 +8,7 @@
  */
 import { stackPlan, type StackPlan } from './stack';
 
-/** N × (1 + m/P) (API.md). */
+/** N × (1 + m/P) (API: /api/v1/openapi.json). */
 export function workingAperture(markedAperture: number, magnification: number, pupilMagnification = 1): number {
 	return markedAperture * (1 + magnification / pupilMagnification);
 }
@@ -23,7 +23,7 @@ export function bellowsFactor(magnification: number, pupilMagnification = 1): nu
 	return (1 + magnification / pupilMagnification) ** 2;
 }
 
-/** Light lost to magnification in stops: 2·log2(1 + m/P) (API.md). */
+/** Light lost to magnification in stops: 2·log2(1 + m/P) (API: /api/v1/openapi.json). */
 export function lightLossStops(magnification: number, pupilMagnification = 1): number {
 	return 2 * Math.log2(1 + magnification / pupilMagnification);
 }
@@ -54,7 +54,7 @@ export function subjectDistanceMm(magnification: number, focalLengthMm: number):
 
 /**
  * Total depth of field, close-up approximation (valid where the subject is much nearer than the
- * hyperfocal distance): DoF = 2·N·c·(1 + m/P) / m² (API.md), N marked, c the circle of confusion.
+ * hyperfocal distance): DoF = 2·N·c·(1 + m/P) / m² (/api/v1/openapi.json), N marked, c the circle of confusion.
  */
 export function closeUpDepthOfFieldMm(
 	markedAperture: number,
@@ -133,7 +133,7 @@ export interface OpticsCalcResult {
 	balancedAperture?: { workingAperture: number; markedAperture: number; blurUm: number };
 }
 
-/** `POST /api/v1/calc/optics` (API.md). */
+/** `POST /api/v1/calc/optics` (see /api/v1/openapi.json). */
 export function opticsCalc(input: OpticsCalcInput): OpticsCalcResult {
 	const { aperture, magnification: m, pupilMagnification: p, cocMm, wavelengthNm } = input;
 	const wa = workingAperture(aperture, m, p);

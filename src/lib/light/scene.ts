@@ -1,5 +1,5 @@
 /**
- * The whole `POST /api/v1/exposure` computation of API.md: every light's exposure at the subject, the
+ * The whole `POST /api/v1/exposure` computation (/api/v1/openapi.json): every light's exposure at the subject, the
  * total, the key light and lighting ratio, the aperture table, warnings and cautions.
  *
  * Exposure units: X = 1 is a correct exposure at the working aperture; stops = log2(X).
@@ -39,7 +39,7 @@ export const DEFAULT_MAX_APERTURE = 32;
 export const EXPOSURE_WARNING_STOPS = 3;
 
 /**
- * Third-stop marked apertures: the nominal labels and the exact values 2^(k/6). API.md's series runs
+ * Third-stop marked apertures: the nominal labels and the exact values 2^(k/6). The API's series runs
  * from 2.8 (k = 9) to 45 (k = 33); it is extended down to f/1 and up to f/64 for cameras set outside it.
  */
 const NOMINAL_APERTURES = [

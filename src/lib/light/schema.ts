@@ -31,7 +31,7 @@ function above(min: number, max: number, unit = '') {
 		.max(max, `must be at most ${max}${u}`);
 }
 
-// Shared fields (API.md units: metres, mm, nm, seconds, stops, degrees).
+// Shared fields (the API's units: metres, mm, nm, seconds, stops, degrees).
 export const guideNumberField = above(0, 1000, 'm');
 export const distanceField = range(0.001, 1000, 'm');
 export const isoField = range(1, 10_000_000);
@@ -74,7 +74,7 @@ export type FlashCalcBody = z.input<typeof flashCalcSchema>;
 // ---------- POST /api/v1/calc/optics ----------
 export const opticsCalcSchema = z.object({
 	aperture: apertureField,
-	// Above 0 (API.md); from 1:10 000 up, so the close-up depth of field stays finite.
+	// Above 0 (/api/v1/openapi.json); from 1:10 000 up, so the close-up depth of field stays finite.
 	magnification: range(0.0001, 100),
 	pupilMagnification: pupilMagnificationField.default(1),
 	cocMm: cocMmField.default(0.03),

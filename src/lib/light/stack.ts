@@ -1,5 +1,5 @@
 /**
- * Focus stacking: how many frames and what rail step cover a subject depth (API.md's rule).
+ * Focus stacking: how many frames and what rail step cover a subject depth (the API's rule, /api/v1/openapi.json).
  * Each frame holds one depth of field; neighbours overlap by `overlap` (0 ≤ o < 1) of it, so the rail
  * moves dof × (1 − overlap) between frames, and the frames are
  * max(1, ceil((depth − dof) / step) + 1): the first frame covers one depth of field, each further one

@@ -1,7 +1,7 @@
 /**
  * Calling the setups API from the notebook pages: `load` functions and form actions pass SvelteKit's
  * `event.fetch` (in-process, with the caller's session cookie), the browser passes its own `fetch`.
- * The pages depend only on the API contract (API.md), never on the server's internal functions.
+ * The pages depend only on the API contract (/api/v1/openapi.json), never on the server's internal functions.
  */
 export type Fetch = typeof fetch;
 
@@ -14,7 +14,7 @@ export type ApiResult<T> =
 	| { ok: true; status: number; data: T }
 	| { ok: false; status: number; message: string; issues: ApiIssue[]; body: Record<string, unknown> | null };
 
-/** Sends a JSON request and reads API.md's answer or its error body; never throws for an HTTP status. */
+/** Sends a JSON request and reads the API's answer or its error body; never throws for an HTTP status. */
 export async function callApi<T>(
 	fetchFn: Fetch,
 	path: string,

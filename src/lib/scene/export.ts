@@ -26,6 +26,9 @@ export interface SetupExport {
 	source?: { setupId: string; revisionNumber: number; studioName?: string };
 }
 
+/** The query string of `POST /api/v1/setups/import`: the studio to import into (default the caller's personal one). */
+export const importQuerySchema = z.object({ studio: z.uuid({ error: 'must be a studio id' }).optional() });
+
 export const setupExportSchema = z.object({
 	formatVersion: z.literal(EXPORT_FORMAT_VERSION),
 	kind: z.literal(EXPORT_KIND),

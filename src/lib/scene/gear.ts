@@ -31,7 +31,7 @@ const positive = (max: number, unit = '') =>
 const syncSpeedS = positive(10, 's');
 
 export const flashSpecSchema = z.object({
-	/** Guide number in metres at ISO 100 and full power, as the head is set (API.md). */
+	/** Guide number in metres at ISO 100 and full power, as the head is set (/api/v1/openapi.json). */
 	guideNumberM: guideNumberField,
 	/** The lowest power the flash offers, as a fraction of full power (1/128 = 0.0078125). */
 	lowestPower: z
@@ -133,6 +133,13 @@ export const gearCreateSchema = z
 		return { ...input, spec: spec.data as Record<string, unknown> };
 	});
 export type GearCreateInput = z.output<typeof gearCreateSchema>;
+
+/** The query string of `GET /api/v1/gear`. */
+export const gearQuerySchema = z.object({
+	studio: z.uuid({ error: 'must be a studio id' }).optional(),
+	kind: gearKindSchema.optional(),
+	retired: z.enum(['0', '1', 'true', 'false'], { error: 'must be 1 or 0' }).optional()
+});
 
 /** A change to an item: any of name, spec (whole, checked against the item's kind), notes, retired. */
 export const gearUpdateSchema = z

@@ -11,8 +11,30 @@ export const MAX_TAGS = 20;
 export const MAX_TAG_CHARS = 40;
 export const MAX_MESSAGE_CHARS = 500;
 export const MAX_PAGE_SIZE = 100;
-/** A plan thumbnail, PNG, as base64 in JSON bodies. */
-export const MAX_THUMBNAIL_BYTES = 256 * 1024;
+
+// ---------- The size of a save: the thumbnail and body limits, derived here in one place ----------
+
+/** The editor draws a plan thumbnail at most this many pixels on its longer side (`Workspace.thumbnail`). */
+export const THUMBNAIL_BOX_PX = 360;
+/**
+ * A plan thumbnail's PNG at most. The worst the editor can make is a square of THUMBNAIL_BOX_PX that
+ * does not compress at all: 4 bytes a pixel plus a filter byte a row (518,760 bytes), deflate's stored
+ * blocks and the PNG chunks around them, a little over 519,000 bytes. So every thumbnail it makes fits.
+ */
+export const MAX_THUMBNAIL_BYTES = 512 * 1024;
+const PNG_DATA_URL_PREFIX = 'data:image/png;base64,';
+/** The longest `thumbnailPng` text: MAX_THUMBNAIL_BYTES as base64, with the optional data-URL prefix. */
+export const MAX_THUMBNAIL_BASE64_CHARS = PNG_DATA_URL_PREFIX.length + 4 * Math.ceil(MAX_THUMBNAIL_BYTES / 3);
+/** The largest setup document a body carries, as JSON text. */
+export const MAX_DOCUMENT_JSON_BYTES = 256 * 1024;
+/** Room for a save's other fields (title, subject, tags, message, gear ids), every character escaped. */
+const MAX_SAVE_FIELDS_BYTES = 32 * 1024;
+/**
+ * The JSON body limit of the API (`parseJsonBody`): the largest document with the largest thumbnail
+ * and every other field of a save, so a thumbnail the schema accepts is never refused as too large
+ * (413) before the schema can name it. adapter-node's BODY_SIZE_LIMIT must be at least this.
+ */
+export const MAX_JSON_BODY_BYTES = MAX_DOCUMENT_JSON_BYTES + MAX_THUMBNAIL_BASE64_CHARS + MAX_SAVE_FIELDS_BYTES;
 
 export const titleField = z
 	.string({ error: 'must be text' })
@@ -59,9 +81,9 @@ const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 /** A PNG thumbnail of the plan as base64 (optionally a `data:image/png;base64,` URL), checked and decoded. */
 export const thumbnailField = z
 	.string({ error: 'must be a base64 PNG' })
-	.max(Math.ceil((MAX_THUMBNAIL_BYTES * 4) / 3) + 64, `must be at most ${MAX_THUMBNAIL_BYTES / 1024} KiB`)
+	.max(MAX_THUMBNAIL_BASE64_CHARS, `must be at most ${MAX_THUMBNAIL_BYTES / 1024} KiB`)
 	.transform((text, ctx) => {
-		const b64 = text.replace(/^data:image\/png;base64,/, '');
+		const b64 = text.startsWith(PNG_DATA_URL_PREFIX) ? text.slice(PNG_DATA_URL_PREFIX.length) : text;
 		if (!/^[A-Za-z0-9+/]*={0,2}$/.test(b64)) {
 			ctx.addIssue({ code: 'custom', message: 'must be base64' });
 			return z.NEVER;

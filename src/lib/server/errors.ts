@@ -1,6 +1,6 @@
 /**
  * A request that breaks a rule of the product (the last owner leaving, an expired invitation).
- * Pages turn it into `fail(400)`, API routes into API.md's 400 body; it never becomes a 500.
+ * Pages turn it into `fail(400)`, API routes into the API's 400 body; it never becomes a 500.
  */
 export class RuleViolation extends Error {
 	constructor(

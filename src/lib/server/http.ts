@@ -1,5 +1,6 @@
 import { isHttpError, json, type RequestEvent } from '@sveltejs/kit';
 import type { z } from 'zod';
+import { MAX_JSON_BODY_BYTES } from '$lib/scene/inputs';
 import { RuleViolation } from './errors';
 import { findJsonProblem, MAX_BODY_DEPTH } from '$lib/json-limits';
 
@@ -17,7 +18,7 @@ export function apiError(
 	return json({ error: { message, issues }, ...extra } satisfies ApiErrorBody, { status });
 }
 
-/** API.md's 400 answer naming every field at fault; the message names the first. */
+/** API.md's 400 answer (/api/v1/openapi.json) naming every field at fault; the message names the first. */
 export function invalidInput(issues: { path: string[]; message: string }[]) {
 	const first = issues[0];
 	const where = first && first.path.length ? `${first.path.join('.')}: ` : '';
@@ -40,7 +41,8 @@ const notJson = () =>
 		{ path: [], message: 'send Content-Type: application/json' }
 	]);
 
-export const DEFAULT_MAX_BODY_BYTES = 256 * 1024;
+/** Derived with the thumbnail and document limits in `$lib/scene/inputs`, so a valid save always fits. */
+export const DEFAULT_MAX_BODY_BYTES = MAX_JSON_BODY_BYTES;
 
 type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
 
@@ -133,7 +135,7 @@ type IssueList = { path: string[]; message: string }[];
 
 /**
  * Wraps a JSON route handler so that a refusal thrown with SvelteKit's `error()` (401, 403, 404, …) or a
- * `RuleViolation` becomes API.md's error body with the same status. A RuleViolation may carry `issues`
+ * `RuleViolation` becomes the API's error body with the same status. A RuleViolation may carry `issues`
  * (else its `field` names the one at fault) and `extra` fields for the body (e.g. `latestRevision` on a
  * 409). Anything else is a bug and is left to SvelteKit.
  */

@@ -25,7 +25,7 @@ describe('toExposureScene', () => {
 	});
 
 	it('a flash moved twice as far gives −2 stops (inverse-square law) through the engine', () => {
-		// Inverse-square law: illuminance ∝ 1/d²; API.md (POST /api/v1/exposure): X = (GN_eff / (d · N_w))².
+		// Inverse-square law: illuminance ∝ 1/d²; the API (POST /api/v1/exposure in /api/v1/openapi.json): X = (GN_eff / (d · N_w))².
 		const near = quartzModel();
 		const far = run(near, moveElementsTo({ key: { xM: -1, yM: 0 } }));
 		const difference = stopsOf(far, 'key').stops! - stopsOf(near, 'key').stops!;
@@ -33,7 +33,7 @@ describe('toExposureScene', () => {
 	});
 
 	it('guide number worked example: GN 40 m at full power, ISO 100, f/16 is correct at 2.5 m', () => {
-		// Guide number definition: GN = distance × f-number at ISO 100 and full power (API.md; ISO 1230,
+		// Guide number definition: GN = distance × f-number at ISO 100 and full power (/api/v1/openapi.json; ISO 1230,
 		// from memory): 40 / 16 = 2.5 m.
 		const model = run(
 			quartzModel(),

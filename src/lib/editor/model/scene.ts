@@ -1,5 +1,5 @@
 /**
- * The editor model as the exposure scene of `POST /api/v1/exposure` (API.md): the subject's position,
+ * The editor model as the exposure scene of `POST /api/v1/exposure` (see /api/v1/openapi.json): the subject's position,
  * each light with its kelvin, its losses (modifier + other + every diffuser its straight path to the
  * subject crosses in plan), its beam aimed along its rotation and tilt, each reflector with its area
  * and (when its facing is set) its normal; each flag as its plan segment. Cameras, diffusers and

@@ -130,7 +130,7 @@ export async function api<T = any>(
 	return { status: res.status, body: parsed as T, headers: res.headers };
 }
 
-/** API.md's error body: a message, and issues naming the fields at fault. */
+/** The API's error body (/api/v1/openapi.json, `Error`): a message, and issues naming the fields at fault. */
 export function expectErrorBody(answer: ApiAnswer, status: number, field?: string) {
 	expect(answer.status, JSON.stringify(answer.body)).toBe(status);
 	expect(typeof answer.body.error?.message).toBe('string');

@@ -1,11 +1,12 @@
 /**
  * The calculation API through HTTP against the running app (`npm test` starts it and sets
- * TEST_BASE_URL). Answers are checked field by field against API.md; a fuzz run sends well over a
+ * TEST_BASE_URL). Answers are checked field by field against the API (/api/v1/openapi.json); a fuzz run sends well over a
  * thousand malformed bodies and accepts no 5xx.
  */
 import fc from 'fast-check';
 import http from 'node:http';
 import { beforeAll, describe, expect, it } from 'vitest';
+import { DEFAULT_MAX_BODY_BYTES } from '$lib/server/http';
 
 const BASE = process.env.TEST_BASE_URL ?? '';
 
@@ -299,17 +300,17 @@ describe('POST /api/v1/exposure', () => {
 
 describe('size limits and robustness on every route', () => {
 	it('413 for a body over the limit on every route', async () => {
-		const big = JSON.stringify({ guideNumber: 1, distance: 1, pad: 'x'.repeat(400 * 1024) });
+		const big = JSON.stringify({ guideNumber: 1, distance: 1, pad: 'x'.repeat(DEFAULT_MAX_BODY_BYTES) });
 		for (const route of ROUTES) {
 			expectApiError(await postLarge(route, [big], true), 413);
 		}
 		// Just under the limit is read and judged on its content (400 for the missing fields).
-		const under = JSON.stringify({ pad: 'x'.repeat(200 * 1024) });
+		const under = JSON.stringify({ pad: 'x'.repeat(DEFAULT_MAX_BODY_BYTES - 64) });
 		expectApiError(await post('/api/v1/calc/flash', under), 400, ['guideNumber']);
 	});
 
 	it('413 for a streamed (chunked) body over the limit, with no declared length', async () => {
-		const chunks = ['{"pad":"', ...Array.from({ length: 5 }, () => 'x'.repeat(64 * 1024)), '"}'];
+		const chunks = ['{"pad":"', ...Array.from({ length: Math.ceil(DEFAULT_MAX_BODY_BYTES / (64 * 1024)) + 1 }, () => 'x'.repeat(64 * 1024)), '"}'];
 		expectApiError(await postLarge('/api/v1/exposure', chunks, false), 413);
 	});
 

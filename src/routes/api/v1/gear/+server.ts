@@ -1,16 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import { apiRoute, parseJsonBody, zodErrorResponse } from '$lib/server/http';
 import { requireUser } from '$lib/server/authz';
 import { createGear, listGear } from '$lib/server/gear';
-import { gearCreateSchema, gearKindSchema } from '$lib/scene/gear';
+import { gearCreateSchema, gearQuerySchema } from '$lib/scene/gear';
 import type { RequestHandler } from './$types';
-
-const gearQuerySchema = z.object({
-	studio: z.uuid({ error: 'must be a studio id' }).optional(),
-	kind: gearKindSchema.optional(),
-	retired: z.enum(['0', '1', 'true', 'false'], { error: 'must be 1 or 0' }).optional()
-});
 
 /** A studio's gear shelf (`?studio=`, default the caller's personal studio; `?kind=`; `?retired=1` to include retired). */
 export const GET: RequestHandler = apiRoute(async ({ locals, url }) => {

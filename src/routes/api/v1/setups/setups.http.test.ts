@@ -20,6 +20,7 @@ import {
 import { createSetup, trashSetup } from '$lib/server/setups';
 import { createGear } from '$lib/server/gear';
 import { setupCreateSchema } from '$lib/scene/inputs';
+import { DEFAULT_MAX_BODY_BYTES } from '$lib/server/http';
 import { computeExposure } from '$lib/light/scene';
 import { migrateDocument } from '$lib/scene/migrations';
 
@@ -655,7 +656,7 @@ describe('bad input is a 400 naming the field, never a 500', () => {
 	it('an oversized body is refused with 413', async () => {
 		const res = await api('POST', '/api/v1/setups', {
 			auth: auth(),
-			body: { title: 't', subject: 's', document: { ...sampleDocument(), notes: 'n'.repeat(300 * 1024) } }
+			body: { title: 't', subject: 's', document: { ...sampleDocument(), notes: 'n'.repeat(DEFAULT_MAX_BODY_BYTES) } }
 		});
 		expectErrorBody(res, 413);
 	});

@@ -1,4 +1,4 @@
 import { calculationRoute } from '../respond';
 
-/** POST /api/v1/calc/optics (API.md); the schema and engine call are in $lib/light/calculations. */
+/** POST /api/v1/calc/optics (see /api/v1/openapi.json); the schema and engine call are in $lib/light/calculations. */
 export const POST = calculationRoute('/api/v1/calc/optics');

@@ -1,12 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { z } from 'zod';
 import { apiError, apiRoute, bodyMediaType, readBodyText, zodErrorResponse } from '$lib/server/http';
 import { requireUser } from '$lib/server/authz';
 import { importSetup } from '$lib/server/setups';
-import { MAX_EXPORT_BYTES } from '$lib/scene/export';
+import { importQuerySchema, MAX_EXPORT_BYTES } from '$lib/scene/export';
 import type { RequestHandler } from './$types';
-
-const importQuerySchema = z.object({ studio: z.uuid({ error: 'must be a studio id' }).optional() });
 
 const tooLarge = () =>
 	apiError(413, `The file is too large; a setup file is at most ${MAX_EXPORT_BYTES / 1024} KiB.`, [

@@ -1,0 +1,229 @@
+/**
+ * What each JSON route answers, as zod schemas: they are written for the OpenAPI document (see
+ * routes.ts), and `openapi.http.test.ts` parses the running app's real answers with them, so a field
+ * written here is a field the server sends. Objects are open: the contract adds fields freely.
+ */
+import { z } from 'zod';
+import { setupDocumentSchema } from '$lib/scene/document';
+import { GEAR_KINDS } from '$lib/scene/gear';
+import { setupExportSchema } from '$lib/scene/export';
+
+const num = z.number();
+const text = z.string();
+const dateTime = z.iso.datetime({ offset: true });
+const id = z.uuid();
+const revisionNumber = z.int().min(1);
+
+export const errorAnswer = z.object({
+	error: z.object({
+		message: text,
+		issues: z.array(z.object({ path: z.array(text), message: text })).describe('every field at fault, by its path in the input')
+	})
+});
+
+export const staleSaveAnswer = errorAnswer.extend({ latestRevision: revisionNumber });
+
+// ---------- the calculation API ----------
+
+export const flashAnswer = z.object({
+	effectiveGuideNumber: num.describe('GN × √(ISO/100) × √power × 2^(−lossStops/2), metres'),
+	workingApertureForCorrect: num.describe('effectiveGuideNumber / distance'),
+	markedApertureForCorrect: num.describe('workingApertureForCorrect / (1 + m/P)'),
+	bellowsFactor: num.describe('1 + m/P'),
+	workingAperture: num.optional().describe('N × (1 + m/P), N the marked aperture'),
+	exposureOffsetStops: num.optional().describe('2·log2(workingApertureForCorrect / workingAperture); positive = over'),
+	requiredPower: num.optional().describe('the exact fraction of full power for a correct exposure; may exceed 1'),
+	withinRange: z.boolean().optional(),
+	nearestPowerStep: z
+		.object({ fraction: num, label: text, residualStops: num })
+		.optional()
+		.describe('the ladder step (2^(−k/3), k = 0…24) nearest to requiredPower in stops, with the error left there (positive = over)'),
+	cautions: z.array(text)
+});
+
+export const opticsAnswer = z.object({
+	workingAperture: num.describe('N × (1 + m/P)'),
+	lightLossStops: num.describe('2·log2(1 + m/P)'),
+	bellowsFactor: num,
+	dofMm: num.describe('total depth of field, 2·N·c·(1 + m/P) / m²'),
+	airyDiskUm: num.describe('2.44 · λ · working aperture'),
+	diffractionLimited: z.boolean(),
+	diffractionLimitAperture: num.describe('the marked aperture where the Airy disk reaches the circle of confusion'),
+	extensionMm: num.optional(),
+	subjectDistanceMm: num.optional(),
+	stack: z
+		.object({ frames: z.int(), stepMm: num })
+		.optional()
+		.describe('with subjectDepthMm: stepMm = dofMm × (1 − overlap), frames = max(1, ceil((subjectDepthMm − dofMm) / stepMm) + 1)'),
+	balancedAperture: z.object({ workingAperture: num, markedAperture: num, blurUm: num }).optional()
+});
+
+const markedShutter = z.object({ label: text, exactS: num, residualStops: num });
+
+export const ambientAnswer = z.object({
+	ev100: num.describe('EV at ISO 100; from incident lux E: log2(E · 100 / C)'),
+	ev100From: z.enum(['ev100', 'illuminance', 'luminance', 'skyPreset', 'meter']),
+	illuminanceLux: num,
+	workingAperture: num,
+	exposureOffsetStops: num.optional().describe('ev100 + log2(ISO/100) + log2(shutter) − 2·log2(workingAperture) − lossStops'),
+	shutterForCorrect: num.describe('seconds'),
+	shutterForBalance: num.optional(),
+	markedShutterForCorrect: markedShutter.optional(),
+	markedShutterForBalance: markedShutter.optional(),
+	balanceFasterThanSync: z.boolean().optional()
+});
+
+const whiteBalance = z.object({ kelvin: num, spreadMired: num, mixed: z.boolean() });
+
+export const colourAnswer = z.object({
+	miredShift: num.optional().describe('10⁶/toKelvin − 10⁶/fromKelvin'),
+	nearestGel: z.object({ name: text, label: text, mired: num, residualMired: num }).optional(),
+	resultKelvin: num.optional().describe('10⁶ / (10⁶/kelvin + gelMired)'),
+	gelMired: num.optional(),
+	whiteBalance: whiteBalance.nullable().optional(),
+	warnings: z.array(text)
+});
+
+const stopsOrNull = num.nullable();
+
+export const exposureAnswer = z.object({
+	workingAperture: num,
+	lights: z.array(
+		z.object({
+			id: text,
+			kind: z.enum(['flash', 'continuous', 'reflector', 'ambient']),
+			x: num.describe('exposure units: 1 is a correct exposure'),
+			stops: stopsOrNull.describe('log2(x); null when the light gives nothing'),
+			blocked: z.boolean(),
+			blockedBy: text.optional(),
+			sourceBlocked: z.boolean().optional(),
+			group: z.enum(['flash', 'ambient']),
+			distanceM: num.optional()
+		})
+	),
+	total: z.object({ x: num, exposureOffsetStops: stopsOrNull }),
+	keyLightId: text.nullable(),
+	lightingRatio: num.nullable(),
+	apertureTable: z.array(
+		z.object({
+			aperture: num,
+			label: text,
+			workingAperture: num,
+			exposureOffsetStops: stopsOrNull,
+			flashOffsetStops: stopsOrNull,
+			ambientOffsetStops: stopsOrNull,
+			dofMm: num.nullable(),
+			airyDiskUm: num,
+			diffractionLimited: z.boolean()
+		})
+	),
+	whiteBalance: whiteBalance.nullable(),
+	warnings: z.array(text),
+	cautions: z.array(text),
+	cautionDetails: z.array(z.object({ code: text, message: text, elementIds: z.array(text) }))
+});
+
+export const healthAnswer = z.object({ ok: z.literal(true), db: z.enum(['up', 'down']) });
+
+export const devMailAnswer = z.array(z.object({ to: text, subject: text, text, html: text, receivedAt: dateTime }));
+
+// ---------- the setups API ----------
+
+const derivedFrom = z.object({ setupId: id, revisionNumber }).nullable();
+
+const setupListItem = z.object({
+	id,
+	title: text,
+	subject: text,
+	tags: z.array(text),
+	studioId: id,
+	studioName: text,
+	createdAt: dateTime,
+	updatedAt: dateTime,
+	revisionNumber,
+	derivedFrom,
+	thumbnailRevision: revisionNumber.nullable().describe('the revision whose thumbnail to show, or null'),
+	gearIds: z.array(id),
+	deletedAt: dateTime.optional().describe('trash list only'),
+	deletedByName: text.nullable().optional().describe('trash list only')
+});
+
+export const setupListAnswer = z.object({ items: z.array(setupListItem), total: z.int(), page: z.int(), pageSize: z.int() });
+
+export const createdAnswer = z.object({ id, revisionNumber: z.literal(1) });
+
+export const revisionNumberAnswer = z.object({ revisionNumber });
+
+export const duplicatedAnswer = z.object({ id, revisionNumber: z.literal(1), derivedFrom: z.object({ setupId: id, revisionNumber }), studioId: id });
+
+export const untrashedAnswer = z.object({ id, revisionNumber });
+
+/** A stored document as read: migrated to the current version; one that no longer validates comes with its issues. */
+const storedDocument = {
+	document: setupDocumentSchema,
+	migratedFrom: z.int().optional().describe('the schemaVersion it was stored in, when older'),
+	documentIssues: z.array(z.object({ path: z.array(z.union([text, num])), message: text })).optional()
+};
+
+export const setupAnswer = z.object({
+	id,
+	title: text,
+	subject: text,
+	tags: z.array(text),
+	studioId: id,
+	studioName: text,
+	revisionNumber,
+	createdAt: dateTime,
+	updatedAt: dateTime,
+	...storedDocument,
+	derivedFrom: z.object({ setupId: id, revisionNumber, title: text.optional() }).nullable(),
+	derivatives: z.array(z.object({ id, title: text, subject: text, studioId: id, revisionNumber: revisionNumber.nullable() })),
+	thumbnailRevision: revisionNumber.nullable(),
+	gearIds: z.array(id),
+	canEdit: z.boolean(),
+	canDuplicate: z.boolean()
+});
+
+const revisionSummary = z.object({
+	number: revisionNumber,
+	authorName: text.nullable(),
+	authorId: text.nullable(),
+	createdAt: dateTime,
+	message: text,
+	parentNumber: revisionNumber.nullable(),
+	restoredFrom: revisionNumber.nullable(),
+	title: text,
+	hasThumbnail: z.boolean()
+});
+
+export const revisionsAnswer = z.array(revisionSummary);
+
+export const revisionAnswer = revisionSummary.extend({
+	setupId: id,
+	subject: text,
+	tags: z.array(text),
+	isLatest: z.boolean(),
+	...storedDocument
+});
+
+export const setupExposureAnswer = exposureAnswer.extend({ revisionNumber });
+
+export const setupFileAnswer = setupExportSchema;
+
+// ---------- the gear shelf ----------
+
+export const gearItemAnswer = z.object({
+	id,
+	studioId: id,
+	kind: z.enum(GEAR_KINDS),
+	name: text,
+	spec: z.record(text, z.unknown()).describe("the kind's specification (see the create body)"),
+	notes: text,
+	createdAt: dateTime,
+	updatedAt: dateTime,
+	retiredAt: dateTime.nullable()
+});
+
+export const gearShelfAnswer = z.object({ studioId: id, canEdit: z.boolean(), items: z.array(gearItemAnswer) });
+
+export const gearDetailAnswer = gearItemAnswer.extend({ canEdit: z.boolean() });

@@ -1,0 +1,310 @@
+/**
+ * Every JSON route of the app, one row each: method, path, who may call it, a summary, the zod
+ * schemas of its input (query and body) and of its answer. The OpenAPI document
+ * (`GET /api/v1/openapi.json`, read at `/api`) is built from this table, and `openapi.test.ts` fails when
+ * a `+server.ts` under `src/routes/api` exports a method that is not here. Adding a route means adding
+ * its row (DEVELOPERS.md, "A JSON route").
+ */
+import { z } from 'zod';
+import { ambientCalcSchema, colourCalcSchema, exposureSceneSchema, flashCalcSchema, opticsCalcSchema } from '$lib/light/schema';
+import {
+	setupCreateSchema,
+	setupDuplicateSchema,
+	setupListQuerySchema,
+	setupRestoreSchema,
+	setupSaveSchema
+} from '$lib/scene/inputs';
+import { gearCreateSchema, gearQuerySchema, gearSpecSchemas, gearUpdateSchema } from '$lib/scene/gear';
+import { importQuerySchema, MAX_EXPORT_BYTES, setupExportSchema } from '$lib/scene/export';
+import * as answers from './answers';
+
+export type HttpMethod = 'get' | 'post' | 'put' | 'patch' | 'delete';
+
+/** Who may call a route: anyone, a signed-in caller (session cookie or bearer token), or only in development. */
+export type Access = 'public' | 'signed-in' | 'development';
+
+export interface ApiRoute {
+	method: HttpMethod;
+	/** OpenAPI's form: `/api/v1/setups/{id}` for the route folder `setups/[id]`. */
+	path: string;
+	group: string;
+	access: Access;
+	summary: string;
+	description?: string;
+	query?: z.ZodObject;
+	body?: { schema: z.ZodType; required?: boolean; mediaTypes?: string[] };
+	answer: { status: number; description: string; schema?: z.ZodType; mediaType?: string };
+	/** Error answers beyond the ones every route of its access level can give (API errors share one body). */
+	refusals?: number[];
+}
+
+export const GROUPS = {
+	calc: { name: 'Calculations', description: 'The exposure and optics math. No sign-in; bad input is a 400 naming the field, never a 500.' },
+	setups: {
+		name: 'Setups',
+		description:
+			'The notebook: setups, their revisions, trash, export and import. Session cookie or `Authorization: Bearer` personal access token. A setup the caller may not see is a 404.'
+	},
+	gear: { name: 'Gear shelf', description: 'Flashes, modifiers, reflectors, lenses and cameras of a studio. Signed in.' },
+	meta: { name: 'Service', description: 'Health and this document.' },
+	dev: { name: 'Development only', description: 'Present when the local mail fake runs (development and tests), never in production.' }
+} as const;
+
+const revisionQuery = z.object({
+	revision: z.int().min(1).optional().describe('a revision number; the latest when absent')
+});
+
+const gearSpecFields = Object.entries(gearSpecSchemas)
+	.map(([kind, schema]) => `\`${kind}\`: ${Object.keys(schema.shape).join(', ')}`)
+	.join('; ');
+
+const calc = (path: string, summary: string, body: z.ZodType, answer: z.ZodType, description?: string): ApiRoute => ({
+	method: 'post',
+	path,
+	group: GROUPS.calc.name,
+	access: 'public',
+	summary,
+	description,
+	body: { schema: body },
+	answer: { status: 200, description: 'The result', schema: answer }
+});
+
+export const API_ROUTES: ApiRoute[] = [
+	calc(
+		'/api/v1/calc/flash',
+		'Flash: effective guide number, the aperture for a correct exposure, and the power for a given aperture',
+		flashCalcSchema,
+		answers.flashAnswer,
+		'Distances in metres; guide numbers in metres at ISO 100 and full power; `aperture` is the marked f-number. With `aperture`, also the exposure offset, the required power and the nearest step of the third-stop power ladder (1/1 to 1/256).'
+	),
+	calc(
+		'/api/v1/calc/optics',
+		'Optics: working aperture, light loss, close-up depth of field, diffraction and focus-stack frames',
+		opticsCalcSchema,
+		answers.opticsAnswer
+	),
+	calc(
+		'/api/v1/calc/ambient',
+		'Ambient: EV at ISO 100 from a reading, the exposure offset and the shutter for a correct exposure',
+		ambientCalcSchema,
+		answers.ambientAnswer,
+		'Give exactly one reading: `ev100`, `illuminanceLux` (incident, with `calibrationC`), `luminanceCdM2`, `skyPreset` or `meter`.'
+	),
+	calc(
+		'/api/v1/calc/colour',
+		'Colour: the mired shift between two colour temperatures, or the result of a gel',
+		colourCalcSchema,
+		answers.colourAnswer,
+		'`fromKelvin` with `toKelvin`, or `kelvin` with `gelMired` (or a named `gel`); `sources` gives the white balance of a mix.'
+	),
+	calc(
+		'/api/v1/exposure',
+		'A whole scene: every light at the subject, the total, key light, lighting ratio and the aperture table',
+		exposureSceneSchema,
+		answers.exposureAnswer,
+		'Exposure units: X = 1 is a correct exposure at the working aperture N_w; stops = log2(X). Direct flash: X = (effectiveGuideNumber / (d · N_w))². Continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250. Ambient: X = 2^ev100 × (ISO/100) × t / N_w². A diffuse reflector is a Lambertian disc of its area lit by its `source` (a light id or "ambient"); a specular one returns reflectance × the source’s X over the whole path. A light whose straight path to the subject crosses a flag, in plan, gives 0. The aperture table runs in third stops (exact values 2^(k/6)) from minAperture (default 2.8) to maxAperture (default 32).'
+	),
+	{
+		method: 'get',
+		path: '/api/v1/health',
+		group: GROUPS.meta.name,
+		access: 'public',
+		summary: 'Whether the app and its database answer',
+		answer: { status: 200, description: 'Up (503 with `db: "down"` when the database does not answer)', schema: answers.healthAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/openapi.json',
+		group: GROUPS.meta.name,
+		access: 'public',
+		summary: 'This document: the API as OpenAPI 3.1',
+		answer: { status: 200, description: 'The OpenAPI document', schema: z.looseObject({ openapi: z.string() }) }
+	},
+
+	// ---------- setups ----------
+	{
+		method: 'get',
+		path: '/api/v1/setups',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'The notebook: setups across the caller’s studios, searched, filtered, sorted and paged',
+		query: setupListQuerySchema,
+		answer: { status: 200, description: 'One page of setups', schema: answers.setupListAnswer }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/setups',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'A new setup with its first revision',
+		description:
+			'`document` is the setup document `{ schemaVersion, scene, plan, notes }`: `scene` is the body of POST /api/v1/exposure; a document with an empty `plan` (`{}`) and empty `notes` is valid, and the editor lays out what the plan lacks. An older `schemaVersion` is migrated. `thumbnailPng` is a PNG as base64 (or a data URL).',
+		body: { schema: setupCreateSchema },
+		answer: { status: 201, description: 'Created', schema: answers.createdAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'A setup with its latest document and its lineage',
+		answer: { status: 200, description: 'The setup', schema: answers.setupAnswer }
+	},
+	{
+		method: 'put',
+		path: '/api/v1/setups/{id}',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Save: a new revision on top of `baseRevision`',
+		description: 'Every accepted save is a new revision, written in one transaction; a save whose `baseRevision` is not the latest is a 409 with `latestRevision`.',
+		body: { schema: setupSaveSchema },
+		answer: { status: 200, description: 'Saved', schema: answers.revisionNumberAnswer },
+		refusals: [409]
+	},
+	{
+		method: 'delete',
+		path: '/api/v1/setups/{id}',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Move a setup to its studio’s trash (restore with …/untrash)',
+		answer: { status: 204, description: 'In the trash' }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}/revisions',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Every revision of a setup, newest first',
+		answer: { status: 200, description: 'The revisions', schema: answers.revisionsAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}/revisions/{n}',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'One revision with its document',
+		answer: { status: 200, description: 'The revision', schema: answers.revisionAnswer }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/setups/{id}/revisions/{n}/restore',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Restore: a new revision that copies revision n',
+		body: { schema: setupRestoreSchema, required: false },
+		answer: { status: 200, description: 'Restored as a new revision', schema: answers.revisionNumberAnswer },
+		refusals: [409]
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}/revisions/{n}/thumbnail',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'The PNG thumbnail of revision n’s plan (404 when it has none)',
+		answer: { status: 200, description: 'The PNG; revisions never change, so it may be cached', mediaType: 'image/png' }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/setups/{id}/duplicate',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Duplicate a setup for a new subject, keeping where it came from',
+		body: { schema: setupDuplicateSchema },
+		answer: { status: 201, description: 'The new setup', schema: answers.duplicatedAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}/exposure',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'The POST /api/v1/exposure answer for a revision, computed on the server from the stored scene',
+		query: revisionQuery,
+		answer: { status: 200, description: 'The exposure', schema: answers.setupExposureAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/{id}/export',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'The setup file of a revision, as a download',
+		description: 'Squarelaw’s own format (src/lib/scene/README.md); import it with POST /api/v1/setups/import.',
+		query: revisionQuery,
+		answer: { status: 200, description: 'The setup file (an attachment)', schema: answers.setupFileAnswer }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/setups/{id}/untrash',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Take a setup out of the trash with all its revisions',
+		answer: { status: 200, description: 'Restored', schema: answers.untrashedAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/setups/trash',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Deleted setups the caller may restore, newest deletion first',
+		query: setupListQuerySchema,
+		answer: { status: 200, description: 'One page of the trash', schema: answers.setupListAnswer }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/setups/import',
+		group: GROUPS.setups.name,
+		access: 'signed-in',
+		summary: 'Make a setup from a setup file',
+		description: `The file's text as the body, or a multipart form with the file in \`file\`; at most ${MAX_EXPORT_BYTES / 1024} KiB. A bad file creates nothing.`,
+		query: importQuerySchema,
+		body: { schema: setupExportSchema, mediaTypes: ['application/json', 'multipart/form-data'] },
+		answer: { status: 201, description: 'Created', schema: answers.createdAnswer }
+	},
+
+	// ---------- gear ----------
+	{
+		method: 'get',
+		path: '/api/v1/gear',
+		group: GROUPS.gear.name,
+		access: 'signed-in',
+		summary: 'A studio’s gear shelf (the caller’s personal studio by default)',
+		query: gearQuerySchema,
+		answer: { status: 200, description: 'The shelf', schema: answers.gearShelfAnswer }
+	},
+	{
+		method: 'post',
+		path: '/api/v1/gear',
+		group: GROUPS.gear.name,
+		access: 'signed-in',
+		summary: 'A new item on the gear shelf',
+		description: `\`spec\` holds the fields of its kind: ${gearSpecFields}.`,
+		body: { schema: gearCreateSchema },
+		answer: { status: 201, description: 'The item', schema: answers.gearItemAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/v1/gear/{id}',
+		group: GROUPS.gear.name,
+		access: 'signed-in',
+		summary: 'One item of a gear shelf',
+		answer: { status: 200, description: 'The item', schema: answers.gearDetailAnswer }
+	},
+	{
+		method: 'patch',
+		path: '/api/v1/gear/{id}',
+		group: GROUPS.gear.name,
+		access: 'signed-in',
+		summary: 'Edit, retire (`retired: true`) or return an item to the shelf',
+		body: { schema: gearUpdateSchema },
+		answer: { status: 200, description: 'The item', schema: answers.gearItemAnswer }
+	},
+
+	// ---------- development ----------
+	{
+		method: 'get',
+		path: '/api/dev/mail',
+		group: GROUPS.dev.name,
+		access: 'development',
+		summary: 'The messages the local mail fake received, newest first (404 when the fake is off)',
+		answer: { status: 200, description: 'The mailbox', schema: answers.devMailAnswer }
+	}
+];
