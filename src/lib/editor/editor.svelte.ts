@@ -14,6 +14,7 @@ import { FalloffService } from './falloff-service.svelte';
 import { gridLines, gridSteps, scaleBar } from './grid';
 import { HIT_MARGIN_PX, ROTATION_HANDLE_HIT_PX, rotationHandlePosition } from './handles';
 import { History } from './history';
+import { liveExposure } from './live-exposure';
 import { dimensionLines, type DimensionLine } from './model/dimensions';
 import { beams, bouncePaths, keepUnchanged, type Beam, type BouncePath } from './model/light-paths';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
@@ -127,6 +128,8 @@ export class Editor implements ToolHost {
 	}
 	/** The exposure scene of the plan: the body for `POST /api/v1/exposure`. */
 	readonly scene = $derived(toExposureScene(this.#model));
+	/** The scene's exposure, computed here by the engine (or the field the checks refuse). */
+	readonly exposure = $derived(liveExposure(this.scene));
 	/** Elements the scene leaves out (a card with no light to bounce), with the reason. */
 	readonly excluded = $derived(excludedElements(this.#model));
 	/** Elements in drawing order. */

@@ -34,14 +34,11 @@ type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
 /**
  * Reads a JSON body with a size limit and validates it with `schema`.
  * Oversized bodies get 413, unreadable JSON and schema failures get 400; nothing here can throw a 500.
- * `fast` (see `fast-accept.ts`) may accept a valid body without zod; anything it does not accept is
- * validated by `schema`, which names the fields at fault.
  */
 export async function parseJsonBody<S extends z.ZodType>(
 	request: Request,
 	schema: S,
-	maxBytes = DEFAULT_MAX_BODY_BYTES,
-	fast?: (raw: unknown) => raw is z.output<S>
+	maxBytes = DEFAULT_MAX_BODY_BYTES
 ): Promise<ParseResult<z.output<S>>> {
 	const declared = Number(request.headers.get('content-length') ?? '0');
 	if (declared > maxBytes) {
@@ -65,7 +62,6 @@ export async function parseJsonBody<S extends z.ZodType>(
 			response: apiError(400, 'The body is not valid JSON.', [{ path: [], message: 'Expected a JSON object' }])
 		};
 	}
-	if (fast?.(raw)) return { ok: true, data: raw };
 	const parsed = schema.safeParse(raw);
 	if (!parsed.success) return { ok: false, response: zodErrorResponse(parsed.error) };
 	return { ok: true, data: parsed.data };
