@@ -1,39 +1,37 @@
 /**
- * The plan editor's client state: the model (the setup's scene and plan), its undo history, and the
- * session state that is never saved (selection, zoom and pan, the active tool, snapping, the falloff
- * map switch). Inputs from the stage go to the active tool; every change to the model goes through a
- * command. One instance per editor page, handed down with `setEditorContext`; call `destroy()` when
- * the page goes.
+ * The plan editor's client state: the model (the setup's scene and plan), its undo history and the
+ * commands that change it, the selection and the active tool. Every change to the model goes through a
+ * command. The rest is in its own file and reached through the same public API: the view
+ * (`view.svelte.ts`), pointer and pinch routing (`pointer-input.svelte.ts`), keys
+ * (`keyboard.ts`) and what the stage draws besides the elements (`drawing.svelte.ts`). One instance
+ * per editor page, handed down with `setEditorContext`; call `destroy()` when the page goes.
  */
 import { formatDistance, type UnitSystem } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
+import type { GearSnapshot } from '$lib/scene/document';
 import * as commands from './commands';
 import type { Command, CommandError, CommandResult } from './commands';
-import { falloffGrid, type FalloffGrid } from './falloff';
-import { FalloffService } from './falloff-service.svelte';
-import { gridLines, gridSteps, scaleBar } from './grid';
+import { PlanDrawing } from './drawing.svelte';
 import { HIT_MARGIN_PX, ROTATION_HANDLE_HIT_PX, rotationHandlePosition } from './handles';
 import { History } from './history';
+import { keyDown, type KeyboardAccess } from './keyboard';
 import { liveExposure } from './live-exposure';
-import { dimensionLines, type DimensionLine } from './model/dimensions';
-import { beams, bouncePaths, keepUnchanged, type Beam, type BouncePath } from './model/light-paths';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
 import { documentFromModel, modelFromDocument, type Plan, type SetupDocument } from './model/document';
-import type { GearSnapshot } from '$lib/scene/document';
-import { boundsContain, boundsOfElements, elementBounds, expandBounds, hitTest, type Bounds } from './model/geometry';
+import { boundsContain, boundsOfElements, elementBounds, hitTest, type Bounds } from './model/geometry';
 import { emptySetupScene, modelFromScene } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
 import type { AmbientSettings, CameraSettings, EditorElement, ElementKind, Modifier } from './model/schema';
 import { elementsInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
+import { PointerInput } from './pointer-input.svelte';
 import { HandTool } from './tools/hand-tool';
-import { PinchGesture } from './tools/pinch';
 import { PlaceTool } from './tools/place-tool';
 import { SelectTool } from './tools/select-tool';
-import { shortcutFor, type ShortcutAction } from './tools/shortcuts';
 import type { SnapLine } from './tools/snap';
 import type { Tool } from './tools/tool';
-import type { PlanKeyInput, PlanPointer, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
-import { DEFAULT_VIEWPORT, fitBounds, panBy, screenToPlan, zoomAt, ZOOM_STEP, type Viewport } from './viewport';
+import type { PlanKeyInput, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
+import { EditorView, fitTarget } from './view.svelte';
+import type { Viewport } from './viewport';
 
 /** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
 export interface DocumentIn {
@@ -53,9 +51,6 @@ export interface EditorOptions {
 
 export type LengthParse = { ok: true; valueM: number } | { ok: false; message: string };
 
-const NUDGE_LARGE = 10;
-const ROTATE_STEP_DEG = 15;
-
 export class Editor implements ToolHost {
 	// ----- the document -----
 	#model = $state.raw<EditorModel>(modelFromScene(emptySetupScene()).model);
@@ -69,18 +64,13 @@ export class Editor implements ToolHost {
 
 	// ----- session state (never saved) -----
 	#selectedIds = $state.raw<readonly string[]>([]);
-	#viewport = $state.raw<Viewport>(DEFAULT_VIEWPORT);
-	#stageSize = $state.raw<{ widthPx: number; heightPx: number } | null>(null);
 	#toolId = $state<ToolId>('select');
 	#toolStateId = $state('idle');
 	#placeKind = $state<ElementKind | null>(null);
 	#snapLines = $state.raw<readonly SnapLine[]>([]);
 	#marquee = $state.raw<Bounds | null>(null);
 	#spaceHeld = $state(false);
-	#hoverId = $state<string | null>(null);
-	#hoverHandle = $state(false);
 	#lastError = $state.raw<CommandError | null>(null);
-	#fitPending = true;
 	unitSystem = $state<UnitSystem>('metric');
 	falloffVisible = $state(false);
 	snapToGrid = $state(true);
@@ -93,32 +83,45 @@ export class Editor implements ToolHost {
 	/** The studio's gear-shelf modifiers, offered beside the presets (the page loads them). */
 	shelfModifiers = $state<readonly Modifier[]>([]);
 
-	// ----- input plumbing -----
+	// ----- the parts in their own files -----
 	readonly #tools: Record<ToolId, Tool>;
-	#pointers = new Map<number, Vec2>();
-	#primaryPointer: number | null = null;
-	#pinch: PinchGesture | null = null;
+	readonly #view: EditorView;
+	readonly #input: PointerInput;
+	readonly #drawing: PlanDrawing;
+	readonly #keys: KeyboardAccess;
 	#destroyed = false;
-	readonly #falloffService = new FalloffService();
-	#stopEffects: (() => void) | null = null;
 
 	constructor(options: EditorOptions = {}) {
 		this.#tools = { select: new SelectTool(this), hand: new HandTool(this), place: new PlaceTool(this) };
 		if (options.unitSystem) this.unitSystem = options.unitSystem;
+		this.#view = new EditorView({ unitSystem: () => this.unitSystem, fitTarget: () => fitTarget(this.#contentBounds(), this.planFrame) });
+		this.#drawing = new PlanDrawing({ model: () => this.#model, scene: () => this.scene, unitSystem: () => this.unitSystem, falloffVisible: () => this.falloffVisible });
+		const editor = this;
+		this.#input = new PointerInput({
+			get viewport() { return editor.viewport; },
+			get stageHeightPx() { return editor.stageSize?.heightPx ?? 600; },
+			setViewport: (v) => this.setViewport(v),
+			panBy: (dx, dy) => this.panBy(dx, dy),
+			zoomBy: (f, at) => this.zoomBy(f, at),
+			get tool() { return editor.#tool; },
+			toolChanged: () => this.#syncToolState(),
+			cancelGesture: () => this.#cancelGesture(),
+			elementAt: (p) => this.elementAt(p),
+			onRotationHandle: (p) => this.onRotationHandle(p)
+		});
+		this.#keys = {
+			setSpaceHeld: (held) => (this.#spaceHeld = held),
+			toolKeyDown: (input) => {
+				const used = this.#tool.keyDown(input);
+				if (used) this.#syncToolState();
+				return used;
+			},
+			get busy() { return editor.#tool.state.busy; },
+			cancelGesture: () => this.#cancelGesture()
+		};
 		if (options.document) this.loadDocument(options.document);
 		else this.#savedSignature = this.#signature(this.#model);
-		if (options.viewport) {
-			this.#viewport = options.viewport;
-			this.#fitPending = false;
-		}
-		if (this.#falloffService.usesWorker) {
-			this.#stopEffects = $effect.root(() => {
-				$effect(() => {
-					if (this.falloffVisible) this.#falloffService.request(this.scene, this.planBounds);
-					else this.#falloffService.clear();
-				});
-			});
-		}
+		if (options.viewport) this.#view.setViewport(options.viewport);
 	}
 
 	// ===== reading =====
@@ -139,12 +142,6 @@ export class Editor implements ToolHost {
 		return this.#selectedIds;
 	}
 	readonly selectedElements = $derived(this.#selectedIds.map((id) => this.#model.elements[id]).filter((e): e is EditorElement => !!e));
-	get viewport(): Viewport {
-		return this.#viewport;
-	}
-	get stageSize() {
-		return this.#stageSize;
-	}
 	get toolId(): ToolId {
 		return this.#toolId;
 	}
@@ -165,7 +162,7 @@ export class Editor implements ToolHost {
 		return this.#marquee;
 	}
 	get hoverId(): string | null {
-		return this.#hoverId;
+		return this.#input.hoverId;
 	}
 	/** The last refused command (named field and message), cleared by the next change. */
 	get lastError(): CommandError | null {
@@ -176,55 +173,16 @@ export class Editor implements ToolHost {
 		return this.#loadNotes;
 	}
 
-	readonly gridSteps = $derived(gridSteps(this.unitSystem, this.#viewport.zoom));
-	get gridStepM(): number {
-		return this.gridSteps.minorM;
-	}
-	readonly scaleBar = $derived(scaleBar(this.unitSystem, this.#viewport.zoom));
-	/** Grid lines in view (plan metres), for the stage. */
-	readonly gridLines = $derived.by(() => {
-		const size = this.#stageSize ?? { widthPx: 800, heightPx: 600 };
-		return gridLines(this.#viewport, size.widthPx, size.heightPx, this.gridSteps);
-	});
-	// What the stage draws for every element is worked out here; an entry that has not changed keeps
-	// its object, so the stage leaves its drawing alone while something else is dragged.
-	#dimensionCache = new Map<string, DimensionLine>();
-	#beamCache = new Map<string, Beam>();
-	#bounceCache = new Map<string, BouncePath>();
 	/** Dimension lines from each light and card to the subject, with true 3-D distances. */
-	readonly dimensions = $derived.by(() => {
-		const { list, byId } = keepUnchanged(this.#dimensionCache, dimensionLines(this.#model, this.unitSystem));
-		this.#dimensionCache = byId;
-		return list;
-	});
+	get dimensions() { return this.#drawing.dimensions; }
 	/** Each light's beam (angle, reach, kelvin). */
-	readonly beams = $derived.by(() => {
-		const { list, byId } = keepUnchanged(this.#beamCache, beams(this.#model));
-		this.#beamCache = byId;
-		return list;
-	});
+	get beams() { return this.#drawing.beams; }
 	/** Each card's path from its light to the subject. */
-	readonly bouncePaths = $derived.by(() => {
-		const { list, byId } = keepUnchanged(this.#bounceCache, bouncePaths(this.#model));
-		this.#bounceCache = byId;
-		return list;
-	});
+	get bouncePaths() { return this.#drawing.bouncePaths; }
 	/** The plan's extent with a margin: where the falloff map is computed. */
-	readonly planBounds = $derived.by(() => {
-		const b = boundsOfElements(Object.values(this.#model.elements)) ?? { minX: -0.2, minY: -0.2, maxX: 0.2, maxY: 0.2 };
-		const margin = Math.max(0.1, 0.25 * Math.max(b.maxX - b.minX, b.maxY - b.minY));
-		return expandBounds(b, margin);
-	});
-	readonly #falloffHere = $derived<FalloffGrid | null>(
-		this.falloffVisible && !this.#falloffService.usesWorker ? falloffGrid(this.scene, this.planBounds) : null
-	);
-	/**
-	 * The falloff map (stops relative to the subject), while it is switched on. In a browser it is
-	 * computed in a worker and may lag a dragged light by one map; elsewhere it is computed on read.
-	 */
-	get falloff(): FalloffGrid | null {
-		return this.#falloffService.usesWorker ? this.#falloffService.grid : this.#falloffHere;
-	}
+	get planBounds() { return this.#drawing.planBounds; }
+	/** The falloff map while it is switched on (computed in a worker in a browser; may lag a drag by one map). */
+	get falloff() { return this.#drawing.falloff; }
 
 	readonly canUndo = $derived.by(() => (this.#historyVersion, this.#history.canUndo));
 	readonly canRedo = $derived.by(() => (this.#historyVersion, this.#history.canRedo));
@@ -237,8 +195,9 @@ export class Editor implements ToolHost {
 		if (s === 'rotating') return 'crosshair';
 		if (this.#toolId === 'hand' || this.#spaceHeld) return 'grab';
 		if (this.#toolId === 'place') return 'copy';
-		if (this.#hoverHandle) return 'crosshair';
-		if (this.#hoverId) return this.#model.elements[this.#hoverId]?.locked ? 'pointer' : 'move';
+		if (this.#input.hoverHandle) return 'crosshair';
+		const hoverId = this.#input.hoverId;
+		if (hoverId) return this.#model.elements[hoverId]?.locked ? 'pointer' : 'move';
 		return 'default';
 	});
 
@@ -255,8 +214,7 @@ export class Editor implements ToolHost {
 		this.#historyVersion++;
 		this.#selectedIds = [];
 		this.#savedSignature = this.#signature(model);
-		this.#fitPending = true;
-		if (this.#stageSize) this.zoomToFit();
+		this.#view.refit();
 	}
 
 	/** The document to save: `{ schemaVersion, scene, plan, notes, gear }` (notes: the loaded ones unless given). */
@@ -360,8 +318,7 @@ export class Editor implements ToolHost {
 			const round = (v: number) => Math.round(v / step) * step;
 			return { xM: round(subject.xM + r * Math.cos(angle)), yM: round(subject.yM + r * Math.sin(angle)) };
 		}
-		const size = this.#stageSize ?? { widthPx: 800, heightPx: 600 };
-		const [xM, yM] = screenToPlan(this.#viewport, [size.widthPx / 2, size.heightPx / 2]);
+		const [xM, yM] = this.#view.centre;
 		return { xM, yM };
 	}
 
@@ -446,14 +403,15 @@ export class Editor implements ToolHost {
 	// ===== ToolHost =====
 
 	elementAt(planM: Vec2): EditorElement | null {
-		return hitTest(this.#model, planM, HIT_MARGIN_PX / this.#viewport.zoom);
+		return hitTest(this.#model, planM, HIT_MARGIN_PX / this.viewport.zoom);
 	}
 	onRotationHandle(planM: Vec2): boolean {
 		if (this.#selectedIds.length !== 1) return false;
 		const el = this.#model.elements[this.#selectedIds[0]];
 		if (!el || el.locked) return false;
-		const h = rotationHandlePosition(el, this.#viewport.zoom);
-		return Math.hypot(planM[0] - h[0], planM[1] - h[1]) <= ROTATION_HANDLE_HIT_PX / this.#viewport.zoom;
+		const zoom = this.viewport.zoom;
+		const h = rotationHandlePosition(el, zoom);
+		return Math.hypot(planM[0] - h[0], planM[1] - h[1]) <= ROTATION_HANDLE_HIT_PX / zoom;
 	}
 	elementsInside(bounds: Bounds): EditorElement[] {
 		return this.elements.filter((el) => boundsContain(bounds, elementBounds(el)));
@@ -479,35 +437,26 @@ export class Editor implements ToolHost {
 		this.#placeKind = kind;
 	}
 
-	// ===== view =====
+	// ===== view (view.svelte.ts) =====
 
-	setStageSize(widthPx: number, heightPx: number) {
-		if (!(widthPx > 0 && heightPx > 0)) return;
-		const old = this.#stageSize;
-		if (old && old.widthPx === widthPx && old.heightPx === heightPx) return;
-		this.#stageSize = { widthPx, heightPx };
-		if (this.#fitPending) this.zoomToFit();
-		else if (old) this.#viewport = panBy(this.#viewport, (widthPx - old.widthPx) / 2, (heightPx - old.heightPx) / 2);
-	}
-	setViewport(viewport: Viewport) {
-		this.#viewport = viewport;
-		this.#fitPending = false;
-	}
-	panBy(dxPx: number, dyPx: number) {
-		this.#viewport = panBy(this.#viewport, dxPx, dyPx);
-		this.#fitPending = false;
-	}
-	zoomBy(factor: number, aroundScreen?: Vec2) {
-		const size = this.#stageSize ?? { widthPx: 800, heightPx: 600 };
-		this.#viewport = zoomAt(this.#viewport, aroundScreen ?? [size.widthPx / 2, size.heightPx / 2], factor);
-		this.#fitPending = false;
-	}
-	zoomIn() {
-		this.zoomBy(ZOOM_STEP);
-	}
-	zoomOut() {
-		this.zoomBy(1 / ZOOM_STEP);
-	}
+	get viewport(): Viewport { return this.#view.viewport; }
+	get stageSize() { return this.#view.stageSize; }
+	get gridSteps() { return this.#view.gridSteps; }
+	/** Minor grid step (the snapping step), metres. */
+	get gridStepM(): number { return this.#view.gridSteps.minorM; }
+	get scaleBar() { return this.#view.scaleBar; }
+	/** Grid lines in view (plan metres), for the stage. */
+	get gridLines() { return this.#view.gridLines; }
+	setStageSize(widthPx: number, heightPx: number) { this.#view.setStageSize(widthPx, heightPx); }
+	setViewport(viewport: Viewport) { this.#view.setViewport(viewport); }
+	panBy(dxPx: number, dyPx: number) { this.#view.panBy(dxPx, dyPx); }
+	zoomBy(factor: number, aroundScreen?: Vec2) { this.#view.zoomBy(factor, aroundScreen); }
+	zoomIn() { this.#view.zoomIn(); }
+	zoomOut() { this.#view.zoomOut(); }
+	/** Shows the whole plan: its elements, and the document's frame of the table when it has one. */
+	zoomToFit() { this.#view.zoomToFit(); }
+	screenToPlan(screen: Vec2): Vec2 { return this.#view.screenToPlan(screen); }
+
 	/** The plan's own frame of the table (the document's `plan.viewport`), if it has one. */
 	get planFrame(): Bounds | null {
 		const v = this.#model.kept.rest.viewport as { center?: [number, number]; widthM?: number; depthM?: number } | undefined;
@@ -515,22 +464,9 @@ export class Editor implements ToolHost {
 		return { minX: v.center[0] - v.widthM / 2, maxX: v.center[0] + v.widthM / 2, minY: v.center[1] - v.depthM / 2, maxY: v.center[1] + v.depthM / 2 };
 	}
 
-	/** Shows the whole plan: its elements, and the document's frame of the table when it has one. */
-	zoomToFit() {
-		const size = this.#stageSize;
-		if (!size) return;
-		const content = boundsOfElements(Object.values(this.#model.elements).filter((e) => e.kind !== 'background')) ?? boundsOfElements(this.elements);
-		const frame = this.planFrame;
-		const b =
-			content && frame
-				? { minX: Math.min(content.minX, frame.minX), minY: Math.min(content.minY, frame.minY), maxX: Math.max(content.maxX, frame.maxX), maxY: Math.max(content.maxY, frame.maxY) }
-				: (content ?? frame);
-		if (!b) return;
-		this.#viewport = fitBounds(expandBounds(b, 0.03), size.widthPx, size.heightPx);
-		this.#fitPending = false;
-	}
-	screenToPlan(screen: Vec2): Vec2 {
-		return screenToPlan(this.#viewport, screen);
+	/** The elements' extent, the background left out unless it is all there is. */
+	#contentBounds(): Bounds | null {
+		return boundsOfElements(Object.values(this.#model.elements).filter((e) => e.kind !== 'background')) ?? boundsOfElements(this.elements);
 	}
 
 	// ===== units =====
@@ -553,183 +489,28 @@ export class Editor implements ToolHost {
 		}
 	}
 
-	// ===== input =====
-
-	#pointer(input: PlanPointerInput): PlanPointer {
-		const screen: Vec2 = [input.screenX, input.screenY];
-		return {
-			screen,
-			planM: screenToPlan(this.#viewport, screen),
-			pointerId: input.pointerId ?? 1,
-			pointerType: input.pointerType ?? 'mouse',
-			button: input.button ?? 0,
-			shiftKey: input.shiftKey ?? false,
-			altKey: input.altKey ?? false,
-			ctrlKey: input.ctrlKey ?? false,
-			metaKey: input.metaKey ?? false
-		};
-	}
-
-	#syncToolState() {
-		this.#toolStateId = this.#tools[this.#toolId].stateId;
-	}
+	// ===== input (pointer-input.svelte.ts, keyboard.ts) =====
 
 	get #tool(): Tool {
 		return this.#tools[this.#toolId];
 	}
-
-	pointerDown(input: PlanPointerInput) {
-		if (this.#destroyed) return;
-		const e = this.#pointer(input);
-		this.#pointers.set(e.pointerId, e.screen);
-		if (this.#pointers.size === 2) {
-			// A second finger: whatever the first one began is undone, and the two pinch the view.
-			this.#tool.cancel();
-			this.#syncToolState();
-			const [a, b] = [...this.#pointers.values()];
-			this.#pinch = new PinchGesture(this.#viewport, a, b);
-			this.#primaryPointer = null;
-			return;
-		}
-		if (this.#pointers.size > 2 || this.#pinch) return;
-		this.#primaryPointer = e.pointerId;
-		this.#tool.pointerDown(e);
-		this.#syncToolState();
+	#syncToolState() {
+		this.#toolStateId = this.#tool.stateId;
 	}
 
-	pointerMove(input: PlanPointerInput) {
-		if (this.#destroyed) return;
-		const e = this.#pointer(input);
-		if (this.#pointers.has(e.pointerId)) this.#pointers.set(e.pointerId, e.screen);
-		if (this.#pinch) {
-			if (this.#pointers.size >= 2) {
-				const [a, b] = [...this.#pointers.values()];
-				this.#viewport = this.#pinch.viewportFor(a, b);
-				this.#fitPending = false;
-			}
-			return;
-		}
-		if (this.#primaryPointer !== null && e.pointerId !== this.#primaryPointer) return;
-		if (this.#primaryPointer === null && this.#pointers.size) return;
-		if (this.#toolStateId === 'idle') {
-			const hit = this.elementAt(e.planM);
-			this.#hoverId = hit?.id ?? null;
-			this.#hoverHandle = this.onRotationHandle(e.planM);
-		}
-		this.#tool.pointerMove(e);
-		this.#syncToolState();
-	}
-
-	pointerUp(input: PlanPointerInput) {
-		if (this.#destroyed) return;
-		const e = this.#pointer(input);
-		this.#pointers.delete(e.pointerId);
-		if (this.#pinch) {
-			if (this.#pointers.size < 2) this.#pinch = null;
-			return;
-		}
-		if (e.pointerId !== this.#primaryPointer) return;
-		this.#primaryPointer = null;
-		this.#tool.pointerUp(e);
-		this.#syncToolState();
-	}
-
+	pointerDown(input: PlanPointerInput) { if (!this.#destroyed) this.#input.down(input); }
+	pointerMove(input: PlanPointerInput) { if (!this.#destroyed) this.#input.move(input); }
+	pointerUp(input: PlanPointerInput) { if (!this.#destroyed) this.#input.up(input); }
 	/** The browser took the pointer away (a system gesture, the window lost focus): undo the gesture. */
-	pointerCancel(input: PlanPointerInput) {
-		this.#pointers.delete(input.pointerId ?? 1);
-		if (this.#pinch && this.#pointers.size < 2) this.#pinch = null;
-		this.#primaryPointer = null;
-		this.#cancelGesture();
-	}
-
-	pointerLeave() {
-		this.#hoverId = null;
-		this.#hoverHandle = false;
-	}
-
-	wheel(input: PlanWheelInput) {
-		if (this.#destroyed) return;
-		const unit = input.deltaMode === 1 ? 16 : input.deltaMode === 2 ? (this.#stageSize?.heightPx ?? 600) : 1;
-		const dx = (input.deltaX ?? 0) * unit;
-		const dy = input.deltaY * unit;
-		if (input.shiftKey && !input.ctrlKey && !input.metaKey) {
-			// Shift + wheel pans; a wheel that scrolls sideways already sends deltaX.
-			this.panBy(-(dx || dy), 0);
-			return;
-		}
-		// A pinch on a touchpad arrives as a wheel with Ctrl and small deltas: zoom faster per pixel.
-		const factor = 2 ** (-dy / (input.ctrlKey ? 100 : 500));
-		this.zoomBy(factor, [input.screenX, input.screenY]);
-	}
-
+	pointerCancel(input: PlanPointerInput) { this.#input.cancel(input); }
+	pointerLeave() { this.#input.leave(); }
+	wheel(input: PlanWheelInput) { if (!this.#destroyed) this.#input.wheel(input); }
 	/** A key pressed with the plan focused. Returns true when it was used (the caller prevents the default). */
 	keyDown(input: PlanKeyInput): boolean {
-		if (this.#destroyed) return false;
-		if (input.key === ' ') {
-			this.#spaceHeld = true;
-			return true;
-		}
-		if (this.#tool.keyDown(input)) {
-			this.#syncToolState();
-			return true;
-		}
-		const shortcut = shortcutFor(input);
-		if (!shortcut) return false;
-		if (shortcut.action === 'clear-selection') {
-			if (this.#tool.state.busy) {
-				this.#cancelGesture();
-				return true;
-			}
-			if (this.#toolId !== 'select') {
-				this.setTool('select');
-				return true;
-			}
-			if (!this.#selectedIds.length) return false;
-			this.clearSelection();
-			return true;
-		}
-		if (this.#tool.state.busy) return true;
-		this.#runShortcut(shortcut.action, input);
-		return true;
+		return !this.#destroyed && keyDown(this, this.#keys, input);
 	}
-
 	keyUp(input: PlanKeyInput) {
 		if (input.key === ' ') this.#spaceHeld = false;
-	}
-
-	#runShortcut(action: ShortcutAction, e: PlanKeyInput) {
-		const step = this.gridStepM * (e.shiftKey ? NUDGE_LARGE : 1);
-		const nudge = (dx: number, dy: number) => {
-			if (this.#selectedIds.length) this.nudgeSelected(dx * step, dy * step, e.repeat);
-			else this.panBy(-dx * 40, -dy * 40);
-		};
-		switch (action) {
-			case 'undo': return this.undo();
-			case 'redo': return this.redo();
-			case 'delete': return void this.deleteSelected();
-			case 'duplicate': return void this.duplicateSelected();
-			case 'select-all': return this.selectAll();
-			case 'select-next': return this.selectNext(false);
-			case 'select-previous': return this.selectNext(true);
-			case 'clear-selection': return this.clearSelection();
-			case 'nudge-left': return void nudge(-1, 0);
-			case 'nudge-right': return void nudge(1, 0);
-			case 'nudge-up': return void nudge(0, -1);
-			case 'nudge-down': return void nudge(0, 1);
-			case 'rotate-clockwise': return void this.rotateSelectedBy(ROTATE_STEP_DEG);
-			case 'rotate-anticlockwise': return void this.rotateSelectedBy(-ROTATE_STEP_DEG);
-			case 'aim-at-subject': return void this.aimSelectedAtSubject();
-			case 'toggle-lock': return void this.toggleLockSelected();
-			case 'bring-to-front': return void this.bringSelectedToFront();
-			case 'send-to-back': return void this.sendSelectedToBack();
-			case 'zoom-in': return this.zoomIn();
-			case 'zoom-out': return this.zoomOut();
-			case 'zoom-to-fit': return this.zoomToFit();
-			case 'select-tool': return this.setTool('select');
-			case 'hand-tool': return this.setTool('hand');
-			case 'toggle-falloff': this.falloffVisible = !this.falloffVisible; return;
-			case 'toggle-grid-snap': this.snapToGrid = !this.snapToGrid; return;
-		}
 	}
 
 	#cancelGesture() {
@@ -740,12 +521,9 @@ export class Editor implements ToolHost {
 
 	/** Ends every gesture and stops taking input. */
 	destroy() {
-		this.#stopEffects?.();
-		this.#stopEffects = null;
-		this.#falloffService.destroy();
+		this.#drawing.destroy();
 		this.#cancelGesture();
-		this.#pointers.clear();
-		this.#pinch = null;
+		this.#input.clear();
 		this.#destroyed = true;
 	}
 }
