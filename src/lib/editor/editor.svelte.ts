@@ -9,28 +9,25 @@
 import { formatDistance, type UnitSystem } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
 import type { GearSnapshot } from '$lib/scene/document';
+import { ActiveTool } from './active-tool.svelte';
 import * as commands from './commands';
 import type { Command, CommandError, CommandResult } from './commands';
 import { PlanDrawing } from './drawing.svelte';
-import { HIT_MARGIN_PX, ROTATION_HANDLE_HIT_PX, rotationHandlePosition } from './handles';
+import { HIT_MARGIN_PX, onRotationHandleOf } from './handles';
 import { History } from './history';
-import { keyDown, type KeyboardAccess } from './keyboard';
+import { keyDown } from './keyboard';
 import { liveExposure } from './live-exposure';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
 import { documentFromModel, modelFromDocument, type Plan, type SetupDocument } from './model/document';
-import { boundsContain, boundsOfElements, elementBounds, hitTest, type Bounds } from './model/geometry';
-import { emptySetupScene, modelFromScene } from './model/layout';
+import { boundsContain, elementBounds, hitTest, type Bounds } from './model/geometry';
+import { emptySetupScene, modelFromScene, placeForNew } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
 import type { AmbientSettings, CameraSettings, EditorElement, ElementKind, Modifier } from './model/schema';
-import { elementsInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
+import { elementsInOrder, nextInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
 import { PointerInput } from './pointer-input.svelte';
-import { HandTool } from './tools/hand-tool';
-import { PlaceTool } from './tools/place-tool';
-import { SelectTool } from './tools/select-tool';
 import type { SnapLine } from './tools/snap';
-import type { Tool } from './tools/tool';
 import type { PlanKeyInput, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
-import { EditorView, fitTarget } from './view.svelte';
+import { EditorView, fitTarget, planFrame } from './view.svelte';
 import type { Viewport } from './viewport';
 
 /** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
@@ -64,12 +61,8 @@ export class Editor implements ToolHost {
 
 	// ----- session state (never saved) -----
 	#selectedIds = $state.raw<readonly string[]>([]);
-	#toolId = $state<ToolId>('select');
-	#toolStateId = $state('idle');
-	#placeKind = $state<ElementKind | null>(null);
 	#snapLines = $state.raw<readonly SnapLine[]>([]);
 	#marquee = $state.raw<Bounds | null>(null);
-	#spaceHeld = $state(false);
 	#lastError = $state.raw<CommandError | null>(null);
 	unitSystem = $state<UnitSystem>('metric');
 	falloffVisible = $state(false);
@@ -84,41 +77,17 @@ export class Editor implements ToolHost {
 	shelfModifiers = $state<readonly Modifier[]>([]);
 
 	// ----- the parts in their own files -----
-	readonly #tools: Record<ToolId, Tool>;
+	readonly #tool = new ActiveTool(this);
 	readonly #view: EditorView;
 	readonly #input: PointerInput;
 	readonly #drawing: PlanDrawing;
-	readonly #keys: KeyboardAccess;
 	#destroyed = false;
 
 	constructor(options: EditorOptions = {}) {
-		this.#tools = { select: new SelectTool(this), hand: new HandTool(this), place: new PlaceTool(this) };
 		if (options.unitSystem) this.unitSystem = options.unitSystem;
-		this.#view = new EditorView({ unitSystem: () => this.unitSystem, fitTarget: () => fitTarget(this.#contentBounds(), this.planFrame) });
+		this.#view = new EditorView({ unitSystem: () => this.unitSystem, fitTarget: () => fitTarget(this.#model) });
 		this.#drawing = new PlanDrawing({ model: () => this.#model, scene: () => this.scene, unitSystem: () => this.unitSystem, falloffVisible: () => this.falloffVisible });
-		const editor = this;
-		this.#input = new PointerInput({
-			get viewport() { return editor.viewport; },
-			get stageHeightPx() { return editor.stageSize?.heightPx ?? 600; },
-			setViewport: (v) => this.setViewport(v),
-			panBy: (dx, dy) => this.panBy(dx, dy),
-			zoomBy: (f, at) => this.zoomBy(f, at),
-			get tool() { return editor.#tool; },
-			toolChanged: () => this.#syncToolState(),
-			cancelGesture: () => this.#cancelGesture(),
-			elementAt: (p) => this.elementAt(p),
-			onRotationHandle: (p) => this.onRotationHandle(p)
-		});
-		this.#keys = {
-			setSpaceHeld: (held) => (this.#spaceHeld = held),
-			toolKeyDown: (input) => {
-				const used = this.#tool.keyDown(input);
-				if (used) this.#syncToolState();
-				return used;
-			},
-			get busy() { return editor.#tool.state.busy; },
-			cancelGesture: () => this.#cancelGesture()
-		};
+		this.#input = new PointerInput(this, this.#tool);
 		if (options.document) this.loadDocument(options.document);
 		else this.#savedSignature = this.#signature(this.#model);
 		if (options.viewport) this.#view.setViewport(options.viewport);
@@ -126,9 +95,7 @@ export class Editor implements ToolHost {
 
 	// ===== reading =====
 
-	get model(): EditorModel {
-		return this.#model;
-	}
+	get model(): EditorModel { return this.#model; }
 	/** The exposure scene of the plan: the body for `POST /api/v1/exposure`. */
 	readonly scene = $derived(toExposureScene(this.#model));
 	/** The scene's exposure, computed here by the engine (or the field the checks refuse). */
@@ -138,40 +105,20 @@ export class Editor implements ToolHost {
 	/** Elements in drawing order. */
 	readonly elements = $derived(elementsInOrder(this.#model));
 	readonly subject = $derived(subjectOf(this.#model));
-	get selectedIds(): readonly string[] {
-		return this.#selectedIds;
-	}
+	get selectedIds(): readonly string[] { return this.#selectedIds; }
 	readonly selectedElements = $derived(this.#selectedIds.map((id) => this.#model.elements[id]).filter((e): e is EditorElement => !!e));
-	get toolId(): ToolId {
-		return this.#toolId;
-	}
+	get toolId(): ToolId { return this.#tool.id; }
 	/** The active tool's state (`idle`, `dragging`, `rotating`, ...). */
-	get toolState(): string {
-		return this.#toolStateId;
-	}
-	get placeKind(): ElementKind | null {
-		return this.#placeKind;
-	}
-	get spaceHeld(): boolean {
-		return this.#spaceHeld;
-	}
-	get snapLines(): readonly SnapLine[] {
-		return this.#snapLines;
-	}
-	get marquee(): Bounds | null {
-		return this.#marquee;
-	}
-	get hoverId(): string | null {
-		return this.#input.hoverId;
-	}
+	get toolState(): string { return this.#tool.stateId; }
+	get placeKind(): ElementKind | null { return this.#tool.placeKind; }
+	get spaceHeld(): boolean { return this.#tool.spaceHeld; }
+	get snapLines(): readonly SnapLine[] { return this.#snapLines; }
+	get marquee(): Bounds | null { return this.#marquee; }
+	get hoverId(): string | null { return this.#input.hoverId; }
 	/** The last refused command (named field and message), cleared by the next change. */
-	get lastError(): CommandError | null {
-		return this.#lastError;
-	}
+	get lastError(): CommandError | null { return this.#lastError; }
 	/** What loading the document could not use (shown once, e.g. as a notice). */
-	get loadNotes(): readonly string[] {
-		return this.#loadNotes;
-	}
+	get loadNotes(): readonly string[] { return this.#loadNotes; }
 
 	/** Dimension lines from each light and card to the subject, with true 3-D distances. */
 	get dimensions() { return this.#drawing.dimensions; }
@@ -190,21 +137,14 @@ export class Editor implements ToolHost {
 	readonly dirty = $derived(this.#signature(this.#model) !== this.#savedSignature);
 
 	readonly cursor = $derived.by(() => {
-		const s = this.#toolStateId;
-		if (s === 'panning' || s === 'dragging') return 'grabbing';
-		if (s === 'rotating') return 'crosshair';
-		if (this.#toolId === 'hand' || this.#spaceHeld) return 'grab';
-		if (this.#toolId === 'place') return 'copy';
-		if (this.#input.hoverHandle) return 'crosshair';
-		const hoverId = this.#input.hoverId;
-		if (hoverId) return this.#model.elements[hoverId]?.locked ? 'pointer' : 'move';
-		return 'default';
+		const hovered = this.#input.hoverId ? this.#model.elements[this.#input.hoverId] : undefined;
+		return this.#tool.cursor(this.#input.hoverHandle ? 'handle' : hovered ? (hovered.locked ? 'locked' : 'element') : null);
 	});
 
 	// ===== the document =====
 
 	loadDocument(doc: DocumentIn) {
-		this.#cancelGesture();
+		this.#tool.cancelGesture();
 		const { model, notes } = modelFromDocument(doc);
 		this.#notes = doc.notes ?? '';
 		this.#gear = doc.gear ?? [];
@@ -242,7 +182,7 @@ export class Editor implements ToolHost {
 
 	/** Runs a command as an undo step of its own. A refusal is kept in `lastError` and changes nothing. */
 	execute(command: Command): CommandResult {
-		if (this.#tools[this.#toolId].state.busy) this.#cancelGesture();
+		if (this.#tool.busy) this.#tool.cancelGesture();
 		return this.#run(command, true);
 	}
 
@@ -271,21 +211,18 @@ export class Editor implements ToolHost {
 	}
 
 	bailToMark(markId: string) {
-		const diff = this.#history.bailToMark(markId);
-		if (diff) this.#apply(diff);
-		this.#historyVersion++;
+		this.#travel(this.#history.bailToMark(markId));
 	}
-
 	undo() {
-		this.#cancelGesture();
-		const diff = this.#history.undo();
-		if (diff) this.#apply(diff);
-		this.#historyVersion++;
+		this.#tool.cancelGesture();
+		this.#travel(this.#history.undo());
 	}
-
 	redo() {
-		this.#cancelGesture();
-		const diff = this.#history.redo();
+		this.#tool.cancelGesture();
+		this.#travel(this.#history.redo());
+	}
+	/** Applies what the history hands back (nothing at either end). */
+	#travel(diff: ModelDiff | null | undefined) {
 		if (diff) this.#apply(diff);
 		this.#historyVersion++;
 	}
@@ -300,35 +237,16 @@ export class Editor implements ToolHost {
 
 	/** Adds an element (at the view's centre, or beside the subject for lights and cards) and selects it. */
 	addElement(kind: ElementKind, at?: { xM: number; yM: number; heightM?: number }): string | null {
-		const place = at ?? this.#defaultPlace(kind);
+		const place = at ?? placeForNew(this.#model, kind, this.gridStepM, this.#view.centre);
 		const result = this.execute(commands.addElement(kind, place));
 		if (!result.ok) return null;
 		this.select(result.createdIds);
 		return result.createdIds[0];
 	}
 
-	#defaultPlace(kind: ElementKind): { xM: number; yM: number } {
-		const subject = this.subject;
-		if (subject && kind !== 'subject') {
-			// Around the subject, each new one a little further round, so they do not stack.
-			const count = Object.keys(this.#model.elements).length;
-			const angle = (-135 + 50 * count) * (Math.PI / 180);
-			const r = kind === 'background' ? 0 : kind === 'camera' ? 0.3 : 0.25;
-			const step = this.gridStepM;
-			const round = (v: number) => Math.round(v / step) * step;
-			return { xM: round(subject.xM + r * Math.cos(angle)), yM: round(subject.yM + r * Math.sin(angle)) };
-		}
-		const [xM, yM] = this.#view.centre;
-		return { xM, yM };
-	}
-
-	deleteSelected() {
-		return this.execute(commands.removeElements(this.#selectedIds));
-	}
+	deleteSelected() { return this.execute(commands.removeElements(this.#selectedIds)); }
 	/** Deletes elements by id (the element list); locked ones and the subject stay. */
-	deleteElements(ids: readonly string[]) {
-		return this.execute(commands.removeElements(ids));
-	}
+	deleteElements(ids: readonly string[]) { return this.execute(commands.removeElements(ids)); }
 	duplicateSelected() {
 		const step = this.gridStepM;
 		const offset = Math.max(0.02, Math.ceil(0.03 / step) * step);
@@ -336,43 +254,25 @@ export class Editor implements ToolHost {
 		if (result.ok) this.select(result.createdIds);
 		return result;
 	}
-	setLockedSelected(locked: boolean) {
-		return this.execute(commands.setLocked(this.#selectedIds, locked));
-	}
+	setLockedSelected(locked: boolean) { return this.execute(commands.setLocked(this.#selectedIds, locked)); }
 	toggleLockSelected() {
 		const anyUnlocked = this.selectedElements.some((e) => !e.locked);
 		return this.setLockedSelected(anyUnlocked);
 	}
-	aimSelectedAtSubject() {
-		return this.execute(commands.aimAtSubject(this.#selectedIds));
-	}
-	rotateSelectedBy(deltaDeg: number) {
-		return this.execute(commands.rotateElementsBy(this.#selectedIds, deltaDeg));
-	}
+	aimSelectedAtSubject() { return this.execute(commands.aimAtSubject(this.#selectedIds)); }
+	rotateSelectedBy(deltaDeg: number) { return this.execute(commands.rotateElementsBy(this.#selectedIds, deltaDeg)); }
 	/** Moves the selection; a held key's repeats join the first press's undo step. */
 	nudgeSelected(dxM: number, dyM: number, repeat = false) {
 		const command = commands.moveElementsBy(this.#selectedIds, dxM, dyM);
 		return repeat && this.#history.canUndo ? this.applyInGesture(command) : this.execute(command);
 	}
 	/** Moves one element to typed plan coordinates (the element list). */
-	moveElementTo(id: string, xM: number, yM: number) {
-		return this.execute(commands.moveElementsTo({ [id]: { xM, yM } }));
-	}
-	setProperties(id: string, patch: Readonly<Record<string, unknown>>) {
-		return this.execute(commands.setElementProperties(id, patch));
-	}
-	setCameraSettings(patch: Partial<CameraSettings>) {
-		return this.execute(commands.setCameraSettings(patch));
-	}
-	setAmbient(ambient: AmbientSettings | null) {
-		return this.execute(commands.setAmbient(ambient));
-	}
-	bringSelectedToFront() {
-		return this.execute(commands.bringToFront(this.#selectedIds));
-	}
-	sendSelectedToBack() {
-		return this.execute(commands.sendToBack(this.#selectedIds));
-	}
+	moveElementTo(id: string, xM: number, yM: number) { return this.execute(commands.moveElementsTo({ [id]: { xM, yM } })); }
+	setProperties(id: string, patch: Readonly<Record<string, unknown>>) { return this.execute(commands.setElementProperties(id, patch)); }
+	setCameraSettings(patch: Partial<CameraSettings>) { return this.execute(commands.setCameraSettings(patch)); }
+	setAmbient(ambient: AmbientSettings | null) { return this.execute(commands.setAmbient(ambient)); }
+	bringSelectedToFront() { return this.execute(commands.bringToFront(this.#selectedIds)); }
+	sendSelectedToBack() { return this.execute(commands.sendToBack(this.#selectedIds)); }
 
 	// ===== selection =====
 
@@ -392,12 +292,8 @@ export class Editor implements ToolHost {
 	}
 	/** Keyboard: the next (or previous) element in drawing order. */
 	selectNext(backwards = false) {
-		const order = this.elements.map((e) => e.id);
-		if (!order.length) return;
-		const current = this.#selectedIds.at(-1);
-		const at = current ? order.indexOf(current) : -1;
-		const next = at < 0 ? (backwards ? order.length - 1 : 0) : (at + (backwards ? -1 : 1) + order.length) % order.length;
-		this.select([order[next]]);
+		const next = nextInOrder(this.elements.map((e) => e.id), this.#selectedIds.at(-1), backwards);
+		if (next !== undefined) this.select([next]);
 	}
 
 	// ===== ToolHost =====
@@ -408,10 +304,7 @@ export class Editor implements ToolHost {
 	onRotationHandle(planM: Vec2): boolean {
 		if (this.#selectedIds.length !== 1) return false;
 		const el = this.#model.elements[this.#selectedIds[0]];
-		if (!el || el.locked) return false;
-		const zoom = this.viewport.zoom;
-		const h = rotationHandlePosition(el, zoom);
-		return Math.hypot(planM[0] - h[0], planM[1] - h[1]) <= ROTATION_HANDLE_HIT_PX / zoom;
+		return !!el && !el.locked && onRotationHandleOf(el, planM, this.viewport.zoom);
 	}
 	elementsInside(bounds: Bounds): EditorElement[] {
 		return this.elements.filter((el) => boundsContain(bounds, elementBounds(el)));
@@ -424,18 +317,9 @@ export class Editor implements ToolHost {
 	setMarquee(bounds: Bounds | null) {
 		this.#marquee = bounds;
 	}
-	setTool(id: ToolId) {
-		if (id === this.#toolId) return;
-		this.#tools[this.#toolId].exit();
-		this.#toolId = id;
-		if (id !== 'place') this.#placeKind = null;
-		this.#syncToolState();
-	}
+	setTool(id: ToolId) { this.#tool.set(id); }
 	/** Arms the place tool: the next press on the plan puts a new element there. */
-	startPlacing(kind: ElementKind) {
-		this.setTool('place');
-		this.#placeKind = kind;
-	}
+	startPlacing(kind: ElementKind) { this.#tool.startPlacing(kind); }
 
 	// ===== view (view.svelte.ts) =====
 
@@ -458,16 +342,7 @@ export class Editor implements ToolHost {
 	screenToPlan(screen: Vec2): Vec2 { return this.#view.screenToPlan(screen); }
 
 	/** The plan's own frame of the table (the document's `plan.viewport`), if it has one. */
-	get planFrame(): Bounds | null {
-		const v = this.#model.kept.rest.viewport as { center?: [number, number]; widthM?: number; depthM?: number } | undefined;
-		if (!v?.center || !v.widthM || !v.depthM) return null;
-		return { minX: v.center[0] - v.widthM / 2, maxX: v.center[0] + v.widthM / 2, minY: v.center[1] - v.depthM / 2, maxY: v.center[1] + v.depthM / 2 };
-	}
-
-	/** The elements' extent, the background left out unless it is all there is. */
-	#contentBounds(): Bounds | null {
-		return boundsOfElements(Object.values(this.#model.elements).filter((e) => e.kind !== 'background')) ?? boundsOfElements(this.elements);
-	}
+	get planFrame(): Bounds | null { return planFrame(this.#model); }
 
 	// ===== units =====
 
@@ -491,13 +366,6 @@ export class Editor implements ToolHost {
 
 	// ===== input (pointer-input.svelte.ts, keyboard.ts) =====
 
-	get #tool(): Tool {
-		return this.#tools[this.#toolId];
-	}
-	#syncToolState() {
-		this.#toolStateId = this.#tool.stateId;
-	}
-
 	pointerDown(input: PlanPointerInput) { if (!this.#destroyed) this.#input.down(input); }
 	pointerMove(input: PlanPointerInput) { if (!this.#destroyed) this.#input.move(input); }
 	pointerUp(input: PlanPointerInput) { if (!this.#destroyed) this.#input.up(input); }
@@ -507,22 +375,16 @@ export class Editor implements ToolHost {
 	wheel(input: PlanWheelInput) { if (!this.#destroyed) this.#input.wheel(input); }
 	/** A key pressed with the plan focused. Returns true when it was used (the caller prevents the default). */
 	keyDown(input: PlanKeyInput): boolean {
-		return !this.#destroyed && keyDown(this, this.#keys, input);
+		return !this.#destroyed && keyDown(this, this.#tool, input);
 	}
 	keyUp(input: PlanKeyInput) {
-		if (input.key === ' ') this.#spaceHeld = false;
-	}
-
-	#cancelGesture() {
-		const tool = this.#tools[this.#toolId];
-		if (tool.state.busy || tool.stateId !== 'idle') tool.cancel();
-		this.#syncToolState();
+		if (input.key === ' ') this.#tool.spaceHeld = false;
 	}
 
 	/** Ends every gesture and stops taking input. */
 	destroy() {
 		this.#drawing.destroy();
-		this.#cancelGesture();
+		this.#tool.cancelGesture();
 		this.#input.clear();
 		this.#destroyed = true;
 	}

@@ -3,6 +3,7 @@
  * shortcut table (`tools/shortcuts.ts`), each shortcut run as the editor command it names. Escape
  * first undoes a gesture in progress, then leaves a tool, then clears the selection.
  */
+import type { ActiveTool } from './active-tool.svelte';
 import type { Editor } from './editor.svelte';
 import { shortcutFor, type ShortcutAction } from './tools/shortcuts';
 import type { PlanKeyInput } from './tools/types';
@@ -13,28 +14,21 @@ export const ROTATE_STEP_DEG = 15;
 /** An arrow with nothing selected pans the view by this much. */
 const PAN_STEP_PX = 40;
 
-/** What the keyboard may do beyond the editor's public methods. */
-export interface KeyboardAccess {
-	setSpaceHeld(held: boolean): void;
-	/** Hands the key to the active tool; true when it used it. */
-	toolKeyDown(input: PlanKeyInput): boolean;
-	/** Is a gesture in progress? */
-	readonly busy: boolean;
-	cancelGesture(): void;
-}
-
 /** Returns true when the key was used (the caller prevents the default). */
-export function keyDown(editor: Editor, access: KeyboardAccess, input: PlanKeyInput): boolean {
+export function keyDown(editor: Editor, active: ActiveTool, input: PlanKeyInput): boolean {
 	if (input.key === ' ') {
-		access.setSpaceHeld(true);
+		active.spaceHeld = true;
 		return true;
 	}
-	if (access.toolKeyDown(input)) return true;
+	if (active.tool.keyDown(input)) {
+		active.changed();
+		return true;
+	}
 	const shortcut = shortcutFor(input);
 	if (!shortcut) return false;
 	if (shortcut.action === 'clear-selection') {
-		if (access.busy) {
-			access.cancelGesture();
+		if (active.busy) {
+			active.cancelGesture();
 			return true;
 		}
 		if (editor.toolId !== 'select') {
@@ -45,7 +39,7 @@ export function keyDown(editor: Editor, access: KeyboardAccess, input: PlanKeyIn
 		editor.clearSelection();
 		return true;
 	}
-	if (access.busy) return true;
+	if (active.busy) return true;
 	runShortcut(editor, shortcut.action, input);
 	return true;
 }

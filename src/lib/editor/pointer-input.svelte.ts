@@ -4,39 +4,28 @@
  * (and the rotation handle) under the pointer for the cursor. Screen pixels are turned into plan
  * metres here, so tools only see `PlanPointer`s.
  */
-import type { EditorElement } from './model/schema';
+import type { ActiveTool } from './active-tool.svelte';
+import type { Editor } from './editor.svelte';
 import type { Vec2 } from './model/types';
 import { PinchGesture } from './tools/pinch';
-import type { Tool } from './tools/tool';
 import type { PlanPointer, PlanPointerInput, PlanWheelInput } from './tools/types';
-import { screenToPlan, type Viewport } from './viewport';
+import { screenToPlan } from './viewport';
 
 /** What the routing needs of the editor. */
-export interface PointerHost {
-	readonly viewport: Viewport;
-	readonly stageHeightPx: number;
-	setViewport(viewport: Viewport): void;
-	panBy(dxPx: number, dyPx: number): void;
-	zoomBy(factor: number, aroundScreen: Vec2): void;
-	/** The active tool; `toolChanged` after handing it an input (its state may have moved on). */
-	readonly tool: Tool;
-	toolChanged(): void;
-	/** Undo the gesture in progress. */
-	cancelGesture(): void;
-	elementAt(planM: Vec2): EditorElement | null;
-	onRotationHandle(planM: Vec2): boolean;
-}
+export type PointerHost = Pick<Editor, 'viewport' | 'stageSize' | 'setViewport' | 'panBy' | 'zoomBy' | 'elementAt' | 'onRotationHandle'>;
 
 export class PointerInput {
 	readonly #host: PointerHost;
+	readonly #active: ActiveTool;
 	#pointers = new Map<number, Vec2>();
 	#primaryPointer: number | null = null;
 	#pinch: PinchGesture | null = null;
 	#hoverId = $state<string | null>(null);
 	#hoverHandle = $state(false);
 
-	constructor(host: PointerHost) {
+	constructor(host: PointerHost, active: ActiveTool) {
 		this.#host = host;
+		this.#active = active;
 	}
 
 	/** The element under an idle pointer. */
@@ -68,8 +57,8 @@ export class PointerInput {
 		this.#pointers.set(e.pointerId, e.screen);
 		if (this.#pointers.size === 2) {
 			// A second finger: whatever the first one began is undone, and the two pinch the view.
-			this.#host.tool.cancel();
-			this.#host.toolChanged();
+			this.#active.tool.cancel();
+			this.#active.changed();
 			const [a, b] = [...this.#pointers.values()];
 			this.#pinch = new PinchGesture(this.#host.viewport, a, b);
 			this.#primaryPointer = null;
@@ -77,8 +66,8 @@ export class PointerInput {
 		}
 		if (this.#pointers.size > 2 || this.#pinch) return;
 		this.#primaryPointer = e.pointerId;
-		this.#host.tool.pointerDown(e);
-		this.#host.toolChanged();
+		this.#active.tool.pointerDown(e);
+		this.#active.changed();
 	}
 
 	move(input: PlanPointerInput) {
@@ -93,12 +82,12 @@ export class PointerInput {
 		}
 		if (this.#primaryPointer !== null && e.pointerId !== this.#primaryPointer) return;
 		if (this.#primaryPointer === null && this.#pointers.size) return;
-		if (this.#host.tool.stateId === 'idle') {
+		if (this.#active.tool.stateId === 'idle') {
 			this.#hoverId = this.#host.elementAt(e.planM)?.id ?? null;
 			this.#hoverHandle = this.#host.onRotationHandle(e.planM);
 		}
-		this.#host.tool.pointerMove(e);
-		this.#host.toolChanged();
+		this.#active.tool.pointerMove(e);
+		this.#active.changed();
 	}
 
 	up(input: PlanPointerInput) {
@@ -110,8 +99,8 @@ export class PointerInput {
 		}
 		if (e.pointerId !== this.#primaryPointer) return;
 		this.#primaryPointer = null;
-		this.#host.tool.pointerUp(e);
-		this.#host.toolChanged();
+		this.#active.tool.pointerUp(e);
+		this.#active.changed();
 	}
 
 	/** The browser took the pointer away (a system gesture, the window lost focus): undo the gesture. */
@@ -119,7 +108,7 @@ export class PointerInput {
 		this.#pointers.delete(input.pointerId ?? 1);
 		if (this.#pinch && this.#pointers.size < 2) this.#pinch = null;
 		this.#primaryPointer = null;
-		this.#host.cancelGesture();
+		this.#active.cancelGesture();
 	}
 
 	leave() {
@@ -128,7 +117,7 @@ export class PointerInput {
 	}
 
 	wheel(input: PlanWheelInput) {
-		const unit = input.deltaMode === 1 ? 16 : input.deltaMode === 2 ? this.#host.stageHeightPx : 1;
+		const unit = input.deltaMode === 1 ? 16 : input.deltaMode === 2 ? (this.#host.stageSize?.heightPx ?? 600) : 1;
 		const dx = (input.deltaX ?? 0) * unit;
 		const dy = input.deltaY * unit;
 		if (input.shiftKey && !input.ctrlKey && !input.metaKey) {

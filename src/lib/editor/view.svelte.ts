@@ -5,8 +5,8 @@
  */
 import type { UnitSystem } from '$lib/light/format';
 import { gridLines, gridSteps, scaleBar } from './grid';
-import { expandBounds, type Bounds } from './model/geometry';
-import type { Vec2 } from './model/types';
+import { boundsOfElements, expandBounds, type Bounds } from './model/geometry';
+import type { EditorModel, Vec2 } from './model/types';
 import { DEFAULT_VIEWPORT, fitBounds, panBy, screenToPlan, zoomAt, ZOOM_STEP, type Viewport } from './viewport';
 
 export interface StageSize {
@@ -17,8 +17,21 @@ export interface StageSize {
 /** Assumed before the stage reports its size (tests, the server). */
 const FALLBACK_STAGE: StageSize = { widthPx: 800, heightPx: 600 };
 
-/** What "fit" shows: the elements and the plan's own frame of the table, whichever are there. */
-export function fitTarget(content: Bounds | null, frame: Bounds | null): Bounds | null {
+/** The plan's own frame of the table (the document's `plan.viewport`), if it has one. */
+export function planFrame(model: EditorModel): Bounds | null {
+	const v = model.kept.rest.viewport as { center?: [number, number]; widthM?: number; depthM?: number } | undefined;
+	if (!v?.center || !v.widthM || !v.depthM) return null;
+	return { minX: v.center[0] - v.widthM / 2, maxX: v.center[0] + v.widthM / 2, minY: v.center[1] - v.depthM / 2, maxY: v.center[1] + v.depthM / 2 };
+}
+
+/**
+ * What "fit" shows: the elements (the background left out unless it is all there is) and the plan's
+ * own frame of the table, whichever are there.
+ */
+export function fitTarget(model: EditorModel): Bounds | null {
+	const elements = Object.values(model.elements);
+	const content = boundsOfElements(elements.filter((e) => e.kind !== 'background')) ?? boundsOfElements(elements);
+	const frame = planFrame(model);
 	if (!content || !frame) return content ?? frame;
 	return {
 		minX: Math.min(content.minX, frame.minX),
@@ -35,14 +48,10 @@ export class EditorView {
 	readonly #unitSystem: () => UnitSystem;
 	readonly #fitTarget: () => Bounds | null;
 
-	/** `fitTarget`: the plan's extent to fit (see `fitTarget`); `viewport`: a view to start from (no fitting). */
-	constructor(options: { unitSystem: () => UnitSystem; fitTarget: () => Bounds | null; viewport?: Viewport }) {
+	/** `fitTarget`: the plan's extent that "fit" shows (see `fitTarget`). */
+	constructor(options: { unitSystem: () => UnitSystem; fitTarget: () => Bounds | null }) {
 		this.#unitSystem = options.unitSystem;
 		this.#fitTarget = options.fitTarget;
-		if (options.viewport) {
-			this.#viewport = options.viewport;
-			this.#fitPending = false;
-		}
 	}
 
 	get viewport(): Viewport {
