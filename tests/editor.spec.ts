@@ -294,9 +294,10 @@ test('printing in the dim theme still puts a light plan on paper', async ({ page
 	const seeded = await seededId(page, AMMONITE);
 	await openPlan(page, seeded);
 	await page.evaluate(() => document.documentElement.classList.add('dark'));
-	await page.emulateMedia({ media: 'print' });
+	// The sheet's plan is taken from the stage a moment after the page is live (the stage is not drawn in print).
 	const img = page.getByTestId('setup-sheet').locator('img').first();
 	await expect(img).toHaveAttribute('src', /^data:image\/png/);
+	await page.emulateMedia({ media: 'print' });
 	/** Mean brightness (0–255) of the top-left corner of the sheet's plan image (bare table), read through a canvas. */
 	const brightness = () =>
 		img.evaluate(async (el: HTMLImageElement) => {
