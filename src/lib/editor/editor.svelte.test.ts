@@ -1,14 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { Editor } from './editor.svelte';
 import { SHORTCUTS } from './tools/shortcuts';
-import { quartzScene } from './test-fixtures';
-
-function editor() {
-	const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
-	e.setStageSize(800, 600);
-	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
-	return e;
-}
+import { quartzEditor as editor } from './test-fixtures';
 
 describe('Editor: keyboard', () => {
 	it('Delete removes the selection and mod+Z brings it back', () => {

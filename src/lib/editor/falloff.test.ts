@@ -1,40 +1,21 @@
 import { describe, expect, it } from 'vitest';
 import { computeExposure } from '$lib/light/scene';
 import { exposureSceneSchema, type ExposureScene } from '$lib/light/schema';
-import { falloffColour, falloffGrid, FALLOFF_PALETTE_LIGHT, prepareScene, totalXAt } from './falloff';
+import { lightField, totalXAt } from '$lib/light/light-field';
+import { mossOnTheSill } from '$lib/light/test-scenes';
+import { falloffColour, falloffGrid, FALLOFF_PALETTE_LIGHT } from './falloff';
 
-/** The moss sample on the sill: a fill flash in a dome, a lamp, a white card and a silver one, daylight, a flag. */
-const moss: ExposureScene = exposureSceneSchema.parse({
-	camera: { iso: 400, aperture: 11, shutter: 1 / 250, magnification: 1, pupilMagnification: 0.8, lossStops: 0.3 },
-	subject: { position: [0, 0, 0.02], normal: [0, -0.3, 1] },
-	ambient: { ev100: 10, kelvin: 6500 },
-	lights: [
-		{ id: 'fill', kind: 'flash', position: [-0.3, -0.2, 0.25], guideNumber: 28, power: 1 / 16, lossStops: 1.5, aim: [0, 0, 0.02], beamAngleDeg: 120 },
-		{ id: 'lamp', kind: 'continuous', position: [0.2, -0.4, 0.3], luxAt1m: 4000, aim: [0.05, 0, 0], beamAngleDeg: 40, kelvin: 3200 },
-		{ id: 'white', kind: 'reflector', position: [0.25, 0.05, 0.05], areaM2: 0.04, reflectance: 0.85, surface: 'diffuse', source: 'fill', normal: [-1, -0.2, 0.1] },
-		{ id: 'silver', kind: 'reflector', position: [-0.1, 0.3, 0.1], areaM2: 0.02, reflectance: 0.9, surface: 'specular', source: 'ambient' },
-		{ id: 'hot', kind: 'flash', position: [0.4, 0.4, 0.1], guideNumber: 20, power: 1 / 4 }
-	],
-	flags: [{ id: 'cutter', from: [0.3, 0.2], to: [0.3, 0.5] }]
-});
+const moss = mossOnTheSill;
 
 describe('falloff map', () => {
-	const prepared = prepareScene(moss);
-
-	it('at the subject it is exactly the engine’s total exposure', () => {
-		expect(totalXAt(prepared, [0, 0, 0.02])).toBeCloseTo(computeExposure(moss).total.x, 12);
-	});
-
-	it('anywhere else it is what the engine computes for a subject placed there', () => {
-		for (const p of [
-			[0.1, 0.1, 0.02],
-			[-0.2, 0.05, 0.02],
-			[0.35, 0.35, 0.02], // behind the flag from "hot"
-			[0.05, -0.25, 0.02]
-		] as const) {
-			const moved = exposureSceneSchema.parse({ ...moss, subject: { ...moss.subject, position: p } });
-			expect(totalXAt(prepared, p) / computeExposure(moved).total.x).toBeCloseTo(1, 12);
-		}
+	it('at the subject’s cell it reads 0 stops, the engine’s own total exposure there', () => {
+		// Bounds centred on the subject with an odd number of cells: the middle cell's centre is the subject.
+		const grid = falloffGrid(moss, { minX: -0.45, minY: -0.45, maxX: 0.45, maxY: 0.45 }, 81);
+		expect([grid.cols, grid.rows]).toEqual([9, 9]);
+		expect(grid.reference).toBe('subject');
+		expect(grid.stops[4 * 9 + 4]).toBe(0);
+		const x = totalXAt(lightField(moss), [0, 0, 0.02], moss.subject.normal);
+		expect(x).toBe(computeExposure(moss).total.x);
 	});
 
 	it('twice as far from a single bare flash reads −2 stops (inverse-square law)', () => {
@@ -61,9 +42,11 @@ describe('falloff map', () => {
 			lights: [{ id: 'f', kind: 'flash', position: [-0.5, 0, 0], guideNumber: 40, power: 1 }],
 			flags: [{ id: 'flag', from: [-0.25, 0.1], to: [-0.25, 0.3] }]
 		});
-		const p = prepareScene(shaded);
-		expect(totalXAt(p, [0, 0.3, 0])).toBe(0);
-		expect(totalXAt(p, [0, -0.3, 0])).toBeGreaterThan(0);
+		const field = lightField(shaded);
+		expect(totalXAt(field, [0, 0.3, 0])).toBe(0);
+		expect(totalXAt(field, [0, -0.3, 0])).toBeGreaterThan(0);
+		const grid = falloffGrid(shaded, { minX: -0.1, minY: 0.25, maxX: 0.1, maxY: 0.35 }, 16);
+		expect(Math.max(...grid.stops)).toBe(-Infinity);
 	});
 
 	it('fits the bounds with no more than the cells asked for', () => {
@@ -107,23 +90,5 @@ describe('falloff colours on the dim-studio scheme', () => {
 		expect(a(1)).toBeGreaterThan(a(0));
 		expect(a(0)).toBeGreaterThan(a(-2));
 		expect(a(-Infinity)).toBe(0);
-	});
-});
-
-describe('the map’s flag test', () => {
-	it('agrees with the engine’s segmentsIntersect, touching included', async () => {
-		const fc = await import('fast-check');
-		const { segmentsIntersect } = await import('$lib/light/geometry');
-		const { crossesAnyFlag } = await import('./falloff');
-		// Coordinates on a coarse lattice so that touching and collinear cases come up often.
-		const c = fc.integer({ min: -4, max: 4 }).map((n) => n / 4);
-		const seg = fc.tuple(c, c, c, c);
-		fc.assert(
-			fc.property(seg, seg, ([ax, ay, bx, by], [cx, cy, dx, dy]) => {
-				const engine = segmentsIntersect([ax, ay], [bx, by], [cx, cy], [dx, dy]);
-				return crossesAnyFlag(new Float64Array([cx, cy, dx, dy]), ax, ay, bx, by) === engine;
-			}),
-			{ numRuns: 5000 }
-		);
 	});
 });

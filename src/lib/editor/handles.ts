@@ -18,3 +18,9 @@ export function rotationHandlePosition(el: EditorElement, zoomPxPerM: number): V
 export function rotationHandleBase(el: EditorElement): Vec2 {
 	return toPlan(el, [footprint(el).uMaxM, 0]);
 }
+
+/** Is the plan point on an element's rotation handle, at this zoom (px per metre)? */
+export function onRotationHandleOf(el: EditorElement, planM: Vec2, zoom: number): boolean {
+	const h = rotationHandlePosition(el, zoom);
+	return Math.hypot(planM[0] - h[0], planM[1] - h[1]) <= ROTATION_HANDLE_HIT_PX / zoom;
+}

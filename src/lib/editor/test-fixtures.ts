@@ -1,5 +1,6 @@
 /** Small setups for the editor's tests (the quartz cluster of the Fernhill Geology Circle's catalogue). */
 import type { ExposureScene } from '$lib/light/schema';
+import { Editor } from './editor.svelte';
 import { modelFromScene } from './model/layout';
 import type { EditorModel } from './model/types';
 
@@ -14,4 +15,12 @@ export function quartzScene(): ExposureScene {
 
 export function quartzModel(): EditorModel {
 	return modelFromScene(quartzScene()).model;
+}
+
+/** An editor on the quartz setup at 1000 px/m, the plan's origin (the subject) at the stage's centre. */
+export function quartzEditor(): Editor {
+	const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
+	e.setStageSize(800, 600);
+	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
+	return e;
 }

@@ -6,7 +6,6 @@
 import type { z } from 'zod';
 import { ambientCalc } from './ambient';
 import { colourCalc } from './colour';
-import { exposureAnswerJson, type ExposureJson } from './exposure-json';
 import { findNonFinite } from './finite';
 import { flashCalc } from './flash';
 import { opticsCalc } from './optics';
@@ -16,22 +15,16 @@ import { ambientCalcSchema, colourCalcSchema, exposureSceneSchema, flashCalcSche
 export interface Calculation<S extends z.ZodType> {
 	schema: S;
 	compute: (input: z.output<S>) => unknown;
-	/** The answer written straight to JSON bytes, for a route whose answer is large (see exposure-json.ts). */
-	json?: (input: z.output<S>) => ExposureJson;
 }
 
-const define = <S extends z.ZodType>(
-	schema: S,
-	compute: (input: z.output<S>) => unknown,
-	json?: (input: z.output<S>) => ExposureJson
-): Calculation<S> => ({ schema, compute, json });
+const define = <S extends z.ZodType>(schema: S, compute: (input: z.output<S>) => unknown): Calculation<S> => ({ schema, compute });
 
 export const CALCULATIONS = {
 	'/api/v1/calc/flash': define(flashCalcSchema, flashCalc),
 	'/api/v1/calc/optics': define(opticsCalcSchema, opticsCalc),
 	'/api/v1/calc/ambient': define(ambientCalcSchema, ambientCalc),
 	'/api/v1/calc/colour': define(colourCalcSchema, colourCalc),
-	'/api/v1/exposure': define(exposureSceneSchema, computeExposure, exposureAnswerJson)
+	'/api/v1/exposure': define(exposureSceneSchema, computeExposure)
 } as const;
 
 export type CalculationPath = keyof typeof CALCULATIONS;
@@ -59,25 +52,6 @@ export function computeSafely<S extends z.ZodType>(calc: Calculation<S>, input: 
 	const bad = findNonFinite(data);
 	if (bad) return notFinite(bad);
 	return { ok: true, data };
-}
-
-export type CalculationJsonOutcome = { ok: true; bytes: Uint8Array<ArrayBuffer> } | Extract<CalculationOutcome, { ok: false }>;
-
-const encoder = new TextEncoder();
-
-/** `computeSafely` with the answer as UTF-8 JSON: what the JSON routes send. */
-export function computeJsonSafely<S extends z.ZodType>(calc: Calculation<S>, input: z.output<S>): CalculationJsonOutcome {
-	if (!calc.json) {
-		const outcome = computeSafely(calc, input);
-		return outcome.ok ? { ok: true, bytes: encoder.encode(JSON.stringify(outcome.data)) } : outcome;
-	}
-	let written: ExposureJson;
-	try {
-		written = calc.json(input);
-	} catch (e) {
-		return couldNotCompute(e);
-	}
-	return written.ok ? written : notFinite(written.nonFinite);
 }
 
 function couldNotCompute(e: unknown): Extract<CalculationOutcome, { ok: false }> {

@@ -4,6 +4,7 @@ import {
 	angleBetweenDeg,
 	beamExponent,
 	beamFactor,
+	beamFactorFromCosine,
 	distanceM,
 	facingCosine,
 	illuminanceLux,
@@ -64,6 +65,14 @@ describe('beam falloff (our model)', () => {
 		expect(beamFactor(0, 60)).toBe(1);
 		expect(beamFactor(30, 60)).toBeCloseTo(0.5, 12);
 		expect(beamFactor(45, 90)).toBeCloseTo(0.5, 12);
+	});
+
+	it('from the cosine and the exponent it is the same factor (our model)', () => {
+		for (const [deg, beam] of [[0, 60], [30, 60], [45, 90], [80, 40], [89.9, 120]]) {
+			expect(beamFactorFromCosine(Math.cos((deg * Math.PI) / 180), beamExponent(beam))).toBeCloseTo(beamFactor(deg, beam), 12);
+		}
+		expect(beamFactorFromCosine(-0.2, 1)).toBe(0);
+		expect(beamFactorFromCosine(1 + 1e-15, 3)).toBe(1);
 	});
 
 	it('a 180° beam is Lambertian (cos θ)', () => {

@@ -67,8 +67,12 @@ export function inverseSquareStops(fromM: number, toM: number): number {
  */
 export function beamFactor(offAxisDeg: number, beamAngleDeg: number): number {
 	if (offAxisDeg >= 90) return 0;
-	const cosTheta = Math.cos((offAxisDeg * Math.PI) / 180);
-	return cosTheta ** beamExponent(beamAngleDeg);
+	return beamFactorFromCosine(Math.cos((offAxisDeg * Math.PI) / 180), beamExponent(beamAngleDeg));
+}
+
+/** `beamFactor` from cos θ and the exponent n: cos^n θ, 0 from 90° on (for a light met at many points). */
+export function beamFactorFromCosine(cosOffAxis: number, exponent: number): number {
+	return cosOffAxis <= 0 ? 0 : Math.min(1, cosOffAxis) ** exponent;
 }
 
 export function beamExponent(beamAngleDeg: number): number {
@@ -77,30 +81,41 @@ export function beamExponent(beamAngleDeg: number): number {
 	return Math.log(0.5) / Math.log(cosHalf);
 }
 
+const SEGMENT_EPS = 1e-12;
+
+/** A point seen in plan: its x and y (a 3-D point's height is left out). */
+type InPlan = Vec2 | Vec3;
+
+/** Which side of a–b the point c is on (−1, 0, 1), within the tolerance. */
+function orientation(a: InPlan, b: InPlan, c: InPlan): number {
+	const v = (b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]);
+	return Math.abs(v) < SEGMENT_EPS ? 0 : Math.sign(v);
+}
+
+/** Is c, collinear with a–b, within the segment's box? */
+function withinBox(a: InPlan, b: InPlan, c: InPlan): boolean {
+	return (
+		Math.min(a[0], b[0]) - SEGMENT_EPS <= c[0] &&
+		c[0] <= Math.max(a[0], b[0]) + SEGMENT_EPS &&
+		Math.min(a[1], b[1]) - SEGMENT_EPS <= c[1] &&
+		c[1] <= Math.max(a[1], b[1]) + SEGMENT_EPS
+	);
+}
+
 /**
  * Do the closed plan segments p1–p2 and q1–q2 meet (touching counts)? Orientation test with a small
- * tolerance so a flag that just touches the path blocks it.
+ * tolerance so a flag that just touches the path blocks it. 3-D ends are taken in plan.
  */
-export function segmentsIntersect(p1: Vec2, p2: Vec2, q1: Vec2, q2: Vec2): boolean {
-	const eps = 1e-12;
-	const orient = (a: Vec2, b: Vec2, c: Vec2) => {
-		const v = (b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0]);
-		return Math.abs(v) < eps ? 0 : Math.sign(v);
-	};
-	const onSegment = (a: Vec2, b: Vec2, c: Vec2) =>
-		Math.min(a[0], b[0]) - eps <= c[0] &&
-		c[0] <= Math.max(a[0], b[0]) + eps &&
-		Math.min(a[1], b[1]) - eps <= c[1] &&
-		c[1] <= Math.max(a[1], b[1]) + eps;
-	const o1 = orient(p1, p2, q1);
-	const o2 = orient(p1, p2, q2);
-	const o3 = orient(q1, q2, p1);
-	const o4 = orient(q1, q2, p2);
+export function segmentsIntersect(p1: InPlan, p2: InPlan, q1: InPlan, q2: InPlan): boolean {
+	const o1 = orientation(p1, p2, q1);
+	const o2 = orientation(p1, p2, q2);
+	const o3 = orientation(q1, q2, p1);
+	const o4 = orientation(q1, q2, p2);
 	if (o1 !== o2 && o3 !== o4) return true;
-	if (o1 === 0 && onSegment(p1, p2, q1)) return true;
-	if (o2 === 0 && onSegment(p1, p2, q2)) return true;
-	if (o3 === 0 && onSegment(q1, q2, p1)) return true;
-	if (o4 === 0 && onSegment(q1, q2, p2)) return true;
+	if (o1 === 0 && withinBox(p1, p2, q1)) return true;
+	if (o2 === 0 && withinBox(p1, p2, q2)) return true;
+	if (o3 === 0 && withinBox(q1, q2, p1)) return true;
+	if (o4 === 0 && withinBox(q1, q2, p2)) return true;
 	return false;
 }
 

@@ -225,7 +225,7 @@ export const sceneCameraSchema = z.object({
 });
 
 /** The scene's fields, each checked on its own (the rules across fields follow). */
-export const exposureSceneShape = z.object({
+const exposureSceneShape = z.object({
 	camera: sceneCameraSchema,
 	subject: z.object({
 		position: vec3Schema,
@@ -240,7 +240,7 @@ export const exposureSceneShape = z.object({
 });
 
 /** A rule of the scene that spans fields (ids, sources, distances). */
-export interface SceneRuleIssue {
+interface SceneRuleIssue {
 	path: (string | number)[];
 	message: string;
 }
@@ -248,10 +248,9 @@ export interface SceneRuleIssue {
 /**
  * The scene's rules that span fields, on a scene whose fields each passed: ids unique and not
  * "ambient", every reflector's source an emitter (or the ambient, when there is one), nothing at the
- * subject or at its own source, flags at least 1 mm long. Exported so a caller that checked the fields
- * another way (the API's fast path, `src/lib/server/fast-accept.ts`) applies the very same rules.
+ * subject or at its own source, flags at least 1 mm long.
  */
-export function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): SceneRuleIssue[] {
+function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): SceneRuleIssue[] {
 	const issues: SceneRuleIssue[] = [];
 	const { camera } = scene;
 	if (camera.minAperture !== undefined && camera.maxAperture !== undefined && camera.minAperture > camera.maxAperture) {

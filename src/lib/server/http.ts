@@ -51,14 +51,11 @@ type ParseResult<T> = { ok: true; data: T } | { ok: false; response: Response };
  * A body that is not `application/json` gets 415, oversized bodies 413; unreadable JSON, text that
  * cannot be stored (NUL, a lone surrogate), nesting past `MAX_BODY_DEPTH` and schema failures get 400
  * naming the field; nothing here can throw a 500.
- * `fast` (see `fast-accept.ts`) may accept a valid body without zod; anything it does not accept is
- * validated by `schema`, which names the fields at fault.
  */
 export async function parseJsonBody<S extends z.ZodType>(
 	request: Request,
 	schema: S,
-	maxBytes = DEFAULT_MAX_BODY_BYTES,
-	fast?: (raw: unknown) => raw is z.output<S>
+	maxBytes = DEFAULT_MAX_BODY_BYTES
 ): Promise<ParseResult<z.output<S>>> {
 	const type = bodyMediaType(request);
 	if (type !== null && type !== 'application/json') return { ok: false, response: notJson() };
@@ -88,7 +85,6 @@ export async function parseJsonBody<S extends z.ZodType>(
 	// One rule for every text field, and a bound on nesting, before any schema or the database sees it.
 	const problem = findJsonProblem(raw, { maxDepth: MAX_BODY_DEPTH });
 	if (problem) return { ok: false, response: invalidInput([problem]) };
-	if (fast?.(raw)) return { ok: true, data: raw };
 	const parsed = schema.safeParse(raw);
 	if (!parsed.success) return { ok: false, response: zodErrorResponse(parsed.error) };
 	return { ok: true, data: parsed.data };

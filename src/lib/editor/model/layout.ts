@@ -15,13 +15,14 @@ import type {
 	ContinuousElement,
 	DiffuserElement,
 	EditorElement,
+	ElementKind,
 	FlagElement,
 	FlashElement,
 	Modifier,
 	ReflectorElement,
 	SubjectElement
 } from './schema';
-import { EMPTY_KEPT_PLAN, type EditorModel, type Vec2, type Vec3 } from './types';
+import { EMPTY_KEPT_PLAN, subjectOf, type EditorModel, type Vec2, type Vec3 } from './types';
 
 /** Focal length assumed for a camera laid out from a scene alone (a common macro lens length). */
 export const LAYOUT_FOCAL_LENGTH_MM = 100;
@@ -269,4 +270,19 @@ function reflectorFromScene(
 
 function round6(n: number): number {
 	return Math.round(n * 1e6) / 1e6;
+}
+
+/**
+ * Where a new element goes when the user does not say: around the subject for everything but a
+ * subject, each new one a little further round so they do not stack, on the grid; else at `centreM`
+ * (the middle of the view).
+ */
+export function placeForNew(model: EditorModel, kind: ElementKind, gridStepM: number, centreM: Vec2): { xM: number; yM: number } {
+	const subject = subjectOf(model);
+	if (!subject || kind === 'subject') return { xM: centreM[0], yM: centreM[1] };
+	const count = Object.keys(model.elements).length;
+	const angle = (-135 + 50 * count) * (Math.PI / 180);
+	const r = kind === 'background' ? 0 : kind === 'camera' ? 0.3 : 0.25;
+	const round = (v: number) => Math.round(v / gridStepM) * gridStepM;
+	return { xM: round(subject.xM + r * Math.cos(angle)), yM: round(subject.yM + r * Math.sin(angle)) };
 }

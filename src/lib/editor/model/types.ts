@@ -45,3 +45,11 @@ export function cameraOf(model: EditorModel) {
 	for (const el of Object.values(model.elements)) if (el.kind === 'camera') return el;
 	return undefined;
 }
+
+/** The id after `current` in `order` (before it, `backwards`), wrapping round; the first (last) when none is current. */
+export function nextInOrder(order: readonly string[], current: string | undefined, backwards = false): string | undefined {
+	if (!order.length) return undefined;
+	const at = current ? order.indexOf(current) : -1;
+	if (at < 0) return backwards ? order.at(-1) : order[0];
+	return order[(at + (backwards ? -1 : 1) + order.length) % order.length];
+}

@@ -1,16 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { Editor } from '../editor.svelte';
 import { rotationHandlePosition } from '../handles';
-import { quartzScene } from '../test-fixtures';
+import { quartzEditor as editor } from '../test-fixtures';
 import { click, drag, input } from './test-pointer';
 
-/** The quartz setup at 1000 px/m with the plan's origin (the subject) at the stage's centre. */
-function editor() {
-	const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
-	e.setStageSize(800, 600);
-	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
-	return e;
-}
 const KEY: [number, number] = [-0.52, 0]; // on the flash head, just behind its face
 const EMPTY: [number, number] = [-0.25, -0.2];
 
