@@ -23,6 +23,16 @@ export interface Conflict {
 	latestTags: string[];
 }
 
+/** What a setup page's save action answers, for the form that sent it (`action` names the form). */
+export interface SaveFormState {
+	action?: string;
+	/** The revision the save made. */
+	saved?: number;
+	values?: Record<string, string>;
+	errors?: Record<string, string>;
+	conflict?: Conflict;
+}
+
 export type SaveOutcome =
 	| { kind: 'saved'; revisionNumber: number }
 	| { kind: 'conflict'; conflict: Conflict }
