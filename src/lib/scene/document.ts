@@ -15,7 +15,7 @@
  * Older `schemaVersion`s are migrated on read (see migrations.ts).
  */
 import { z } from 'zod';
-import { exposureSceneSchema, vec2Schema, vec3Schema } from '$lib/light/schema';
+import { exposureSceneSchema, range as finite, vec2Schema, vec3Schema } from '$lib/light/schema';
 import { gearKindSchema, gearSpecSchemas } from './gear';
 
 export const CURRENT_SCHEMA_VERSION = 1;
@@ -40,12 +40,6 @@ export const PLAN_ELEMENT_KINDS = [
 	'table',
 	'label'
 ] as const;
-
-const finite = (min: number, max: number, unit = '') =>
-	z
-		.number({ error: 'must be a number' })
-		.min(min, `must be at least ${min}${unit ? ' ' + unit : ''}`)
-		.max(max, `must be at most ${max}${unit ? ' ' + unit : ''}`);
 
 const sizeM = finite(0, 100, 'm');
 
