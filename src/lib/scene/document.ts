@@ -17,8 +17,9 @@
 import { z } from 'zod';
 import { exposureSceneSchema, range as finite, vec2Schema, vec3Schema } from '$lib/light/schema';
 import { gearKindSchema, gearSpecSchemas } from './gear';
+import { CURRENT_SCHEMA_VERSION } from './version';
 
-export const CURRENT_SCHEMA_VERSION = 1;
+export { CURRENT_SCHEMA_VERSION };
 
 export const MAX_NOTES_CHARS = 20_000;
 export const MAX_PLAN_ELEMENTS = 500;

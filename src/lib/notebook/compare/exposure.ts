@@ -2,7 +2,7 @@
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import { formatFNumber, formatStops, roundSig } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
-import type { ComparableDocument } from './elements';
+import type { ComparableDocument } from './placement';
 import type { ExposureChange, LightExposureEntry } from './index';
 
 function safeExposure(scene: ExposureScene): ExposureResult | string {

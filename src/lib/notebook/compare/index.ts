@@ -2,19 +2,22 @@
  * The comparison of two revisions of a setup, in words: elements added, removed and moved (and by how
  * far), what changed on a light, the camera and ambient settings, the notes, and the change in exposure
  * in stops, computed with the light engine from both documents. One file a topic: `elements.ts` (what
- * stands where), `lights.ts`, `settings.ts`, `notes.ts`, `exposure.ts`; this file puts them together.
+ * stands where), `placement.ts` (what moved), `lights.ts`, `settings.ts`, `notes.ts`, `exposure.ts`;
+ * this file puts them together.
  *
  * Pure: plain documents in, plain sentences and numbers out. The history pages render it; the setup
  * page uses it to show what changed under a stale save.
  */
-import { elementName, placedElements, placementChanges, drawingChanges, type ComparableDocument } from './elements';
+import { elementName } from './elements';
+import { drawingChanges, placedElements, placementChanges, type ComparableDocument } from './placement';
 import { exposureChange } from './exposure';
 import { lightPropertyChanges } from './lights';
 import { notesChange, type LineDiffOp } from './notes';
 import { settingChanges } from './settings';
 import type { UnitSystem } from '$lib/light/format';
 
-export { elementName, kindWord, placedElements, planElementPosition, type ComparableDocument } from './elements';
+export { elementName, kindWord, planElementPosition } from './elements';
+export { placedElements, type ComparableDocument } from './placement';
 export { powerLabel } from './lights';
 export { diffLines, type LineDiffOp } from './notes';
 
