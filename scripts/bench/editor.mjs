@@ -67,13 +67,16 @@ const kib = (bytes) => Math.round((bytes / 1024) * 10) / 10;
  */
 async function firstLoadScripts(baseUrl, cookie, path) {
 	const pageUrl = `${baseUrl}${path}`;
-	const html = await (await fetch(pageUrl, { headers: { cookie } })).text();
+	const res = await fetch(pageUrl, { headers: { cookie } });
+	const html = await res.text();
 	const urls = new Set();
+	// SvelteKit names them twice: in a `link` header and as <link rel="modulepreload"> tags.
+	for (const [, href] of (res.headers.get('link') ?? '').matchAll(/<([^>]+)>;[^,]*rel="modulepreload"/g)) urls.add(new URL(href, pageUrl).href);
 	for (const [tag] of html.matchAll(/<link\b[^>]*>/g)) {
 		const href = tag.match(/\bhref="([^"]+)"/)?.[1];
-		if (/\brel="modulepreload"/.test(tag) && href) urls.add(new URL(href, pageUrl).href);
+		if (/\brel="?modulepreload/.test(tag) && href) urls.add(new URL(href, pageUrl).href);
 	}
-	if (urls.size === 0) throw new Error(`${path} names no scripts to preload`);
+	if (urls.size === 0) throw new Error(`${path} (HTTP ${res.status}) names no scripts to preload`);
 	const sizes = new Map();
 	for (const url of urls) sizes.set(url, gzipSync(Buffer.from(await (await fetch(url)).arrayBuffer())).length);
 	return sizes;
