@@ -128,7 +128,9 @@ export async function startMail(profile) {
 
 export function build() {
 	log('building (vite build)…');
-	run('npx', ['vite', 'build', '--logLevel', 'warn']);
+	// The seed's Vite server sets NODE_ENV=development in this process; inherited, the build would ship
+	// Svelte's development runtime.
+	run('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
 }
 
 export function appEnv(profile, { url, secrets, mail }) {
