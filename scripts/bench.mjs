@@ -6,26 +6,15 @@ import { pathToFileURL } from 'node:url';
 import { dataDir, ensurePackages, log, root } from './lib/bootstrap.mjs';
 
 ensurePackages();
-const { appEnv, build, prepareDatabase, profiles, seed, serve, startMail } = await import('./lib/stack.mjs');
+const { profiles, startStack, stopper } = await import('./lib/stack.mjs');
 
 const profile = profiles.bench;
 const only = process.argv.slice(2);
-const cleanups = [];
+const stop = stopper();
+stop.exitOnSignals(130);
 let exitCode = 0;
 try {
-	const db = await prepareDatabase(profile, { fresh: true });
-	if (db.stopCluster) cleanups.push(db.stopCluster);
-	await seed(db.url);
-	const mail = await startMail(profile);
-	cleanups.push(() => mail.stop());
-	if (!process.env.SQUARELAW_BENCH_NO_BUILD) build();
-	const env = appEnv(profile, { ...db, mail });
-	const { child, origin } = await serve(profile, env, { quiet: true });
-	cleanups.push(() => new Promise((resolve) => {
-		child.once('exit', resolve);
-		child.kill('SIGTERM');
-		setTimeout(resolve, 5000).unref();
-	}));
+	const { db, env, origin } = await startStack(profile, stop, { fresh: true, quiet: true, build: !process.env.SQUARELAW_BENCH_NO_BUILD });
 	const benchDir = path.join(root, 'scripts', 'bench');
 	const files = fs.readdirSync(benchDir).filter((f) => f.endsWith('.mjs')).sort();
 	const report = {};
@@ -51,6 +40,6 @@ try {
 	exitCode = 1;
 	process.stderr.write(`[squarelaw] ${e instanceof Error ? e.stack : String(e)}\n`);
 } finally {
-	for (const fn of cleanups.reverse()) await Promise.resolve().then(fn).catch(() => {});
+	await stop.stopAll();
 	process.exit(exitCode);
 }

@@ -3,47 +3,17 @@
 import { ensurePackages, log } from './lib/bootstrap.mjs';
 
 ensurePackages();
-const { appEnv, build, prepareDatabase, profiles, seed, serve, startMail } = await import('./lib/stack.mjs');
+const { profiles, startStack, stopper } = await import('./lib/stack.mjs');
 
-const profile = profiles.dev;
-const cleanups = [];
-let stopping = false;
-async function stopAll(code = 0) {
-	if (stopping) return;
-	stopping = true;
-	for (const cleanup of cleanups.reverse()) {
-		try {
-			await cleanup();
-		} catch {
-			/* keep stopping the rest */
-		}
-	}
-	process.exit(code);
-}
-process.on('SIGINT', () => void stopAll(0));
-process.on('SIGTERM', () => void stopAll(0));
+const stop = stopper();
+stop.exitOnSignals(0);
 
 try {
-	const db = await prepareDatabase(profile);
-	if (db.stopCluster) cleanups.push(db.stopCluster);
-	const seeded = await seed(db.url);
-	const mail = process.env.EMAIL_SERVER ? null : await startMail(profile);
-	if (mail) cleanups.push(() => mail.stop());
-	build();
-	const env = appEnv(profile, { ...db, mail });
-	const { child, origin } = await serve(profile, env);
-	cleanups.push(
-		() =>
-			new Promise((resolve) => {
-				child.once('exit', resolve);
-				child.kill('SIGTERM');
-				setTimeout(resolve, 5000).unref();
-			})
-	);
+	const { seeded, child, origin } = await startStack(profiles.dev, stop, { mail: !process.env.EMAIL_SERVER });
 	child.on('exit', (code) => {
-		if (!stopping) {
+		if (!stop.stopping) {
 			log(`the app stopped (exit ${code})`);
-			void stopAll(code ?? 1);
+			void stop.stopAll().then(() => process.exit(code ?? 1));
 		}
 	});
 	const users = seeded?.users ?? [];
@@ -56,5 +26,6 @@ try {
 	log('Press Ctrl-C to stop.');
 } catch (e) {
 	process.stderr.write(`\n[squarelaw] ${e instanceof Error ? e.message : String(e)}\n`);
-	await stopAll(1);
+	await stop.stopAll();
+	process.exit(1);
 }

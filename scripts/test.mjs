@@ -12,7 +12,7 @@ import { dataDir, ensureChromium, ensurePackages, log, root } from './lib/bootst
 
 ensurePackages();
 const chromium = ensureChromium();
-const { appEnv, build, prepareDatabase, profiles, seed, serve, startMail } = await import('./lib/stack.mjs');
+const { profiles, startStack, stopper } = await import('./lib/stack.mjs');
 
 const profile = profiles.test;
 const args = process.argv.slice(2);
@@ -23,20 +23,10 @@ const playwrightFilters = named('playwright');
 const runCheck = !partial || !args.includes('--no-check');
 const runVitest = !partial || (vitestFilters.length > 0 && !vitestFilters.includes('none'));
 const runPlaywright = !partial || (playwrightFilters.length > 0 && !playwrightFilters.includes('none'));
-const cleanups = [];
 const results = [];
 let exitCode = 0;
-
-async function cleanup() {
-	for (const fn of cleanups.reverse()) {
-		try {
-			await fn();
-		} catch {
-			/* keep going */
-		}
-	}
-}
-process.on('SIGINT', () => void cleanup().then(() => process.exit(130)));
+const stop = stopper();
+stop.exitOnSignals(130);
 
 /**
  * Runs one test runner. Asynchronous on purpose: the mail fake lives in this process and must keep
@@ -65,26 +55,10 @@ function readJson(file) {
 }
 
 try {
-	const db = await prepareDatabase(profile, { fresh: true });
-	if (db.stopCluster) cleanups.push(db.stopCluster);
-	await seed(db.url);
-	const mail = await startMail(profile);
-	cleanups.push(() => mail.stop());
-	build();
-	const env = appEnv(profile, { ...db, mail });
-	const logFile = path.join(dataDir, 'test-app.log');
-	const { child, origin } = await serve(profile, env, { quiet: true });
-	const out = fs.createWriteStream(logFile);
+	const { env, child, origin } = await startStack(profile, stop, { fresh: true, quiet: true });
+	const out = fs.createWriteStream(path.join(dataDir, 'test-app.log'));
 	child.stdout.pipe(out);
 	child.stderr.pipe(out);
-	cleanups.push(
-		() =>
-			new Promise((resolve) => {
-				child.once('exit', resolve);
-				child.kill('SIGTERM');
-				setTimeout(resolve, 5000).unref();
-			})
-	);
 	log(`test app at ${origin} (its log: .data/test-app.log)`);
 
 	const testEnv = {
@@ -153,6 +127,6 @@ try {
 	process.stderr.write(`\n[squarelaw] ${e instanceof Error ? e.stack : String(e)}\n`);
 	exitCode = 1;
 } finally {
-	await cleanup();
+	await stop.stopAll();
 	process.exit(exitCode);
 }

@@ -131,7 +131,9 @@ export async function startMail(profile) {
 
 export function build() {
 	log('building (vite build)…');
-	run('npx', ['vite', 'build', '--logLevel', 'warn']);
+	// The seed's Vite server sets NODE_ENV=development in this process; inherited, the build would ship
+	// Svelte's development runtime.
+	run('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
 }
 
 export function appEnv(profile, { url, secrets, mail }) {
@@ -159,4 +161,56 @@ export async function serve(profile, env, { quiet = false } = {}) {
 	const origin = `http://${profile.host}:${profile.port}`;
 	await waitForHttp(`${origin}/api/v1/health`);
 	return { child, origin };
+}
+
+/** Stops a child process: SIGTERM, and stop waiting after 5 s. */
+export function stopChild(child) {
+	return new Promise((resolve) => {
+		child.once('exit', resolve);
+		child.kill('SIGTERM');
+		setTimeout(resolve, 5000).unref();
+	});
+}
+
+/**
+ * What a script started (the database cluster, the mail fake, the app), stopped newest first when the
+ * script ends, fails or is interrupted. A step that fails does not keep the others running.
+ */
+export function stopper() {
+	const steps = [];
+	let stopping = false;
+	return {
+		get stopping() {
+			return stopping;
+		},
+		add(step) {
+			steps.push(step);
+		},
+		async stopAll() {
+			if (stopping) return;
+			stopping = true;
+			for (const step of steps.reverse()) await Promise.resolve().then(step).catch(() => {});
+		},
+		/** Ctrl-C or SIGTERM: stop everything, then exit with `code`. */
+		exitOnSignals(code) {
+			for (const signal of ['SIGINT', 'SIGTERM']) process.on(signal, () => void this.stopAll().then(() => process.exit(code)));
+		}
+	};
+}
+
+/**
+ * The whole set-up of `npm start`, `npm test` and `npm run bench`: database (migrated), seed, mail fake,
+ * build and the app, each handed to `stop` as it starts.
+ */
+export async function startStack(profile, stop, { fresh = false, mail = true, build: buildFirst = true, quiet = false } = {}) {
+	const db = await prepareDatabase(profile, { fresh });
+	if (db.stopCluster) stop.add(db.stopCluster);
+	const seeded = await seed(db.url);
+	const mailFake = mail ? await startMail(profile) : null;
+	if (mailFake) stop.add(() => mailFake.stop());
+	if (buildFirst) build();
+	const env = appEnv(profile, { ...db, mail: mailFake });
+	const { child, origin } = await serve(profile, env, { quiet });
+	stop.add(() => stopChild(child));
+	return { db, seeded, env, child, origin };
 }

@@ -29,6 +29,7 @@ import type { SnapLine } from './tools/snap';
 import type { PlanKeyInput, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
 import { EditorView, fitTarget, planFrame } from './view.svelte';
 import type { Viewport } from './viewport';
+import { readLengthM, UnitParseError } from '$lib/light/number-text';
 
 /** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
 export interface DocumentIn {
@@ -351,13 +352,11 @@ export class Editor implements ToolHost {
 	}
 	/**
 	 * A typed length (`30 cm`, `1 ft + 2 in`, `12`): a bare number is cm in metric, inches in imperial.
-	 * The parser (mathjs, through the engine's units module) is loaded on first use, so the plan does
-	 * not wait for it.
+	 * The unit parser (mathjs) is loaded only for text that is not a plain number.
 	 */
 	async parseLength(text: string): Promise<LengthParse> {
-		const { parseLengthM, UnitParseError } = await import('$lib/light/units');
 		try {
-			return { ok: true, valueM: parseLengthM(text, this.unitSystem === 'imperial' ? 'in' : 'cm') };
+			return { ok: true, valueM: await readLengthM(text, this.unitSystem === 'imperial' ? 'in' : 'cm') };
 		} catch (e) {
 			if (e instanceof UnitParseError) return { ok: false, message: e.message };
 			throw e;

@@ -15,7 +15,8 @@ export const MAX_LIGHTS = 100;
 export const MAX_FLAGS = 100;
 export const MAX_COLOUR_SOURCES = 100;
 
-function range(min: number, max: number, unit = '') {
+/** A number from `min` to `max`, its messages naming the unit: the one range helper of every schema. */
+export function range(min: number, max: number, unit = '') {
 	const u = unit ? ` ${unit}` : '';
 	return z
 		.number({ error: 'must be a number' })

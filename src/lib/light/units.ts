@@ -1,6 +1,8 @@
 /**
  * What people type into a field (`30 cm`, `1 ft`, `12 in`, `1/125`, `0.3 m`) parsed with mathjs into SI,
- * and SI numbers formatted back in metric or imperial.
+ * and SI numbers formatted back in metric or imperial. Plain numbers are read without mathjs
+ * (number-text.ts); browser code that reads a field calls `readLengthM` there, which loads this module
+ * only for text that is not a plain number.
  *
  * The parser is a small mathjs instance that knows units and the four operations only. Every node of
  * the parsed expression is checked against a short allow-list before it is evaluated, so a field can
@@ -20,8 +22,10 @@ import {
 	type Unit
 } from 'mathjs';
 import { METRES_PER_FOOT } from './constants';
+import { normaliseNumberText, plainNumber, UnitParseError } from './number-text';
 
 export { METRES_PER_FOOT, METRES_PER_INCH } from './constants';
+export { UnitParseError } from './number-text';
 export * from './format';
 
 const math = create({
@@ -34,13 +38,6 @@ const math = create({
 	unaryMinusDependencies,
 	unaryPlusDependencies
 });
-
-export class UnitParseError extends Error {
-	constructor(message: string) {
-		super(message);
-		this.name = 'UnitParseError';
-	}
-}
 
 const MAX_INPUT_LENGTH = 64;
 const ALLOWED_OPERATORS = new Set(['add', 'subtract', 'multiply', 'divide', 'unaryMinus', 'unaryPlus']);
@@ -73,8 +70,10 @@ function evaluateText(text: string): Parsed {
 	const trimmed = text.trim().replace(/×/g, '*').replace(/−/g, '-').replace(/,(?=\d{3}\b)/g, '');
 	if (!trimmed) throw new UnitParseError('is empty');
 	if (trimmed.length > MAX_INPUT_LENGTH) throw new UnitParseError(`is longer than ${MAX_INPUT_LENGTH} characters`);
+	const plain = plainNumber(text);
+	if (plain !== null) return { kind: 'number', value: plain };
 	// A decimal comma ("0,3 m") is common outside the English-speaking world.
-	const normalised = trimmed.replace(/(\d),(\d)/g, '$1.$2');
+	const normalised = normaliseNumberText(text);
 	let node: MathNode;
 	try {
 		node = math.parse(normalised);

@@ -3,6 +3,8 @@
  * `event.fetch` (in-process, with the caller's session cookie), the browser passes its own `fetch`.
  * The pages depend only on the API contract (/api/v1/openapi.json), never on the server's internal functions.
  */
+import type { SetupDocument } from '$lib/scene/document';
+
 export type Fetch = typeof fetch;
 
 export interface ApiIssue {
@@ -77,27 +79,10 @@ export function issuesByField(issues: ApiIssue[], fields?: readonly string[], fa
 	return out;
 }
 
-/** The list of the setups API (`GET /api/v1/setups`). */
-export interface SetupListItem {
-	id: string;
-	title: string;
-	subject: string;
-	tags: string[];
-	studioId: string;
-	updatedAt: string;
-	revisionNumber: number;
-	derivedFrom: { setupId: string; revisionNumber: number } | null;
-	[extra: string]: unknown;
-}
+/** The list of the setups API (`GET /api/v1/setups`): its items are typed once, by the service that makes them. */
+export type { SetupListItem, SetupListPage as SetupList } from '$lib/server/setups';
 
-export interface SetupList {
-	items: SetupListItem[];
-	total: number;
-	page: number;
-	pageSize: number;
-}
-
-export interface SetupRecord<D = SetupDocumentShape> {
+export interface SetupRecord<D = SetupDocument> {
 	id: string;
 	title: string;
 	subject: string;
@@ -118,21 +103,11 @@ export interface RevisionSummary {
 	[extra: string]: unknown;
 }
 
-export interface RevisionRecord<D = SetupDocumentShape> {
+export interface RevisionRecord<D = SetupDocument> {
 	number: number;
 	document: D;
 	authorName?: string | null;
 	createdAt?: string;
 	message?: string | null;
-	[extra: string]: unknown;
-}
-
-/** A setup document as the pages read it; the schema itself lives in `$lib/scene`. */
-export interface SetupDocumentShape {
-	schemaVersion: number;
-	scene: import('$lib/light/schema').ExposureScene;
-	plan: { elements?: Record<string, import('./compare').PlanElementLike | undefined>; [k: string]: unknown };
-	notes: string;
-	gear?: { id: string; kind: string; name: string; spec: Record<string, unknown>; copiedAt?: string }[];
 	[extra: string]: unknown;
 }

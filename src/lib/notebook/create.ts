@@ -2,7 +2,8 @@
  * Making a setup from the new-setup form (studio, title, subject): the same checks for the notebook's
  * small form and the editor's new-setup page, then POST /api/v1/setups. Field errors come back by name.
  */
-import { callApi, issuesByField, type Fetch, type SetupDocumentShape } from './api';
+import type { SetupDocument } from '$lib/scene/document';
+import { callApi, issuesByField, type Fetch } from './api';
 
 export type NewSetupValues = {
 	studioId: string;
@@ -22,7 +23,7 @@ export function readNewSetupForm(form: FormData): NewSetupValues {
 	};
 }
 
-export async function createSetupFrom(fetchFn: Fetch, values: NewSetupValues, document: SetupDocumentShape, thumbnailPng?: string | null): Promise<CreateOutcome> {
+export async function createSetupFrom(fetchFn: Fetch, values: NewSetupValues, document: SetupDocument, thumbnailPng?: string | null): Promise<CreateOutcome> {
 	if (!values.title.trim()) return { ok: false, status: 400, errors: { title: 'Give the setup a title.' } };
 	const r = await callApi<{ id: string }>(fetchFn, '/api/v1/setups', {
 		method: 'POST',

@@ -2,8 +2,9 @@
  * Helpers for the notebook pages' `load` functions and actions: an API answer that is a refusal
  * becomes the page's own refusal (401 → sign in, 403, 404), so a page never reveals more than the API.
  */
+import type { SetupDocument } from '$lib/scene/document';
 import { error, redirect } from '@sveltejs/kit';
-import { callApi, type Fetch, type SetupDocumentShape } from './api';
+import { callApi, type Fetch } from './api';
 
 /** GET an API path or end the page with the API's status and message. */
 export async function getOrFail<T>(fetchFn: Fetch, path: string, url: URL): Promise<T> {
@@ -22,7 +23,7 @@ export function requireSignedIn(user: App.Locals['user'], url: URL) {
  * The smallest valid setup document: one subject at the origin, a camera set for close-up work (ISO 100,
  * f/11, 1/125 s, half life-size: a common macro starting point), no lights, an empty plan.
  */
-export function blankDocument(): SetupDocumentShape {
+export function blankDocument(): SetupDocument {
 	return {
 		schemaVersion: 1,
 		scene: {
@@ -31,12 +32,13 @@ export function blankDocument(): SetupDocumentShape {
 			lights: []
 		},
 		plan: {},
-		notes: ''
+		notes: '',
+		gear: []
 	};
 }
 
 /** Labels of every element by id, from the plan (ids where the plan has no label). */
-export function elementLabels(doc: SetupDocumentShape): Record<string, string> {
+export function elementLabels(doc: SetupDocument): Record<string, string> {
 	const out: Record<string, string> = {};
 	for (const light of doc.scene.lights) out[light.id] = light.id;
 	for (const flag of doc.scene.flags ?? []) out[flag.id] = flag.id;

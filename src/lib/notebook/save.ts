@@ -3,8 +3,9 @@
  * change to its document, PUT it with that `baseRevision`. When someone else saved first (409), say
  * what changed since, so the page can show it beside what the user typed and let them save on top.
  */
-import { callApi, type ApiIssue, type Fetch, type RevisionRecord, type RevisionSummary, type SetupDocumentShape, type SetupRecord } from './api';
-import { compareDocuments, comparisonSentences, diffLines, type LineDiffOp } from './compare';
+import type { SetupDocument } from '$lib/scene/document';
+import { callApi, type ApiIssue, type Fetch, type RevisionRecord, type RevisionSummary, type SetupRecord } from './api';
+import { compareDocuments, comparisonSentences, diffLines, type LineDiffOp } from './compare/index';
 import type { UnitSystem } from '$lib/light/format';
 
 export interface Conflict {
@@ -22,6 +23,16 @@ export interface Conflict {
 	latestTags: string[];
 }
 
+/** What a setup page's save action answers, for the form that sent it (`action` names the form). */
+export interface SaveFormState {
+	action?: string;
+	/** The revision the save made. */
+	saved?: number;
+	values?: Record<string, string>;
+	errors?: Record<string, string>;
+	conflict?: Conflict;
+}
+
 export type SaveOutcome =
 	| { kind: 'saved'; revisionNumber: number }
 	| { kind: 'conflict'; conflict: Conflict }
@@ -31,7 +42,7 @@ export interface SaveRequest {
 	setupId: string;
 	baseRevision: number;
 	/** Returns the new document from the base one (a copy: change it freely). */
-	apply: (document: SetupDocumentShape) => SetupDocumentShape;
+	apply: (document: SetupDocument) => SetupDocument;
 	title?: string;
 	subject?: string;
 	tags?: string[];
@@ -71,7 +82,7 @@ export async function conflictSince(
 async function describeConflict(
 	fetchFn: Fetch,
 	req: Pick<SaveRequest, 'setupId' | 'baseRevision' | 'unitSystem'>,
-	baseDoc: SetupDocumentShape,
+	baseDoc: SetupDocument,
 	latestHint: number
 ): Promise<Conflict> {
 	const [latest, revisions] = await Promise.all([

@@ -15,11 +15,12 @@
  * Older `schemaVersion`s are migrated on read (see migrations.ts).
  */
 import { z } from 'zod';
-import { exposureSceneSchema, vec2Schema, vec3Schema } from '$lib/light/schema';
+import { exposureSceneSchema, range as finite, vec2Schema, vec3Schema } from '$lib/light/schema';
 import { gearKindSchema, gearSpecSchemas } from './gear';
 import { findJsonProblem, MAX_DOCUMENT_DEPTH, MAX_DOCUMENT_ENTRIES } from '$lib/json-limits';
+import { CURRENT_SCHEMA_VERSION } from './version';
 
-export const CURRENT_SCHEMA_VERSION = 1;
+export { CURRENT_SCHEMA_VERSION };
 
 export const MAX_NOTES_CHARS = 20_000;
 export const MAX_PLAN_ELEMENTS = 500;
@@ -41,12 +42,6 @@ export const PLAN_ELEMENT_KINDS = [
 	'table',
 	'label'
 ] as const;
-
-const finite = (min: number, max: number, unit = '') =>
-	z
-		.number({ error: 'must be a number' })
-		.min(min, `must be at least ${min}${unit ? ' ' + unit : ''}`)
-		.max(max, `must be at most ${max}${unit ? ' ' + unit : ''}`);
 
 const sizeM = finite(0, 100, 'm');
 

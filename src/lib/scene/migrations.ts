@@ -3,7 +3,7 @@
  * `schemaVersion` is brought up to `CURRENT_SCHEMA_VERSION` step by step, then checked with
  * `setupDocumentSchema`. Stored revisions are never rewritten; the migration runs each time one is read.
  *
- * To change the document: bump CURRENT_SCHEMA_VERSION in document.ts, add a step here that turns a
+ * To change the document: bump CURRENT_SCHEMA_VERSION in version.ts, add a step here that turns a
  * version n document into version n + 1 (plain JSON in, plain JSON out), and add its test.
  */
 import { CURRENT_SCHEMA_VERSION, setupDocumentSchema, type SetupDocument } from './document';

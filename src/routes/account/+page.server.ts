@@ -6,6 +6,7 @@ import { createAccessToken, listAccessTokens, revokeAccessToken } from '$lib/ser
 import { sessionMaxAgeMs } from '$lib/server/hashed-sessions';
 import { deleteSessionsOfUser } from '$lib/server/db/queries/sessions';
 import { myStudios } from '$lib/server/studios';
+import { isUnitSystem, rememberUnitSystem } from '$lib/server/unit-preference';
 
 export async function load({ locals, url }) {
 	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
@@ -29,11 +30,11 @@ export const actions = {
 	units: async ({ locals, request, cookies }) => {
 		if (!locals.user) return fail(401, { errors: { form: 'Sign in first.' } });
 		const value = (await request.formData()).get('unitSystem');
-		if (value !== 'metric' && value !== 'imperial') {
+		if (!isUnitSystem(value)) {
 			return fail(400, { action: 'units', errors: { unitSystem: 'Choose metric or imperial.' } });
 		}
 		await saveUnitPreference(locals.user.id, value);
-		cookies.set('squarelaw-units', value, { path: '/', httpOnly: false, sameSite: 'lax', maxAge: 365 * 24 * 3600 });
+		rememberUnitSystem(cookies, value);
 		return { action: 'units', saved: true };
 	},
 	createToken: async ({ locals, request }) => {

@@ -4,7 +4,7 @@ import { initialValues, type FieldValues } from './fields';
 import { runCalculation, type CalculationPath } from '$lib/light/calculations';
 import { answerQuestion, type Send } from './compute';
 import { QUESTIONS, questionById } from './questions';
-import { isUnitSystem, rememberUnitSystem, unitSystemFor } from './units';
+import { isUnitSystem, rememberUnitSystem, unitSystemFor } from '$lib/server/unit-preference';
 import type { PageServerLoad } from './$types';
 
 /** On the server the route's schema and engine run in-process: the same answer, no internal request. */

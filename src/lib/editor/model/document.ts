@@ -13,7 +13,8 @@
  * subject's height, a gear id), entries of kinds it does not draw, the plan's print frame.
  */
 import type { ExposureScene, SceneLight } from '$lib/light/schema';
-import { CURRENT_SCHEMA_VERSION, type GearSnapshot, type Plan, type SetupDocument } from '$lib/scene/document';
+import type { GearSnapshot, Plan, SetupDocument } from '$lib/scene/document';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 import { defaultElement, KIND_LABELS } from './defaults';
 import { modelFromScene, modifierFromScene, type LayoutResult } from './layout';
 import { toExposureScene } from './scene';

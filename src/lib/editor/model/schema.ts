@@ -14,16 +14,9 @@ import {
 	kelvinField,
 	lossStopsField,
 	powerField,
+	range,
 	sceneCameraSchema
 } from '$lib/light/schema';
-
-function range(min: number, max: number, unit = '') {
-	const u = unit ? ` ${unit}` : '';
-	return z
-		.number({ error: 'must be a number' })
-		.min(min, `must be at least ${min}${u}`)
-		.max(max, `must be at most ${max}${u}`);
-}
 
 const coordinateM = range(-1000, 1000, 'm');
 const heightM = range(-100, 100, 'm');

@@ -1,3 +1,7 @@
+/**
+ * The metric or imperial choice: the signed-in user's own (saved on the account), else a cookie, so a
+ * visitor's choice on the calculator lasts too. The cookie is written here only.
+ */
 import type { Cookies } from '@sveltejs/kit';
 import type { UnitSystem } from '$lib/light/format';
 

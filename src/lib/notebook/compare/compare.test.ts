@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { exposureSceneSchema, type ExposureSceneInput } from '$lib/light/schema';
-import { compareDocuments, comparisonSentences, diffLines, type ComparableDocument } from './compare';
+import type { Plan } from '$lib/scene/document';
+import { compareDocuments, comparisonSentences, diffLines, type ComparableDocument } from './index';
 
 // The quartz cluster of the demo scenario, reduced to one flash so the expected stops are plain
 // inverse-square arithmetic.
@@ -127,7 +128,7 @@ describe('compareDocuments', () => {
 	});
 
 	it('plan-only elements: a background turned and resized, a label renamed', () => {
-		const plan = (rotationDeg: number, widthM: number, label: string) => ({
+		const plan = (rotationDeg: number, widthM: number, label: string): Plan => ({
 			elements: { key: { kind: 'flash', label: 'Key in softbox' }, bg: { kind: 'background', label, position: [0, -0.5, 0], rotationDeg, widthM } }
 		});
 		const c = compareDocuments(quartz({}, { plan: plan(0, 0.5, 'Black velvet') }), quartz({}, { plan: plan(-30, 0.7, 'Grey card') }));
@@ -179,5 +180,14 @@ describe('diffLines', () => {
 	it('the same text gives only same lines', () => {
 		const ops = diffLines('p\nq', 'p\nq');
 		expect(ops.every((o) => o.op === 'same')).toBe(true);
+	});
+
+	it('a text changed beyond the edit limit reads as replaced, every line kept', () => {
+		const before = Array.from({ length: 2500 }, (_, i) => `old ${i}`).join('\n');
+		const after = Array.from({ length: 2500 }, (_, i) => `new ${i}`).join('\n');
+		const ops = diffLines(before, after);
+		expect(ops.filter((o) => o.op === 'added')).toHaveLength(2500);
+		expect(ops.filter((o) => o.op === 'removed')).toHaveLength(2500);
+		expect(ops[0]).toEqual({ op: 'added', line: 'new 0' });
 	});
 });
