@@ -11,7 +11,6 @@ import {
 	duplicateSetup,
 	getSetup,
 	getSetupRevision,
-	importSetup,
 	InputError,
 	listSetupRevisions,
 	listSetupsFor,
@@ -21,9 +20,9 @@ import {
 	setupExposure,
 	StaleRevisionError,
 	trashSetup,
-	untrashSetup,
-	exportSetup
+	untrashSetup
 } from '$lib/server/setups';
+import { exportSetup, importSetup } from '$lib/server/setups-export';
 import { setupCreateSchema, setupListQuerySchema, setupSaveSchema } from '$lib/scene/inputs';
 import type { SessionUser } from '$lib/server/session';
 

@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { apiError, apiRoute, readBodyText, zodErrorResponse } from '$lib/server/http';
 import { requireUser } from '$lib/server/authz';
-import { importSetup } from '$lib/server/setups';
+import { importSetup } from '$lib/server/setups-export';
 import { MAX_EXPORT_BYTES } from '$lib/scene/export';
 import type { RequestHandler } from './$types';
 
