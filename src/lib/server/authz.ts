@@ -2,8 +2,7 @@
 import { error, redirect } from '@sveltejs/kit';
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { memberships, studios, type Setup, type StudioRole } from '$lib/server/db/schema';
-import { findSetup } from '$lib/server/db/queries/setups';
+import { memberships, setups, studios, type Setup, type StudioRole } from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
 import { listStudiosForUser } from '$lib/server/db/queries/studios';
 import type { SessionUser } from '$lib/server/session';
@@ -135,10 +134,22 @@ export async function authorizeSetup(
 ): Promise<SetupAccess> {
 	const signedIn = requireUser(user);
 	if (!isUuid(setupId)) error(404, SETUP_NOT_FOUND);
-	const row = await findSetup(setupId, { includeTrashed });
-	if (!row) error(404, SETUP_NOT_FOUND);
-	const access = await studioAccess(signedIn, row.setup.studioId);
-	if (!access || !can(access, 'setups.view')) error(404, SETUP_NOT_FOUND);
+	// The setup, its studio and the caller's membership there in one query: every setup request asks this.
+	const [row] = await db
+		.select({ setup: setups, studioName: studios.name, personalOwnerId: studios.personalOwnerId, role: memberships.role })
+		.from(setups)
+		.innerJoin(studios, eq(studios.id, setups.studioId))
+		.leftJoin(memberships, and(eq(memberships.studioId, setups.studioId), eq(memberships.userId, signedIn.id)))
+		.where(and(eq(setups.id, setupId), isNull(studios.deletedAt), includeTrashed ? undefined : isNull(setups.deletedAt)));
+	if (!row || (!row.role && !signedIn.isAdmin)) error(404, SETUP_NOT_FOUND);
+	const access: StudioAccess = {
+		studioId: row.setup.studioId,
+		studioName: row.studioName,
+		isPersonal: row.personalOwnerId !== null,
+		role: row.role ?? null,
+		isAdmin: signedIn.isAdmin
+	};
+	if (!can(access, 'setups.view')) error(404, SETUP_NOT_FOUND);
 	if (!can(access, capability)) refused(capability);
 	return {
 		setup: row.setup,

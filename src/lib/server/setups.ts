@@ -10,8 +10,7 @@ import {
 	can,
 	requireUser,
 	SETUP_NOT_FOUND,
-	studiosWith,
-	type SetupAccess
+	studiosWith
 } from '$lib/server/authz';
 import { RuleViolation } from '$lib/server/errors';
 import type { SessionUser } from '$lib/server/session';
@@ -97,38 +96,36 @@ async function lineageOf(user: SessionUser, setup: Setup) {
 	return { derivedFrom, derivatives };
 }
 
-async function latestRead(setup: Setup): Promise<ReadDocument> {
+async function latestRevision(setup: Setup) {
 	const latest = await findRevision(setup.id, setup.latestRevision);
 	if (!latest) error(404, SETUP_NOT_FOUND);
-	return readStoredDocument(latest.revision.document);
-}
-
-async function detailOf(user: SessionUser, access: SetupAccess): Promise<SetupDetail> {
-	const [read, { derivedFrom, derivatives }] = await Promise.all([latestRead(access.setup), lineageOf(user, access.setup)]);
-	return setupDetail(access, read, derivedFrom, derivatives);
+	return latest;
 }
 
 export async function getSetup(user: SessionUser | null, setupId: string): Promise<SetupDetail> {
-	return detailOf(user!, await authorizeSetup(user, setupId, 'setups.view'));
+	const access = await authorizeSetup(user, setupId, 'setups.view');
+	const [latest, { derivedFrom, derivatives }] = await Promise.all([latestRevision(access.setup), lineageOf(user!, access.setup)]);
+	return setupDetail(access, readStoredDocument(latest.revision.document), derivedFrom, derivatives);
 }
 
 export interface SetupOverview {
 	setup: SetupDetail;
-	/** Newest first. */
-	revisions: RevisionSummary[];
+	/** Who saved the latest revision, when and why. */
+	latest: { authorName: string | null; createdAt: string; message: string };
 	exposure: (ExposureResult & { revisionNumber: number }) | null;
 	/** Why there is no exposure (the latest document fails today's checks, or gives a non-finite number). */
 	exposureError: string | null;
 }
 
-/** What the setup page shows, asked of authz once: the setup, its history and its latest exposure. */
+/** What the setup page shows, asked of authz once: the setup, its latest revision and that revision's exposure. */
 export async function setupOverview(user: SessionUser | null, setupId: string): Promise<SetupOverview> {
 	const access = await authorizeSetup(user, setupId, 'setups.view');
-	const [setup, revisions] = await Promise.all([detailOf(user!, access), listRevisions(access.setup.id)]);
+	const [latest, { derivedFrom, derivatives }] = await Promise.all([latestRevision(access.setup), lineageOf(user!, access.setup)]);
+	const setup = setupDetail(access, readStoredDocument(latest.revision.document), derivedFrom, derivatives);
 	const computed = exposureOf(setup, setup.revisionNumber);
 	return {
 		setup,
-		revisions: revisions.map(revisionSummary),
+		latest: { authorName: latest.authorName, createdAt: latest.revision.createdAt.toISOString(), message: latest.revision.message },
 		exposure: computed.ok ? { ...computed.result, revisionNumber: setup.revisionNumber } : null,
 		exposureError: computed.ok ? null : computed.message
 	};

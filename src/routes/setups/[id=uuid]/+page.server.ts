@@ -9,10 +9,9 @@ import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/set
 
 export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
-	const { setup, revisions, exposure, exposureError } = await setupOverview(user, params.id);
+	const { setup, latest, exposure, exposureError } = await setupOverview(user, params.id);
 	// The studio's modifiers, offered in the editor beside the presets.
 	const shelf = await listGear(user, { studioId: setup.studioId, kind: 'modifier' });
-	const latest = revisions[0];
 	return {
 		setup: {
 			id: setup.id,
@@ -30,8 +29,9 @@ export async function load({ params, url, locals }) {
 		notesHtml: renderNotes(setup.document.notes ?? ''),
 		exposure,
 		exposureError,
-		latest: latest ? { authorName: latest.authorName, createdAt: latest.createdAt, message: latest.message } : null,
-		revisionCount: revisions.length,
+		latest,
+		// Revisions are numbered from 1 and never removed.
+		revisionCount: setup.revisionNumber,
 		// The origin's title only for a caller who may see the origin.
 		origin: setup.derivedFrom ? { ...setup.derivedFrom, title: setup.derivedFrom.title ?? null } : null,
 		canEdit: setup.canEdit,
