@@ -4,7 +4,6 @@ import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { memberships, setups, studios, type Setup, type StudioRole } from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
-import { listStudiosForUser } from '$lib/server/db/queries/studios';
 import type { SessionUser } from '$lib/server/session';
 import { isUuid } from '$lib/uuid';
 
@@ -104,10 +103,12 @@ function refused(capability: Capability): never {
 /** The studios whose setups or gear the caller may use with `capability`: ids, or 'all' for a site admin. */
 export async function studiosWith(user: SessionUser, capability: Capability): Promise<string[] | 'all'> {
 	if (user.isAdmin) return 'all';
-	const mine = await listStudiosForUser(user.id);
-	return mine
-		.filter((s) => can({ studioId: s.id, studioName: s.name, isPersonal: s.personal, role: s.role, isAdmin: false }, capability))
-		.map((s) => s.id);
+	const mine = await db
+		.select({ studioId: memberships.studioId, role: memberships.role })
+		.from(memberships)
+		.innerJoin(studios, eq(studios.id, memberships.studioId))
+		.where(and(eq(memberships.userId, user.id), isNull(studios.deletedAt)));
+	return mine.filter((m) => ROLE_CAPABILITIES[m.role].has(capability)).map((m) => m.studioId);
 }
 
 export const SETUP_NOT_FOUND = 'No such setup.';

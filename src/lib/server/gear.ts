@@ -1,6 +1,6 @@
 // The gear shelf's rules: authz first, then the named queries; every spec checked against its kind.
 import { error } from '@sveltejs/kit';
-import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser } from '$lib/server/authz';
+import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser, studiosWith } from '$lib/server/authz';
 import type { SessionUser } from '$lib/server/session';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import { insertGearRow, listGearRows, updateGearRow } from '$lib/server/db/queries/gear';
@@ -50,6 +50,13 @@ export async function listGear(
 	const access = await authorizeStudio(signedIn, studioId, 'gear.view');
 	const rows = await listGearRows(studioId, options);
 	return { studioId, canEdit: can(access, 'gear.edit'), items: rows.map(gearItem) };
+}
+
+/** The shelves of several studios in one list, leaving out any the caller may not see. */
+export async function listGearOnShelves(user: SessionUser | null, studioIds: string[]): Promise<GearItem[]> {
+	const visible = await studiosWith(requireUser(user), 'gear.view');
+	const rows = await listGearRows(visible === 'all' ? studioIds : studioIds.filter((id) => visible.includes(id)));
+	return rows.map(gearItem);
 }
 
 export async function getGear(user: SessionUser | null, gearId: string): Promise<GearItem & { canEdit: boolean }> {

@@ -2,7 +2,7 @@ import { fail, isHttpError, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { listSetupsFor } from '$lib/server/setups';
-import { listGear } from '$lib/server/gear';
+import { listGearOnShelves } from '$lib/server/gear';
 import { callApi } from '$lib/notebook/api';
 import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 import { apiSearch, readListQuery } from '$lib/notebook/list-query';
@@ -36,11 +36,11 @@ export async function load({ locals, url }) {
 	const shelves = query.studio ? studios.filter((s) => s.id === query.studio) : studios;
 	// The same question the browser's search-as-you-type asks the API, read by the API's own schema.
 	const listQuery = setupListQuerySchema.parse(Object.fromEntries(new URLSearchParams(apiSearch(query))));
-	const [list, ...gearLists] = await Promise.all([
+	const [list, shelfItems] = await Promise.all([
 		orRefusal(listSetupsFor(user, listQuery)),
-		...shelves.map((s) => orRefusal(listGear(user, { studioId: s.id })))
+		listGearOnShelves(user, shelves.map((s) => s.id))
 	]);
-	const gear: GearOption[] = gearLists.flatMap((g) => (g.ok ? g.data.items.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId })) : []));
+	const gear: GearOption[] = shelfItems.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId }));
 	return {
 		query,
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role })),
