@@ -14,11 +14,6 @@ export async function getOrFail<T>(fetchFn: Fetch, path: string, url: URL): Prom
 	error(r.status >= 400 && r.status <= 599 ? r.status : 500, r.message);
 }
 
-export function requireSignedIn(user: App.Locals['user'], url: URL) {
-	if (!user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname + url.search)}`);
-	return user;
-}
-
 /**
  * The smallest valid setup document: one subject at the origin, a camera set for close-up work (ISO 100,
  * f/11, 1/125 s, half life-size: a common macro starting point), no lights, an empty plan.

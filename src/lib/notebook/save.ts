@@ -1,10 +1,9 @@
 /**
- * Saving a change to a setup from a page form: read the revision the form started from, apply the
- * change to its document, PUT it with that `baseRevision`. When someone else saved first (409), say
- * what changed since, so the page can show it beside what the user typed and let them save on top.
+ * What a stale save (409) tells the person saving: the saves made since the revision they started from,
+ * what those changed, and the notes, title and tags as they are now. Worked out on the server
+ * (`$lib/server/setups-conflict.ts`) and sent with the 409, so pages and the editor show it as it came.
  */
 import type { SetupDocument } from '$lib/scene/document';
-import { callApi, type ApiIssue, type Fetch, type RevisionRecord, type RevisionSummary, type SetupRecord } from './api';
 import { compareDocuments, comparisonSentences, diffLines, type LineDiffOp } from './compare/index';
 import type { UnitSystem } from '$lib/light/format';
 
@@ -33,77 +32,27 @@ export interface SaveFormState {
 	conflict?: Conflict;
 }
 
-export type SaveOutcome =
-	| { kind: 'saved'; revisionNumber: number }
-	| { kind: 'conflict'; conflict: Conflict }
-	| { kind: 'invalid'; status: number; message: string; issues: ApiIssue[] };
-
-export interface SaveRequest {
-	setupId: string;
+export interface ConflictInput {
 	baseRevision: number;
-	/** Returns the new document from the base one (a copy: change it freely). */
-	apply: (document: SetupDocument) => SetupDocument;
-	title?: string;
-	subject?: string;
-	tags?: string[];
-	message?: string;
+	baseDocument: SetupDocument;
+	latest: { revisionNumber: number; document: SetupDocument; title: string; subject: string; tags: string[] };
+	/** Every revision of the setup (those after the base are kept). */
+	revisions: Conflict['revisions'];
 	unitSystem: UnitSystem;
 }
 
-export async function saveChange(fetchFn: Fetch, req: SaveRequest): Promise<SaveOutcome> {
-	const base = await callApi<RevisionRecord>(fetchFn, `/api/v1/setups/${req.setupId}/revisions/${req.baseRevision}`);
-	if (!base.ok) return { kind: 'invalid', status: base.status, message: base.message, issues: base.issues };
-	const document = req.apply(structuredClone(base.data.document));
-	const body: Record<string, unknown> = { baseRevision: req.baseRevision, document };
-	if (req.title !== undefined) body.title = req.title;
-	if (req.subject !== undefined) body.subject = req.subject;
-	if (req.tags !== undefined) body.tags = req.tags;
-	if (req.message) body.message = req.message;
-	const put = await callApi<{ revisionNumber: number }>(fetchFn, `/api/v1/setups/${req.setupId}`, { method: 'PUT', body });
-	if (put.ok) return { kind: 'saved', revisionNumber: put.data.revisionNumber };
-	if (put.status === 409) {
-		const latestRevision = Number(put.body?.latestRevision);
-		return { kind: 'conflict', conflict: await describeConflict(fetchFn, req, base.data.document, latestRevision) };
-	}
-	return { kind: 'invalid', status: put.status, message: put.message, issues: put.issues };
-}
-
-/** What changed between revision `baseRevision` and the latest, for a save that was refused (409); used by the editor too. */
-export async function conflictSince(
-	fetchFn: Fetch,
-	req: Pick<SaveRequest, 'setupId' | 'baseRevision' | 'unitSystem'>,
-	latestHint: number
-): Promise<Conflict | null> {
-	const base = await callApi<RevisionRecord>(fetchFn, `/api/v1/setups/${req.setupId}/revisions/${req.baseRevision}`);
-	if (!base.ok) return null;
-	return describeConflict(fetchFn, req, base.data.document, latestHint);
-}
-
-async function describeConflict(
-	fetchFn: Fetch,
-	req: Pick<SaveRequest, 'setupId' | 'baseRevision' | 'unitSystem'>,
-	baseDoc: SetupDocument,
-	latestHint: number
-): Promise<Conflict> {
-	const [latest, revisions] = await Promise.all([
-		callApi<SetupRecord>(fetchFn, `/api/v1/setups/${req.setupId}`),
-		callApi<RevisionSummary[]>(fetchFn, `/api/v1/setups/${req.setupId}/revisions`)
-	]);
-	const latestRevision = latest.ok ? latest.data.revisionNumber : latestHint;
-	const latestDoc = latest.ok ? latest.data.document : baseDoc;
-	const since = revisions.ok ? revisions.data.filter((r) => r.number > req.baseRevision) : [];
-	const comparison = compareDocuments(baseDoc, latestDoc, { unitSystem: req.unitSystem });
-	const changes = comparisonSentences(comparison);
-	if (latest.ok && changes.length === 0) changes.push('Only the title, subject or tags changed, or nothing that shows in the plan.');
+export function describeConflict({ baseRevision, baseDocument, latest, revisions, unitSystem }: ConflictInput): Conflict {
+	const changes = comparisonSentences(compareDocuments(baseDocument, latest.document, { unitSystem }));
+	if (changes.length === 0) changes.push('Only the title, subject or tags changed, or nothing that shows in the plan.');
 	return {
-		baseRevision: req.baseRevision,
-		latestRevision,
-		revisions: since.map((r) => ({ number: r.number, authorName: r.authorName, createdAt: r.createdAt, message: r.message })),
+		baseRevision,
+		latestRevision: latest.revisionNumber,
+		revisions: revisions.filter((r) => r.number > baseRevision),
 		changes,
-		latestNotes: latestDoc.notes ?? '',
-		notesSinceBase: diffLines(baseDoc.notes ?? '', latestDoc.notes ?? ''),
-		latestTitle: latest.ok ? latest.data.title : '',
-		latestSubject: latest.ok ? latest.data.subject : '',
-		latestTags: latest.ok ? latest.data.tags : []
+		latestNotes: latest.document.notes ?? '',
+		notesSinceBase: diffLines(baseDocument.notes ?? '', latest.document.notes ?? ''),
+		latestTitle: latest.title,
+		latestSubject: latest.subject,
+		latestTags: latest.tags
 	};
 }

@@ -1,5 +1,5 @@
 // Reading numbers out of URLs for the JSON routes: a malformed one is a 400 naming it, never a 500.
-import { InputError } from '$lib/server/setups';
+import { InputError } from '$lib/server/setups-documents';
 
 const MUST = 'must be a revision number (a whole number from 1)';
 

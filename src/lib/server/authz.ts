@@ -1,9 +1,13 @@
 // The one place that decides who may do what. Every load, action and API route asks here first.
-import { error } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { memberships, studios, type StudioRole, type TokenScope } from '$lib/server/db/schema';
+import { memberships, setups, studios, type Setup, type StudioRole, type TokenScope } from '$lib/server/db/schema';
+import { findGearRow } from '$lib/server/db/queries/gear';
 import type { SessionUser } from '$lib/server/session';
+import { isUuid } from '$lib/uuid';
+
+export { isUuid };
 
 export const CAPABILITIES = [
 	'studio.view',
@@ -73,9 +77,14 @@ export async function studioAccess(user: SessionUser | null, studioId: string): 
 	};
 }
 
-export function requireUser(user: SessionUser | null): SessionUser {
-	if (!user) error(401, 'Sign in first.');
-	return user;
+/**
+ * The one sign-in guard. Services and JSON routes call it with the caller alone and answer 401; pages and
+ * their actions pass the page's URL, and an anonymous visitor is sent to sign in and brought back there.
+ */
+export function requireUser(user: SessionUser | null, signInFrom?: URL): SessionUser {
+	if (user) return user;
+	if (signInFrom) redirect(303, `/signin?callbackUrl=${encodeURIComponent(signInFrom.pathname + signInFrom.search)}`);
+	error(401, 'Sign in first.');
 }
 
 /**
@@ -90,12 +99,87 @@ export async function authorizeStudio(
 	const signedIn = requireUser(user);
 	const access = await studioAccess(signedIn, studioId);
 	if (!access) error(404, 'No such studio.');
-	if (!can(access, capability)) error(403, `Your role in this studio does not allow that (${capability}).`);
+	if (!can(access, capability)) refused(capability);
 	return access;
 }
 
-export function isUuid(value: string): boolean {
-	return /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
+function refused(capability: Capability): never {
+	error(403, `Your role in this studio does not allow that (${capability}).`);
+}
+
+/** The studios whose setups or gear the caller may use with `capability`: ids, or 'all' for a site admin. */
+export async function studiosWith(user: SessionUser, capability: Capability): Promise<string[] | 'all'> {
+	if (user.isAdmin) return 'all';
+	const mine = await db
+		.select({ studioId: memberships.studioId, role: memberships.role })
+		.from(memberships)
+		.innerJoin(studios, eq(studios.id, memberships.studioId))
+		.where(and(eq(memberships.userId, user.id), isNull(studios.deletedAt)));
+	return mine.filter((m) => ROLE_CAPABILITIES[m.role].has(capability)).map((m) => m.studioId);
+}
+
+export const SETUP_NOT_FOUND = 'No such setup.';
+
+export interface SetupAccess {
+	setup: Setup;
+	studioName: string;
+	access: StudioAccess;
+	/** What the caller may do here, so pages offer only what will work. */
+	canEdit: boolean;
+	canDuplicate: boolean;
+}
+
+/**
+ * The caller's standing toward one setup: 401 when anonymous, 404 when the setup does not exist, is in
+ * the trash, or lies in a studio the caller cannot see (never revealing which), 403 when the caller sees
+ * it but their role lacks `capability`.
+ */
+export async function authorizeSetup(
+	user: SessionUser | null,
+	setupId: string,
+	capability: Capability,
+	{ includeTrashed = false } = {}
+): Promise<SetupAccess> {
+	const signedIn = requireUser(user);
+	if (!isUuid(setupId)) error(404, SETUP_NOT_FOUND);
+	// The setup, its studio and the caller's membership there in one query: every setup request asks this.
+	const [row] = await db
+		.select({ setup: setups, studioName: studios.name, personalOwnerId: studios.personalOwnerId, role: memberships.role })
+		.from(setups)
+		.innerJoin(studios, eq(studios.id, setups.studioId))
+		.leftJoin(memberships, and(eq(memberships.studioId, setups.studioId), eq(memberships.userId, signedIn.id)))
+		.where(and(eq(setups.id, setupId), isNull(studios.deletedAt), includeTrashed ? undefined : isNull(setups.deletedAt)));
+	if (!row || (!row.role && !signedIn.isAdmin)) error(404, SETUP_NOT_FOUND);
+	const access: StudioAccess = {
+		studioId: row.setup.studioId,
+		studioName: row.studioName,
+		isPersonal: row.personalOwnerId !== null,
+		role: row.role ?? null,
+		isAdmin: signedIn.isAdmin
+	};
+	if (!can(access, 'setups.view')) error(404, SETUP_NOT_FOUND);
+	if (!can(access, capability)) refused(capability);
+	return {
+		setup: row.setup,
+		studioName: row.studioName,
+		access,
+		canEdit: can(access, 'setups.edit'),
+		canDuplicate: can(access, 'setups.duplicateFrom')
+	};
+}
+
+export const GEAR_NOT_FOUND = 'No such gear.';
+
+/** One gear item: 401 anonymous; 404 unknown or in a studio the caller cannot see; 403 when the role lacks the capability. */
+export async function authorizeGear(user: SessionUser | null, gearId: string, capability: 'gear.view' | 'gear.edit') {
+	const signedIn = requireUser(user);
+	if (!isUuid(gearId)) error(404, GEAR_NOT_FOUND);
+	const row = await findGearRow(gearId);
+	if (!row) error(404, GEAR_NOT_FOUND);
+	const access = await studioAccess(signedIn, row.studioId);
+	if (!access || !can(access, 'gear.view')) error(404, GEAR_NOT_FOUND);
+	if (!can(access, capability)) refused(capability);
+	return { row, access, canEdit: can(access, 'gear.edit') };
 }
 
 /**

@@ -1,12 +1,12 @@
 // The gear shelf's rules: authz first, then the named queries; every spec checked against its kind.
 import { error } from '@sveltejs/kit';
-import { authorizeStudio, can, isUuid, requireUser, studioAccess } from '$lib/server/authz';
+import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser, studiosWith } from '$lib/server/authz';
 import type { SessionUser } from '$lib/server/session';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
-import { findGearRow, insertGearRow, listGearRows, updateGearRow } from '$lib/server/db/queries/gear';
+import { insertGearRow, listGearRows, updateGearRow } from '$lib/server/db/queries/gear';
 import type { Gear } from '$lib/server/db/schema';
 import { parseGearSpec, type GearCreateInput, type GearKind, type GearUpdateInput } from '$lib/scene/gear';
-import { InputError } from '$lib/server/setups';
+import { InputError } from '$lib/server/setups-documents';
 
 export interface GearItem {
 	id: string;
@@ -34,20 +34,6 @@ function gearItem(row: Gear): GearItem {
 	};
 }
 
-const NOT_FOUND = 'No such gear.';
-
-/** 401 anonymous; 404 unknown or in a studio the caller cannot see; 403 when the role lacks the capability. */
-async function authorizeGear(user: SessionUser | null, gearId: string, capability: 'gear.view' | 'gear.edit') {
-	const signedIn = requireUser(user);
-	if (!isUuid(gearId)) error(404, NOT_FOUND);
-	const row = await findGearRow(gearId);
-	if (!row) error(404, NOT_FOUND);
-	const access = await studioAccess(signedIn, row.studioId);
-	if (!access || !can(access, 'gear.view')) error(404, NOT_FOUND);
-	if (!can(access, capability)) error(403, `Your role in this studio does not allow that (${capability}).`);
-	return { row, access };
-}
-
 async function studioOrPersonal(user: SessionUser, studioId: string | undefined) {
 	if (studioId) return studioId;
 	const studio = await ensurePersonalStudio(user.id, user.name || user.email.split('@')[0] || 'My');
@@ -66,9 +52,16 @@ export async function listGear(
 	return { studioId, canEdit: can(access, 'gear.edit'), items: rows.map(gearItem) };
 }
 
+/** The shelves of several studios in one list, leaving out any the caller may not see. */
+export async function listGearOnShelves(user: SessionUser | null, studioIds: string[]): Promise<GearItem[]> {
+	const visible = await studiosWith(requireUser(user), 'gear.view');
+	const rows = await listGearRows(visible === 'all' ? studioIds : studioIds.filter((id) => visible.includes(id)));
+	return rows.map(gearItem);
+}
+
 export async function getGear(user: SessionUser | null, gearId: string): Promise<GearItem & { canEdit: boolean }> {
-	const { row, access } = await authorizeGear(user, gearId, 'gear.view');
-	return { ...gearItem(row), canEdit: can(access, 'gear.edit') };
+	const { row, canEdit } = await authorizeGear(user, gearId, 'gear.view');
+	return { ...gearItem(row), canEdit };
 }
 
 export async function createGear(user: SessionUser | null, input: GearCreateInput): Promise<GearItem> {
@@ -96,6 +89,6 @@ export async function updateGear(user: SessionUser | null, gearId: string, input
 		spec = parsed.spec;
 	}
 	const updated = await updateGearRow(row.id, { name: input.name, spec, notes: input.notes, retired: input.retired });
-	if (!updated) error(404, NOT_FOUND);
+	if (!updated) error(404, GEAR_NOT_FOUND);
 	return gearItem(updated);
 }

@@ -11,7 +11,6 @@ import {
 	duplicateSetup,
 	getSetup,
 	getSetupRevision,
-	importSetup,
 	InputError,
 	listSetupRevisions,
 	listSetupsFor,
@@ -21,9 +20,9 @@ import {
 	setupExposure,
 	StaleRevisionError,
 	trashSetup,
-	untrashSetup,
-	exportSetup
+	untrashSetup
 } from '$lib/server/setups';
+import { exportSetup, importSetup } from '$lib/server/setups-export';
 import { setupCreateSchema, setupListQuerySchema, setupSaveSchema } from '$lib/scene/inputs';
 import type { SessionUser } from '$lib/server/session';
 
@@ -112,6 +111,26 @@ describe('saving', () => {
 		expect(now).toMatchObject({ revisionNumber: 2, title: 'Stale, renamed' });
 		expect(now.document.notes).toBe('two');
 		await expect(save(editor, id, { baseRevision: 7, document: sampleDocument() })).rejects.toMatchObject({ status: 409, latestRevision: 2 });
+	});
+
+	it('a stale save carries what changed since its base, for the 409 body (nothing to fetch again)', async () => {
+		const { id } = await create(editor, { studioId: studio.studioId, title: 'Told', subject: 'Quartz', document: sampleDocument({ notes: 'card left', power: 0.25 }) });
+		await save(editor, id, { baseRevision: 1, document: sampleDocument({ notes: 'card right', power: 0.5 }), title: 'Told, renamed', tags: ['velvet'], message: 'Moved the card' });
+		const refused = await save(editor, id, { baseRevision: 1, document: sampleDocument({ notes: 'mine' }) }).catch((e: unknown) => e);
+		expect(refused).toBeInstanceOf(StaleRevisionError);
+		const { extra } = refused as InstanceType<typeof StaleRevisionError>;
+		expect(extra.latestRevision).toBe(2);
+		expect(extra.conflict).toMatchObject({
+			baseRevision: 1,
+			latestRevision: 2,
+			latestNotes: 'card right',
+			latestTitle: 'Told, renamed',
+			latestTags: ['velvet'],
+			revisions: [expect.objectContaining({ number: 2, message: 'Moved the card' })]
+		});
+		// The key's power went from 1/4 to 1/2: the comparison says so in words.
+		expect(extra.conflict!.changes.join(' ')).toMatch(/power/i);
+		expect(extra.conflict!.notesSinceBase).toEqual(expect.arrayContaining([{ op: 'added', line: 'card right' }]));
 	});
 });
 

@@ -1,7 +1,8 @@
 import { error, fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { callApi, type ApiIssue } from '$lib/notebook/api';
-import { getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { getOrFail } from '$lib/notebook/load';
 import { GEAR_KIND_LIST, specFromForm, type GearKindName } from '$lib/notebook/gear-form';
 
 export interface GearItem {
@@ -16,7 +17,7 @@ export interface GearItem {
 }
 
 export async function load({ fetch, url, locals }) {
-	const user = requireSignedIn(locals.user, url);
+	const user = requireUser(locals.user, url);
 	const studios = (await myStudios(user)).map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role }));
 	const asked = url.searchParams.get('studio');
 	// Without a choice, a shared studio's shelf (where a team keeps its gear), else the personal one.

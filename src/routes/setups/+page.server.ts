@@ -1,9 +1,13 @@
-import { fail, redirect } from '@sveltejs/kit';
+import { fail, isHttpError, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
-import { callApi, type SetupList } from '$lib/notebook/api';
+import { listSetupsFor } from '$lib/server/setups';
+import { listGearOnShelves } from '$lib/server/gear';
+import { callApi } from '$lib/notebook/api';
 import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 import { apiSearch, readListQuery } from '$lib/notebook/list-query';
-import { blankDocument, requireSignedIn } from '$lib/notebook/load';
+import { blankDocument } from '$lib/notebook/load';
+import { setupListQuerySchema } from '$lib/scene/inputs';
 
 /** A setup file is at most 1 MiB (the setups API's import limit). */
 const MAX_FILE_BYTES = 1024 * 1024;
@@ -15,16 +19,28 @@ interface GearOption {
 	studioId: string;
 }
 
-export async function load({ locals, url, fetch }) {
-	const user = requireSignedIn(locals.user, url);
+/** A refusal (a studio filter the caller may not see) becomes the list's message, not an error page. */
+async function orRefusal<T>(work: Promise<T>): Promise<{ ok: true; data: T } | { ok: false; message: string }> {
+	try {
+		return { ok: true, data: await work };
+	} catch (e) {
+		if (isHttpError(e)) return { ok: false, message: e.body.message };
+		throw e;
+	}
+}
+
+export async function load({ locals, url }) {
+	const user = requireUser(locals.user, url);
 	const query = readListQuery(url.searchParams);
 	const studios = await myStudios(user);
 	const shelves = query.studio ? studios.filter((s) => s.id === query.studio) : studios;
-	const [list, ...gearLists] = await Promise.all([
-		callApi<SetupList>(fetch, `/api/v1/setups${apiSearch(query)}`),
-		...shelves.map((s) => callApi<{ items: GearOption[] }>(fetch, `/api/v1/gear?studio=${s.id}`))
+	// The same question the browser's search-as-you-type asks the API, read by the API's own schema.
+	const listQuery = setupListQuerySchema.parse(Object.fromEntries(new URLSearchParams(apiSearch(query))));
+	const [list, shelfItems] = await Promise.all([
+		orRefusal(listSetupsFor(user, listQuery)),
+		listGearOnShelves(user, shelves.map((s) => s.id))
 	]);
-	const gear = gearLists.flatMap((g) => (g.ok ? g.data.items.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId })) : []));
+	const gear: GearOption[] = shelfItems.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId }));
 	return {
 		query,
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role })),

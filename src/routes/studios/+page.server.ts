@@ -1,9 +1,10 @@
 import { fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { studioNameSchema } from '$lib/schemas/account';
 import { createStudio, myStudios } from '$lib/server/studios';
 
 export async function load({ locals, url }) {
-	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
+	requireUser(locals.user, url);
 	return { studios: await myStudios(locals.user) };
 }
 

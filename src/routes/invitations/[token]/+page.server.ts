@@ -1,4 +1,5 @@
 import { redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { runAction } from '$lib/server/actions';
 import { acceptInvitation, lookUpInvitation } from '$lib/server/studios';
 
@@ -9,7 +10,7 @@ export async function load({ params, locals }) {
 
 export const actions = {
 	accept: async ({ locals, params, url }) => {
-		if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
+		requireUser(locals.user, url);
 		const result = await runAction('accept', () => acceptInvitation(locals.user, params.token));
 		if (result && 'status' in result) return result;
 		redirect(303, `/studios/${result.studioId}`);

@@ -1,12 +1,13 @@
 import { fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { listGear } from '$lib/server/gear';
-import { blankDocument, requireSignedIn } from '$lib/notebook/load';
+import { blankDocument } from '$lib/notebook/load';
 import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
 
 /** A new setup in the editor: the empty plan, and the studios the user may add setups to. */
 export async function load({ locals, url }) {
-	const user = requireSignedIn(locals.user, url);
+	const user = requireUser(locals.user, url);
 	const studios = (await myStudios(user)).filter((s) => s.role === 'owner' || s.role === 'editor');
 	// Each studio's modifiers, so the editor offers the shelf of the studio the setup will go to.
 	const shelves = await Promise.all(studios.map((s) => listGear(user, { studioId: s.id, kind: 'modifier' }).catch(() => ({ items: [] }))));

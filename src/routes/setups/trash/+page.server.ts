@@ -1,11 +1,12 @@
 import { error, fail } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { callApi, type SetupList } from '$lib/notebook/api';
-import { getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { getOrFail } from '$lib/notebook/load';
 
 const PAGE_SIZE = 20;
 
 export async function load({ fetch, url, locals }) {
-	requireSignedIn(locals.user, url);
+	requireUser(locals.user, url);
 	const page = Math.max(1, Math.min(1_000_000, Math.floor(Number(url.searchParams.get('page'))) || 1));
 	const list = await getOrFail<SetupList>(fetch, `/api/v1/setups/trash?page=${page}&pageSize=${PAGE_SIZE}`, url);
 	return { list };

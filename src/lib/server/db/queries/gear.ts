@@ -4,13 +4,15 @@ import { db } from '../index';
 import { gear, type NewGear } from '../schema';
 import type { GearKind } from '$lib/scene/gear';
 
-export async function listGearRows(studioId: string, { kind, includeRetired = false }: { kind?: GearKind; includeRetired?: boolean } = {}) {
+/** The shelf of one studio, or of several at once (`studioIds` an array). */
+export async function listGearRows(studioIds: string | string[], { kind, includeRetired = false }: { kind?: GearKind; includeRetired?: boolean } = {}) {
+	if (Array.isArray(studioIds) && studioIds.length === 0) return [];
 	return db
 		.select()
 		.from(gear)
 		.where(
 			and(
-				eq(gear.studioId, studioId),
+				Array.isArray(studioIds) ? inArray(gear.studioId, studioIds) : eq(gear.studioId, studioIds),
 				kind ? eq(gear.kind, kind) : undefined,
 				includeRetired ? undefined : isNull(gear.retiredAt)
 			)

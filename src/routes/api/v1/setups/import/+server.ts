@@ -1,7 +1,7 @@
 import { json } from '@sveltejs/kit';
 import { apiError, apiRoute, bodyMediaType, readBodyText, zodErrorResponse } from '$lib/server/http';
 import { requireUser } from '$lib/server/authz';
-import { importSetup } from '$lib/server/setups';
+import { importSetup } from '$lib/server/setups-export';
 import { importQuerySchema, MAX_EXPORT_BYTES } from '$lib/scene/export';
 import type { RequestHandler } from './$types';
 

@@ -1,7 +1,8 @@
 import { error } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { type RevisionRecord, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
 import { compareDocuments, comparisonSentences } from '$lib/notebook/compare';
-import { getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { getOrFail } from '$lib/notebook/load';
 
 function revisionParam(url: URL, name: string): number | null {
 	const raw = url.searchParams.get(name);
@@ -11,7 +12,7 @@ function revisionParam(url: URL, name: string): number | null {
 }
 
 export async function load({ params, fetch, url, locals }) {
-	const user = requireSignedIn(locals.user, url);
+	const user = requireUser(locals.user, url);
 	const id = encodeURIComponent(params.id);
 	const [setup, revisions] = await Promise.all([
 		getOrFail<SetupRecord>(fetch, `/api/v1/setups/${id}`, url),

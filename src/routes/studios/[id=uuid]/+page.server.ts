@@ -1,4 +1,5 @@
 import { fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { inviteSchema, studioNameSchema, studioRoleSchema } from '$lib/schemas/account';
 import { runAction } from '$lib/server/actions';
 import {
@@ -13,9 +14,9 @@ import {
 } from '$lib/server/studios';
 
 export async function load({ locals, params, url }) {
-	if (!locals.user) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname)}`);
-	const overview = await studioOverview(locals.user, params.id);
-	return { ...overview, me: locals.user.id };
+	const user = requireUser(locals.user, url);
+	const overview = await studioOverview(user, params.id);
+	return { ...overview, me: user.id };
 }
 
 export const actions = {

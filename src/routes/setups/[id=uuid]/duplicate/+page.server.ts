@@ -1,7 +1,8 @@
 import { error, fail, redirect } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { callApi, issuesByField, type SetupRecord } from '$lib/notebook/api';
-import { getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { getOrFail } from '$lib/notebook/load';
 
 /** Studios where the caller may make setups: only those are offered as the copy's home. */
 async function editableStudios(user: Parameters<typeof myStudios>[0]) {
@@ -10,7 +11,7 @@ async function editableStudios(user: Parameters<typeof myStudios>[0]) {
 }
 
 export async function load({ params, fetch, url, locals }) {
-	const user = requireSignedIn(locals.user, url);
+	const user = requireUser(locals.user, url);
 	const setup = await getOrFail<SetupRecord & { canDuplicate?: boolean; canEdit?: boolean }>(fetch, `/api/v1/setups/${encodeURIComponent(params.id)}`, url);
 	if (setup.canDuplicate === false) error(403, 'Your role in this studio does not allow duplicating its setups.');
 	const studios = await editableStudios(user);

@@ -1,37 +1,17 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { can, studioAccess } from '$lib/server/authz';
-import { callApi, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
-import type { ShelfItem } from '$lib/editor/model/shelf';
-import type { ExposureResult } from '$lib/light/scene';
-import { elementLabels, getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { requireUser } from '$lib/server/authz';
+import { setupOverview, trashSetup } from '$lib/server/setups';
+import { saveChange, type SaveOutcome } from '$lib/server/setups-changes';
+import { listGear } from '$lib/server/gear';
+import { elementLabels } from '$lib/notebook/load';
 import { renderNotes } from '$lib/notebook/markdown';
-import { saveChange, type SaveOutcome } from '$lib/notebook/save';
 import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/settings';
 
-export async function load({ params, fetch, url, locals }) {
-	const user = requireSignedIn(locals.user, url);
-	const setup = await getOrFail<SetupRecord & { studioName?: string; canEdit?: boolean; canDuplicate?: boolean; thumbnailRevision?: number | null }>(
-		fetch,
-		`/api/v1/setups/${encodeURIComponent(params.id)}`,
-		url
-	);
-	const [exposure, revisions, access, shelf] = await Promise.all([
-		callApi<ExposureResult & { revisionNumber?: number }>(fetch, `/api/v1/setups/${setup.id}/exposure`),
-		callApi<RevisionSummary[]>(fetch, `/api/v1/setups/${setup.id}/revisions`),
-		studioAccess(user, setup.studioId),
-		callApi<{ items: ShelfItem[] }>(fetch, `/api/v1/gear?studio=${setup.studioId}&kind=modifier`)
-	]);
-	// The origin's title: the API adds it when the caller may see the origin; otherwise ask for it.
-	let origin: { setupId: string; revisionNumber: number; title: string | null } | null = null;
-	if (setup.derivedFrom) {
-		let title = (setup.derivedFrom as { title?: string }).title ?? null;
-		if (title === null) {
-			const o = await callApi<SetupRecord>(fetch, `/api/v1/setups/${setup.derivedFrom.setupId}`);
-			title = o.ok ? o.data.title : null;
-		}
-		origin = { ...setup.derivedFrom, title };
-	}
-	const latest = revisions.ok ? revisions.data[0] : undefined;
+export async function load({ params, url, locals }) {
+	const user = requireUser(locals.user, url);
+	const { setup, latest, exposure, exposureError } = await setupOverview(user, params.id);
+	// The studio's modifiers, offered in the editor beside the presets.
+	const shelf = await listGear(user, { studioId: setup.studioId, kind: 'modifier' });
 	return {
 		setup: {
 			id: setup.id,
@@ -39,25 +19,26 @@ export async function load({ params, fetch, url, locals }) {
 			subject: setup.subject,
 			tags: setup.tags,
 			studioId: setup.studioId,
-			studioName: setup.studioName ?? access?.studioName ?? '',
+			studioName: setup.studioName,
 			revisionNumber: setup.revisionNumber,
-			thumbnailRevision: setup.thumbnailRevision ?? null,
+			thumbnailRevision: setup.thumbnailRevision,
 			derivatives: setup.derivatives
 		},
 		document: setup.document,
 		documentTrimmed: (setup.documentTrimmed as string[][] | undefined) ?? [],
 		labels: elementLabels(setup.document),
 		notesHtml: renderNotes(setup.document.notes ?? ''),
-		exposure: exposure.ok ? exposure.data : null,
-		exposureError: exposure.ok ? null : exposure.message,
-		latest: latest ? { authorName: latest.authorName, createdAt: latest.createdAt, message: latest.message } : null,
-		revisionCount: revisions.ok ? revisions.data.length : setup.revisionNumber,
-		origin,
-		canEdit: setup.canEdit ?? can(access, 'setups.edit'),
-		canDuplicate: setup.canDuplicate ?? can(access, 'setups.duplicateFrom'),
+		exposure,
+		exposureError,
+		latest,
+		// Revisions are numbered from 1 and never removed.
+		revisionCount: setup.revisionNumber,
+		// The origin's title only for a caller who may see the origin.
+		origin: setup.derivedFrom ? { ...setup.derivedFrom, title: setup.derivedFrom.title ?? null } : null,
+		canEdit: setup.canEdit,
+		canDuplicate: setup.canDuplicate,
 		unitSystem: user.unitSystem,
-		// The studio's modifiers, offered in the editor beside the presets (none if the shelf cannot be read).
-		shelf: shelf.ok ? shelf.data.items : []
+		shelf: shelf.items
 	};
 }
 
@@ -83,70 +64,63 @@ function answer(action: string, outcome: SaveOutcome, values: Record<string, str
 
 export const actions = {
 	/** Notes: a new revision with the notes replaced, on top of the revision the form started from. */
-	notes: async ({ request, params, fetch, locals }) => {
+	notes: async ({ request, params, locals }) => {
 		const form = await request.formData();
 		const notes = String(form.get('notes') ?? '').replace(/\r\n/g, '\n');
 		const message = String(form.get('message') ?? '').trim();
 		const values = { notes, message };
 		const base = baseRevisionOf(form);
 		if (base === null) return fail(400, { action: 'notes', values, errors: { form: 'The form lost its revision number; reload the page.' } as Record<string, string> });
-		const outcome = await saveChange(fetch, {
+		const outcome = await saveChange(locals.user, {
 			setupId: params.id,
 			baseRevision: base,
 			apply: (doc) => ({ ...doc, notes }),
-			message: message || 'Notes changed',
-			unitSystem: locals.user?.unitSystem ?? 'metric'
+			message: message || 'Notes changed'
 		});
 		return answer('notes', outcome, values, ['notes', 'message'], (path) => (path.at(-1) === 'notes' ? 'notes' : path[0] === 'message' ? 'message' : null));
 	},
 
 	/** Camera settings: ISO, aperture, shutter speed and magnification. */
-	settings: async ({ request, params, fetch, locals }) => {
+	settings: async ({ request, params, locals }) => {
 		const form = await request.formData();
 		const values = Object.fromEntries(CAMERA_FIELDS.map((f) => [f, String(form.get(f) ?? '')])) as Record<(typeof CAMERA_FIELDS)[number], string>;
 		const base = baseRevisionOf(form);
 		if (base === null) return fail(400, { action: 'settings', values, errors: { form: 'The form lost its revision number; reload the page.' } as Record<string, string> });
 		const parsed = parseCameraSettings(values);
 		if (!parsed.ok) return fail(400, { action: 'settings', values, errors: parsed.errors as Record<string, string> });
-		const outcome = await saveChange(fetch, {
+		const outcome = await saveChange(locals.user, {
 			setupId: params.id,
 			baseRevision: base,
 			apply: (doc) => ({ ...doc, scene: { ...doc.scene, camera: { ...doc.scene.camera, ...parsed.value } } }),
-			message: 'Camera settings changed',
-			unitSystem: locals.user?.unitSystem ?? 'metric'
+			message: 'Camera settings changed'
 		});
 		return answer('settings', outcome, values, CAMERA_FIELDS, (path) => (path.includes('camera') ? (path.at(-1) ?? null) : null));
 	},
 
 	/** Title, subject and tags (saved as a revision too, so the history shows the rename). */
-	details: async ({ request, params, fetch, locals }) => {
+	details: async ({ request, params, locals }) => {
 		const form = await request.formData();
 		const values = { title: String(form.get('title') ?? ''), subject: String(form.get('subject') ?? ''), tags: String(form.get('tags') ?? '') };
 		const base = baseRevisionOf(form);
 		if (base === null) return fail(400, { action: 'details', values, errors: { form: 'The form lost its revision number; reload the page.' } as Record<string, string> });
 		if (!values.title.trim()) return fail(400, { action: 'details', values, errors: { title: 'Title must not be empty.' } as Record<string, string> });
-		const outcome = await saveChange(fetch, {
+		const outcome = await saveChange(locals.user, {
 			setupId: params.id,
 			baseRevision: base,
 			apply: (doc) => doc,
 			title: values.title.trim(),
 			subject: values.subject.trim(),
 			tags: parseTags(values.tags),
-			message: 'Title, subject or tags changed',
-			unitSystem: locals.user?.unitSystem ?? 'metric'
+			message: 'Title, subject or tags changed'
 		});
 		return answer('details', outcome, values, ['title', 'subject', 'tags'], (path) => path[0] ?? null);
 	},
 
 	/** To the trash: every revision is kept and the setup can be restored from the trash. */
-	delete: async ({ params, fetch, request }) => {
+	delete: async ({ params, locals, request }) => {
 		const form = await request.formData();
 		const title = String(form.get('title') ?? 'The setup');
-		const r = await callApi(fetch, `/api/v1/setups/${params.id}`, { method: 'DELETE' });
-		if (!r.ok) {
-			if (r.status === 401 || r.status === 403 || r.status === 404) error(r.status, r.message);
-			return fail(r.status, { action: 'delete', errors: { form: r.message } as Record<string, string> });
-		}
+		await trashSetup(locals.user, params.id);
 		redirect(303, `/setups?deleted=${encodeURIComponent(title)}`);
 	}
 };

@@ -1,10 +1,10 @@
 import { error, fail } from '@sveltejs/kit';
-import { can, studioAccess } from '$lib/server/authz';
+import { can, requireUser, studioAccess } from '$lib/server/authz';
 import { callApi, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
-import { getOrFail, requireSignedIn } from '$lib/notebook/load';
+import { getOrFail } from '$lib/notebook/load';
 
 export async function load({ params, fetch, url, locals }) {
-	const user = requireSignedIn(locals.user, url);
+	const user = requireUser(locals.user, url);
 	const id = encodeURIComponent(params.id);
 	const [setup, revisions] = await Promise.all([
 		getOrFail<SetupRecord & { canEdit?: boolean }>(fetch, `/api/v1/setups/${id}`, url),

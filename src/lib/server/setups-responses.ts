@@ -1,0 +1,150 @@
+// The setups API's answers: database rows turned into the JSON that API.md and the pages read.
+import type { SetupListRow, listRevisions, findRevision } from '$lib/server/db/queries/setups';
+import type { Setup } from '$lib/server/db/schema';
+import type { SetupAccess } from '$lib/server/authz';
+import { readStoredDocument, type ReadDocument } from '$lib/server/setups-documents';
+
+export interface SetupListItem {
+	id: string;
+	title: string;
+	subject: string;
+	tags: string[];
+	studioId: string;
+	studioName: string;
+	createdAt: string;
+	updatedAt: string;
+	revisionNumber: number;
+	derivedFrom: { setupId: string; revisionNumber: number } | null;
+	/** The revision whose plan thumbnail to show (GET …/revisions/:n/thumbnail), or null. */
+	thumbnailRevision: number | null;
+	gearIds: string[];
+	deletedAt?: string;
+	deletedByName?: string | null;
+}
+
+export function listItem(row: SetupListRow, trashed = false): SetupListItem {
+	return {
+		id: row.id,
+		title: row.title,
+		subject: row.subject,
+		tags: row.tags,
+		studioId: row.studioId,
+		studioName: row.studioName,
+		createdAt: row.createdAt.toISOString(),
+		updatedAt: row.updatedAt.toISOString(),
+		revisionNumber: row.revisionNumber,
+		derivedFrom:
+			row.derivedFromSetupId && row.derivedFromRevision
+				? { setupId: row.derivedFromSetupId, revisionNumber: row.derivedFromRevision }
+				: null,
+		thumbnailRevision: row.thumbnailRevision,
+		gearIds: row.gearIds,
+		...(trashed ? { deletedAt: row.deletedAt?.toISOString(), deletedByName: row.deletedByName } : {})
+	};
+}
+
+export interface SetupListPage {
+	items: SetupListItem[];
+	total: number;
+	page: number;
+	pageSize: number;
+}
+
+
+export interface SetupDetail extends ReadDocument {
+	id: string;
+	title: string;
+	subject: string;
+	tags: string[];
+	studioId: string;
+	studioName: string;
+	revisionNumber: number;
+	createdAt: string;
+	updatedAt: string;
+	derivedFrom: { setupId: string; revisionNumber: number; title?: string } | null;
+	derivatives: { id: string; title: string; subject: string; studioId: string; revisionNumber: number | null }[];
+	thumbnailRevision: number | null;
+	gearIds: string[];
+	/** What the caller may do here, so pages can offer only what will work. */
+	canEdit: boolean;
+	canDuplicate: boolean;
+}
+
+export function setupDetail(
+	{ setup, studioName, canEdit, canDuplicate }: SetupAccess,
+	read: ReadDocument,
+	derivedFrom: SetupDetail['derivedFrom'],
+	derivatives: SetupDetail['derivatives']
+): SetupDetail {
+	return {
+		id: setup.id,
+		title: setup.title,
+		subject: setup.subject,
+		tags: setup.tags,
+		studioId: setup.studioId,
+		studioName,
+		revisionNumber: setup.latestRevision,
+		createdAt: setup.createdAt.toISOString(),
+		updatedAt: setup.updatedAt.toISOString(),
+		...read,
+		derivedFrom,
+		derivatives,
+		thumbnailRevision: setup.thumbnailRevision,
+		gearIds: setup.gearIds,
+		canEdit,
+		canDuplicate
+	};
+}
+
+export interface RevisionSummary {
+	number: number;
+	authorName: string | null;
+	authorId: string | null;
+	createdAt: string;
+	message: string;
+	parentNumber: number | null;
+	restoredFrom: number | null;
+	title: string;
+	hasThumbnail: boolean;
+}
+
+export function revisionSummary(r: Awaited<ReturnType<typeof listRevisions>>[number]): RevisionSummary {
+	return {
+		number: r.number,
+		authorName: r.authorName,
+		authorId: r.authorId,
+		createdAt: r.createdAt.toISOString(),
+		message: r.message,
+		parentNumber: r.parentNumber,
+		restoredFrom: r.restoredFromNumber,
+		title: r.title,
+		hasThumbnail: r.hasThumbnail
+	};
+}
+
+export interface RevisionDetail extends ReadDocument, Omit<RevisionSummary, 'hasThumbnail'> {
+	setupId: string;
+	subject: string;
+	tags: string[];
+	hasThumbnail: boolean;
+	isLatest: boolean;
+}
+
+export function revisionDetail(setup: Setup, { revision: r, authorName }: NonNullable<Awaited<ReturnType<typeof findRevision>>>): RevisionDetail {
+	return {
+		setupId: setup.id,
+		number: r.number,
+		authorName,
+		authorId: r.authorId,
+		createdAt: r.createdAt.toISOString(),
+		message: r.message,
+		parentNumber: r.parentNumber,
+		restoredFrom: r.restoredFromNumber,
+		title: r.title,
+		subject: r.subject,
+		tags: r.tags,
+		hasThumbnail: r.thumbnailPng !== null,
+		isLatest: r.number === setup.latestRevision,
+		...readStoredDocument(r.document)
+	};
+}
