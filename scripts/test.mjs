@@ -55,7 +55,7 @@ function readJson(file) {
 }
 
 try {
-	const { env, child, origin } = await startStack(profile, stop, { fresh: true, quiet: true });
+	const { db, env, child, origin } = await startStack(profile, stop, { fresh: true, quiet: true });
 	const out = fs.createWriteStream(path.join(dataDir, 'test-app.log'));
 	child.stdout.pipe(out);
 	child.stderr.pipe(out);

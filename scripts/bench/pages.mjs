@@ -3,7 +3,7 @@
 // notebook list and a seeded setup page in alternating rounds on the same server, and compares each
 // page's requests per second with the home page's (a page that only renders the layout). Goals: the
 // setup page ≥ 0.4 × the home page, the notebook list ≥ 0.6 ×.
-import { randomBytes } from 'node:crypto';
+import { createHash, randomBytes } from 'node:crypto';
 import autocannon from 'autocannon';
 import postgres from 'postgres';
 
@@ -34,10 +34,12 @@ async function check(url, cookie, marker) {
 export async function run({ baseUrl, databaseUrl, log = console.log }) {
 	const sql = postgres(databaseUrl, { max: 1, onnotice: () => {} });
 	const sessionToken = randomBytes(32).toString('hex');
+	// The sessions table keeps the SHA-256 of the cookie's token (see hashed-sessions.ts).
+	const tokenHash = createHash('sha256').update(sessionToken).digest('hex');
 	try {
 		const [user] = await sql`select id, name from users where email = ${SEEDED_USER}`;
 		if (!user) throw new Error(`the seed has no ${SEEDED_USER}`);
-		await sql`insert into sessions (session_token, user_id, expires) values (${sessionToken}, ${user.id}, now() + interval '1 hour')`;
+		await sql`insert into sessions (session_token, user_id, expires) values (${tokenHash}, ${user.id}, now() + interval '1 hour')`;
 		// The seeded setup with the most revisions in the user's shared studio: the page with the most to show.
 		const [setup] = await sql`
 			select s.id, s.title from setups s
@@ -83,7 +85,7 @@ export async function run({ baseUrl, databaseUrl, log = console.log }) {
 		}
 		return { connections: CONNECTIONS, figures, ratios, goals: GOALS, met: met.notebook && met.setup };
 	} finally {
-		await sql`delete from sessions where session_token = ${sessionToken}`.catch(() => {});
+		await sql`delete from sessions where session_token = ${tokenHash}`.catch(() => {});
 		await sql.end({ timeout: 5 });
 	}
 }

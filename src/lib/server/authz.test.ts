@@ -2,22 +2,22 @@
 // action must change the database as asked; each refused one must be refused with the right status and
 // leave the database exactly as it was.
 import { afterAll, describe, expect, it } from 'vitest';
-import { isHttpError, isRedirect } from '@sveltejs/kit';
 import { randomUUID } from 'node:crypto';
-import { asc, eq } from 'drizzle-orm';
+import { eq } from 'drizzle-orm';
 
 if (!process.env.DATABASE_URL) {
 	throw new Error('DATABASE_URL is not set: these tests run against the real PostgreSQL (run them through `npm test`).');
 }
 
 const { client, db } = await import('$lib/server/db');
-const { invitations, memberships, studios, users } = await import('$lib/server/db/schema');
-const { ensurePersonalStudio } = await import('$lib/server/db/queries/studios');
-const { toSessionUser } = await import('$lib/server/db/queries/users');
-const { hashSecret, newSecret } = await import('$lib/server/tokens');
-const { RuleViolation } = await import('$lib/server/errors');
+const { invitations, studios } = await import('$lib/server/db/schema');
 const authz = await import('$lib/server/authz');
 const studioRules = await import('$lib/server/studios');
+const { attempt, makeUser, makeWorld, ROLES, snapshot } = await import('$lib/server/testing/authz-world');
+type World = import('$lib/server/testing/authz-world').World;
+type Role = import('$lib/server/testing/authz-world').Role;
+type Snapshot = import('$lib/server/testing/authz-world').Snapshot;
+type Outcome = import('$lib/server/testing/authz-world').Outcome;
 
 type SessionUser = import('$lib/server/session').SessionUser;
 type Capability = import('$lib/server/authz').Capability;
@@ -25,89 +25,6 @@ type Capability = import('$lib/server/authz').Capability;
 afterAll(async () => {
 	await client.end({ timeout: 5 });
 });
-
-// ── helpers: our own users and studios, with random addresses, so no test leans on another or on the seed
-
-async function makeUser(label: string, isAdmin = false): Promise<SessionUser> {
-	const email = `${label}+${randomUUID().slice(0, 8)}@fernhill.example`;
-	const [row] = await db.insert(users).values({ email, name: label, isAdmin, emailVerified: new Date() }).returning();
-	await ensurePersonalStudio(row.id, label);
-	return toSessionUser(row);
-}
-
-const ROLES = ['none', 'viewer', 'editor', 'owner', 'admin'] as const;
-type Role = (typeof ROLES)[number];
-
-interface World {
-	studioId: string;
-	founder: SessionUser;
-	actor: SessionUser;
-	/** A viewer who is not the actor: the one whose role is changed or who is removed. */
-	target: SessionUser;
-	targetMembershipId: string;
-	invitationId: string;
-}
-
-/** A shared studio with a founding owner, a viewer, one open invitation and the actor in `role`. */
-async function makeWorld(role: Role): Promise<World> {
-	const founder = await makeUser('mara.quill');
-	const target = await makeUser('tobias.wren');
-	const actor = await makeUser(`actor.${role}`, role === 'admin');
-	const [studio] = await db.insert(studios).values({ name: `Fernhill Geology Circle ${randomUUID().slice(0, 6)}` }).returning();
-	await db.insert(memberships).values({ studioId: studio.id, userId: founder.id, role: 'owner' });
-	const [targetMembership] = await db
-		.insert(memberships)
-		.values({ studioId: studio.id, userId: target.id, role: 'viewer' })
-		.returning();
-	if (role === 'viewer' || role === 'editor' || role === 'owner') {
-		await db.insert(memberships).values({ studioId: studio.id, userId: actor.id, role });
-	}
-	const [invitation] = await db
-		.insert(invitations)
-		.values({
-			studioId: studio.id,
-			email: `ines.marlow+${randomUUID().slice(0, 8)}@fernhill.example`,
-			role: 'viewer',
-			tokenHash: hashSecret(newSecret()),
-			invitedById: founder.id,
-			expiresAt: new Date(Date.now() + 24 * 3600_000)
-		})
-		.returning();
-	return {
-		studioId: studio.id,
-		founder,
-		actor,
-		target,
-		targetMembershipId: targetMembership.id,
-		invitationId: invitation.id
-	};
-}
-
-async function snapshot(studioId: string) {
-	const [studio] = await db.select().from(studios).where(eq(studios.id, studioId));
-	const members = await db
-		.select({ id: memberships.id, userId: memberships.userId, role: memberships.role })
-		.from(memberships)
-		.where(eq(memberships.studioId, studioId))
-		.orderBy(asc(memberships.id));
-	const invites = await db.select().from(invitations).where(eq(invitations.studioId, studioId)).orderBy(asc(invitations.id));
-	return { studio, members, invites };
-}
-type Snapshot = Awaited<ReturnType<typeof snapshot>>;
-
-type Outcome = 'ok' | 401 | 403 | 404 | 'rule';
-
-async function attempt<T>(work: () => Promise<T>): Promise<{ outcome: Outcome; result?: T; error?: unknown }> {
-	try {
-		return { outcome: 'ok', result: await work() };
-	} catch (e) {
-		if (isHttpError(e) && (e.status === 401 || e.status === 403 || e.status === 404)) {
-			return { outcome: e.status, error: e };
-		}
-		if (e instanceof RuleViolation) return { outcome: 'rule', error: e };
-		throw e;
-	}
-}
 
 // ── the actions, what each does to the database when it is allowed
 
@@ -331,101 +248,3 @@ describe('personal studios', () => {
 });
 
 // ── setups and gear: authorizeSetup and authorizeGear, the same roles against one setup and one gear item
-
-describe('authorizeSetup and authorizeGear: role × capability', () => {
-	const { authorizeGear, authorizeSetup, requireUser } = authz;
-
-	async function worldWithSetupAndGear(role: Role) {
-		const w = await makeWorld(role);
-		const { createSetup } = await import('$lib/server/setups');
-		const { createGear } = await import('$lib/server/gear');
-		const { setupCreateSchema } = await import('$lib/scene/inputs');
-		const { sampleDocument } = await import('$lib/server/testing/notebook-fixtures');
-		const setup = await createSetup(
-			w.founder,
-			setupCreateSchema.parse({ studioId: w.studioId, title: 'Ammonite on slate', subject: 'Ammonite', document: sampleDocument() })
-		);
-		const gearItem = await createGear(w.founder, {
-			studioId: w.studioId,
-			kind: 'reflector',
-			name: 'White card',
-			spec: { widthM: 0.2, heightM: 0.3, reflectance: 0.9, surface: 'diffuse' },
-			notes: ''
-		});
-		return { ...w, setupId: setup.id, gearId: gearItem.id };
-	}
-
-	/** Issue 2's roles applied to setups and gear: viewers read, editors and owners edit, strangers see nothing. */
-	const EXPECTED_ITEM: Record<'view' | 'edit', Record<Role, Outcome>> = {
-		view: { none: 404, viewer: 'ok', editor: 'ok', owner: 'ok', admin: 'ok' },
-		edit: { none: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok' }
-	};
-
-	for (const role of ROLES) {
-		it(`${role}: a setup and a gear item answer as the role allows, and say whether the caller may edit`, async () => {
-			const w = await worldWithSetupAndGear(role);
-			for (const level of ['view', 'edit'] as const) {
-				const expected = EXPECTED_ITEM[level][role];
-				const setup = await attempt(() => authorizeSetup(w.actor, w.setupId, level === 'view' ? 'setups.view' : 'setups.edit'));
-				const gearItem = await attempt(() => authorizeGear(w.actor, w.gearId, level === 'view' ? 'gear.view' : 'gear.edit'));
-				expect(setup.outcome, `setup ${level}`).toBe(expected);
-				expect(gearItem.outcome, `gear ${level}`).toBe(expected);
-				if (expected === 'ok') {
-					expect(setup.result!.setup.id).toBe(w.setupId);
-					expect(setup.result!.access.studioId).toBe(w.studioId);
-					expect(gearItem.result!.row.id).toBe(w.gearId);
-				}
-			}
-			if (role !== 'none') {
-				const mayEdit = role !== 'viewer';
-				const { result } = await attempt(() => authorizeSetup(w.actor, w.setupId, 'setups.view'));
-				expect(result!.canEdit).toBe(mayEdit);
-				expect(result!.canDuplicate).toBe(true);
-				expect(result!.studioName).toMatch(/^Fernhill Geology Circle/);
-				const g = await attempt(() => authorizeGear(w.actor, w.gearId, 'gear.view'));
-				expect(g.result!.canEdit).toBe(mayEdit);
-			}
-		});
-	}
-
-	it('anonymous callers get 401; a malformed or unknown id is the same 404 as a setup out of sight', async () => {
-		const w = await worldWithSetupAndGear('none');
-		expect((await attempt(() => authorizeSetup(null, w.setupId, 'setups.view'))).outcome).toBe(401);
-		expect((await attempt(() => authorizeGear(null, w.gearId, 'gear.view'))).outcome).toBe(401);
-		const outOfSight = await attempt(() => authorizeSetup(w.actor, w.setupId, 'setups.view'));
-		const unknown = await attempt(() => authorizeSetup(w.founder, randomUUID(), 'setups.view'));
-		const malformed = await attempt(() => authorizeSetup(w.founder, "1' or '1'='1", 'setups.view'));
-		for (const r of [outOfSight, unknown, malformed]) {
-			expect(r.outcome).toBe(404);
-			expect((r.error as { body: { message: string } }).body.message).toBe('No such setup.');
-		}
-		expect((await attempt(() => authorizeGear(w.founder, 'not-a-uuid', 'gear.view'))).outcome).toBe(404);
-	});
-
-	it('a setup in the trash is a 404 unless the trash is asked for; a deleted studio hides its setups from everyone', async () => {
-		const w = await worldWithSetupAndGear('admin');
-		const { trashSetup } = await import('$lib/server/setups');
-		await trashSetup(w.founder, w.setupId);
-		expect((await attempt(() => authorizeSetup(w.founder, w.setupId, 'setups.view'))).outcome).toBe(404);
-		expect((await attempt(() => authorizeSetup(w.founder, w.setupId, 'setups.edit', { includeTrashed: true }))).outcome).toBe('ok');
-		await db.update(studios).set({ deletedAt: new Date() }).where(eq(studios.id, w.studioId));
-		for (const who of [w.founder, w.actor]) {
-			expect((await attempt(() => authorizeSetup(who, w.setupId, 'setups.view', { includeTrashed: true }))).outcome).toBe(404);
-		}
-	});
-
-	it('requireUser: the caller when signed in; 401 for services, a redirect to sign in and back for pages', async () => {
-		const user = await makeUser('mara.quill');
-		expect(requireUser(user)).toBe(user);
-		expect(requireUser(user, new URL('http://127.0.0.1/setups'))).toBe(user);
-		expect((await attempt(async () => requireUser(null))).outcome).toBe(401);
-		try {
-			requireUser(null, new URL('http://127.0.0.1/setups?q=quartz&page=2'));
-			expect.unreachable('an anonymous page visit must be redirected');
-		} catch (e) {
-			expect(isRedirect(e)).toBe(true);
-			expect((e as { status: number; location: string }).status).toBe(303);
-			expect((e as { location: string }).location).toBe(`/signin?callbackUrl=${encodeURIComponent('/setups?q=quartz&page=2')}`);
-		}
-	});
-});

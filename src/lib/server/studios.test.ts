@@ -1,10 +1,10 @@
 // Studio rules on the real database and through the running app: a studio always keeps an owner (also
-// when two owners act at once), an invitation works once and not after it expires, sign-in and
-// invitation requests are rate-limited with a clear message, and a malformed e-mail changes nothing.
+// when two owners act at once), an invitation works once and not after it expires, invitation requests
+// are rate-limited with a clear message, and a malformed e-mail changes nothing. Sign-in link requests:
+// signin-requests.test.ts.
 import { afterAll, describe, expect, it } from 'vitest';
 import { isHttpError } from '@sveltejs/kit';
-import { randomUUID } from 'node:crypto';
-import { and, asc, count, eq, sql } from 'drizzle-orm';
+import { and, count, eq, sql } from 'drizzle-orm';
 
 const BASE = process.env.TEST_BASE_URL;
 if (!process.env.DATABASE_URL) {
@@ -15,82 +15,20 @@ if (!BASE || !process.env.DEV_MAIL_URL) {
 }
 
 const { client, db } = await import('$lib/server/db');
-const { invitations, memberships, rateLimitHits, sessions, studios, users, verificationTokens } = await import(
-	'$lib/server/db/schema'
-);
-const { ensurePersonalStudio, listOpenInvitations } = await import('$lib/server/db/queries/studios');
+const { invitations, studios, users } = await import('$lib/server/db/schema');
+const { listOpenInvitations } = await import('$lib/server/db/queries/studios');
 const { toSessionUser } = await import('$lib/server/db/queries/users');
 const { RuleViolation } = await import('$lib/server/errors');
 const studioRules = await import('$lib/server/studios');
-const { hashSecret } = await import('$lib/server/tokens');
+const { address, context, invitationLink, mailsTo, makeStudio, makeUser, membersOf, ownersOf, post, refusal, sessionCookie } = await import(
+	'$lib/server/testing/studio-world'
+);
 
 type SessionUser = import('$lib/server/session').SessionUser;
-type StudioRole = import('$lib/server/db/schema').StudioRole;
-type Refusal = InstanceType<typeof RuleViolation> | Error;
 
 afterAll(async () => {
 	await client.end({ timeout: 5 });
 });
-
-const tag = () => randomUUID().slice(0, 8);
-const address = (name: string) => `${name}+${tag()}@fernhill.example`;
-const context = () => ({ origin: BASE!, ip: `studios-test-${randomUUID()}` });
-
-async function makeUser(name: string): Promise<SessionUser> {
-	const [row] = await db.insert(users).values({ email: address(name), name, emailVerified: new Date() }).returning();
-	await ensurePersonalStudio(row.id, name);
-	return toSessionUser(row);
-}
-
-/** A shared studio whose members have the given roles, in order. */
-async function makeStudio(roles: StudioRole[]) {
-	const [studio] = await db.insert(studios).values({ name: `Fernhill Geology Circle ${tag()}` }).returning();
-	const people: { user: SessionUser; membershipId: string }[] = [];
-	for (const [i, role] of roles.entries()) {
-		const user = await makeUser(['mara.quill', 'tobias.wren', 'ines.marlow', 'pebble.finch'][i % 4]);
-		const [m] = await db.insert(memberships).values({ studioId: studio.id, userId: user.id, role }).returning();
-		people.push({ user, membershipId: m.id });
-	}
-	return { studioId: studio.id, people };
-}
-
-async function membersOf(studioId: string) {
-	return db
-		.select({ id: memberships.id, userId: memberships.userId, role: memberships.role })
-		.from(memberships)
-		.where(eq(memberships.studioId, studioId))
-		.orderBy(asc(memberships.id));
-}
-
-async function ownersOf(studioId: string) {
-	return (await membersOf(studioId)).filter((m) => m.role === 'owner').length;
-}
-
-async function refusal(work: () => Promise<unknown>): Promise<Refusal> {
-	try {
-		await work();
-	} catch (e) {
-		if (e instanceof RuleViolation || isHttpError(e)) return e as Error;
-		throw e;
-	}
-	throw new Error('expected the request to be refused, but it went through');
-}
-
-/** The invitation token as the invitee would read it in the mail fake. */
-async function invitationLink(email: string): Promise<string> {
-	for (let i = 0; i < 50; i++) {
-		const messages = (await (await fetch(`${process.env.DEV_MAIL_URL}/messages`)).json()) as { to: string; text: string }[];
-		const hit = messages.find((m) => m.to.includes(email) && m.text.includes('/invitations/'));
-		if (hit) return hit.text.match(/https?:\/\/\S+\/invitations\/(\S+)/)![1];
-		await new Promise((r) => setTimeout(r, 100));
-	}
-	throw new Error(`no invitation mail to ${email}`);
-}
-
-async function mailsTo(email: string): Promise<number> {
-	const messages = (await (await fetch(`${process.env.DEV_MAIL_URL}/messages`)).json()) as { to: string }[];
-	return messages.filter((m) => m.to.includes(email)).length;
-}
 
 describe('a studio always keeps at least one owner', () => {
 	it('the only owner cannot remove, demote or take themselves out, and nothing changes', async () => {
@@ -316,122 +254,6 @@ describe('invitations', () => {
 		const [{ n }] = await db.select({ n: count() }).from(invitations).where(eq(invitations.email, email));
 		expect(n).toBe(5);
 		expect(await mailsTo(email)).toBe(5);
-	});
-});
-
-// ── through the running app, as a browser or a script would call it
-
-/** A form post as a browser without JavaScript sends it (so SvelteKit answers with the page, not JSON). */
-function post(path: string, form: Record<string, string>, cookie?: string) {
-	return fetch(new URL(path, BASE), {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			origin: BASE!,
-			accept: 'text/html',
-			'content-type': 'application/x-www-form-urlencoded',
-			...(cookie ? { cookie } : {})
-		},
-		body: new URLSearchParams(form)
-	});
-}
-
-async function sessionCookie(user: SessionUser): Promise<string> {
-	const token = randomUUID();
-	await db.insert(sessions).values({ sessionToken: hashSecret(token), userId: user.id, expires: new Date(Date.now() + 3600_000) });
-	return `authjs.session-token=${token}`;
-}
-
-async function signInTraces(email: string) {
-	const [tokens] = await db.select({ n: count() }).from(verificationTokens).where(eq(verificationTokens.identifier, email));
-	const [hits] = await db.select({ n: count() }).from(rateLimitHits).where(eq(rateLimitHits.bucket, `signin:addr:${email}`));
-	const [accounts] = await db.select({ n: count() }).from(users).where(eq(users.email, email));
-	return { tokens: tokens.n, rateLimitHits: hits.n, users: accounts.n, mails: await mailsTo(email) };
-}
-
-describe('sign-in link requests', () => {
-	it('the 6th request for one address within 15 minutes is refused and the page says why', async () => {
-		const email = address('pebble.finch');
-		for (let i = 1; i <= 5; i++) {
-			const res = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
-			expect(res.status, `request ${i}`).toBe(302);
-			expect(res.headers.get('location')).toMatch(/\/verify-request/);
-		}
-		const refused = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
-		expect(refused.status).toBe(303);
-		const location = new URL(refused.headers.get('location')!, BASE);
-		expect(location.pathname).toBe('/signin');
-		expect(location.searchParams.get('error')).toBe('RateLimited');
-
-		const page = await (await fetch(location)).text();
-		expect(page).toContain('Too many sign-in links were asked for just now. Wait 15 minutes, then try again.');
-		// The address is kept in the field, so nothing typed is lost.
-		expect(page).toContain(`value="${email}"`);
-
-		const traces = await signInTraces(email);
-		expect(traces.tokens).toBe(5);
-		expect(traces.mails).toBe(5);
-
-		// The limit is per address: another address from the same machine still gets its link.
-		const other = address('ines.marlow');
-		const ok = await post('/auth/signin/nodemailer', { email: other, callbackUrl: '/studios' });
-		expect(ok.status).toBe(302);
-		expect(ok.headers.get('location')).toMatch(/\/verify-request/);
-	});
-
-	for (const bad of ['pebble.finch', 'pebble.finch@fernhill', 'pebble finch@fernhill.example', '']) {
-		it(`a malformed address (${JSON.stringify(bad)}) gets a clear message and changes nothing`, async () => {
-			const before = await signInTraces(bad.toLowerCase());
-			const res = await post('/auth/signin/nodemailer', { email: bad, callbackUrl: '/invitations/abc' });
-			expect(res.status).toBe(303);
-			const location = new URL(res.headers.get('location')!, BASE);
-			expect(location.pathname).toBe('/signin');
-			expect(location.searchParams.get('error')).toBe('InvalidEmail');
-			// Where the person was going is kept, so fixing the address still lands them there.
-			expect(location.searchParams.get('callbackUrl')).toBe('/invitations/abc');
-			const page = await (await fetch(location)).text();
-			expect(page).toContain('That is not an e-mail address. It should look like name@example.org.');
-			expect(page).toContain('value="/invitations/abc"');
-			expect(await signInTraces(bad.toLowerCase())).toEqual(before);
-		});
-	}
-
-	it('the answer is the same whether or not the address has an account', async () => {
-		const known = await makeUser('mara.quill');
-		const unknown = address('mara.quill');
-		const answers = [];
-		for (const email of [known.email, unknown]) {
-			const res = await post('/auth/signin/nodemailer', { email, callbackUrl: '/studios' });
-			answers.push({ status: res.status, location: res.headers.get('location'), body: await res.text() });
-		}
-		expect(answers[0]).toEqual(answers[1]);
-		expect(answers[0].location).toMatch(/\/verify-request/);
-		// Asking for a link makes no account; following it does.
-		const [{ n }] = await db.select({ n: count() }).from(users).where(eq(users.email, unknown));
-		expect(n).toBe(0);
-	});
-
-	it('a burst of simultaneous requests cannot get past the limit', async () => {
-		const { hitRateLimits } = await import('$lib/server/db/queries/rate-limits');
-		const bucket = `signin:addr:${address('pebble.finch')}`;
-		const rules = [{ bucket, limit: 5, windowMs: 15 * 60_000 }];
-		const answers = await Promise.all(Array.from({ length: 12 }, () => hitRateLimits(rules)));
-		expect(answers.filter((a) => a.allowed)).toHaveLength(5);
-		expect(answers.filter((a) => !a.allowed).every((a) => a.retryAfterS > 0)).toBe(true);
-		const [{ n }] = await db.select({ n: count() }).from(rateLimitHits).where(eq(rateLimitHits.bucket, bucket));
-		expect(n).toBe(5);
-	});
-
-	it('a form post from another origin is refused (403) and sends nothing', async () => {
-		const email = address('pebble.finch');
-		const res = await fetch(new URL('/auth/signin/nodemailer', BASE), {
-			method: 'POST',
-			redirect: 'manual',
-			headers: { origin: 'http://evil.example', 'content-type': 'application/x-www-form-urlencoded' },
-			body: new URLSearchParams({ email })
-		});
-		expect(res.status).toBe(403);
-		expect(await signInTraces(email)).toEqual({ tokens: 0, rateLimitHits: 0, users: 0, mails: 0 });
 	});
 });
 

@@ -21,7 +21,23 @@ export const errorAnswer = z.object({
 	})
 });
 
-export const staleSaveAnswer = errorAnswer.extend({ latestRevision: revisionNumber });
+export const staleSaveAnswer = errorAnswer.extend({
+	latestRevision: revisionNumber,
+	conflict: z
+		.object({
+			baseRevision: revisionNumber,
+			latestRevision: revisionNumber,
+			revisions: z.array(z.object({ number: revisionNumber, authorName: text.nullable(), createdAt: text, message: text.nullable() })),
+			changes: z.array(text).describe('what the saves since the base changed, in words'),
+			latestNotes: text,
+			notesSinceBase: z.array(z.object({ op: z.enum(['same', 'added', 'removed']), line: text })),
+			latestTitle: text,
+			latestSubject: text,
+			latestTags: z.array(text)
+		})
+		.optional()
+		.describe('the saves made since `baseRevision` and what they changed, when that could be told')
+});
 
 // ---------- the calculation API ----------
 
@@ -162,7 +178,11 @@ export const untrashedAnswer = z.object({ id, revisionNumber });
 const storedDocument = {
 	document: setupDocumentSchema,
 	migratedFrom: z.int().optional().describe('the schemaVersion it was stored in, when older'),
-	documentIssues: z.array(z.object({ path: z.array(z.union([text, num])), message: text })).optional()
+	documentIssues: z.array(z.object({ path: z.array(z.union([text, num])), message: text })).optional(),
+	documentTrimmed: z
+		.array(z.array(text))
+		.optional()
+		.describe('paths of parts nested too deep to show (stored before the depth limit), left out of `document`')
 };
 
 export const setupAnswer = z.object({

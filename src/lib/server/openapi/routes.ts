@@ -306,5 +306,13 @@ export const API_ROUTES: ApiRoute[] = [
 		access: 'development',
 		summary: 'The messages the local mail fake received, newest first (404 when the fake is off)',
 		answer: { status: 200, description: 'The mailbox', schema: answers.devMailAnswer }
+	},
+	{
+		method: 'get',
+		path: '/api/dev/fail',
+		group: GROUPS.dev.name,
+		access: 'development',
+		summary: 'Fails the way a bug would: a 500 in the error shape with an errorId (404 where the mailbox is closed)',
+		answer: { status: 500, description: 'Always an error', schema: answers.errorAnswer }
 	}
 ];
