@@ -144,7 +144,9 @@ export function apiReference(document: JsonSchema): GroupView[] {
 	const groups: GroupView[] = doc.tags.map((t) => ({ name: t.name, description: t.description, operations: [] }));
 	for (const [path, operations] of Object.entries(doc.paths)) {
 		for (const [method, op] of Object.entries(operations)) {
-			const [status, answer] = Object.entries(op.responses).find(([code]) => code.startsWith('2'))!;
+			// The answer a route is for: its 2xx, or for a route that only fails (`/api/dev/fail`) its one answer.
+			const responses = Object.entries(op.responses);
+			const [status, answer] = responses.find(([code]) => code.startsWith('2')) ?? responses[0];
 			const answerMedia = answer.content ? Object.keys(answer.content)[0] : null;
 			const bodyMedia = op.requestBody ? Object.keys(op.requestBody.content) : [];
 			const view: OperationView = {
@@ -174,8 +176,8 @@ export function apiReference(document: JsonSchema): GroupView[] {
 					mediaType: answerMedia,
 					fields: answerMedia ? fieldsOf(answer.content![answerMedia].schema ?? {}, resolve) : []
 				},
-				refusals: Object.entries(op.responses)
-					.filter(([code]) => !code.startsWith('2'))
+				refusals: responses
+					.filter(([code]) => code !== status)
 					.map(([code, r]) => ({ status: code, description: r.description }))
 			};
 			groups.find((g) => g.name === op.tags?.[0])?.operations.push(view);

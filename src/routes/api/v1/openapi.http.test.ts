@@ -63,6 +63,7 @@ describe('the published API', () => {
 		await call('get', '/api/v1/health');
 		await call('get', '/api/v1/openapi.json');
 		await call('get', '/api/dev/mail');
+		await call('get', '/api/dev/fail');
 
 		const shelf = await call('post', '/api/v1/gear', {}, { kind: 'flash', name: 'Kestrel 40', spec: { guideNumberM: 40, lowestPower: 1 / 128, syncSpeedS: 1 / 250 } });
 		await call('get', '/api/v1/gear');
