@@ -9,7 +9,7 @@ const stop = stopper();
 stop.exitOnSignals(0);
 
 try {
-	const { seeded, child, origin } = await startStack(profiles.dev, stop, { mail: !process.env.EMAIL_SERVER });
+	const { seeded, child, origin, mail } = await startStack(profiles.dev, stop, { mail: !process.env.EMAIL_SERVER });
 	child.on('exit', (code) => {
 		if (!stop.stopping) {
 			log(`the app stopped (exit ${code})`);

@@ -212,5 +212,5 @@ export async function startStack(profile, stop, { fresh = false, mail = true, bu
 	const env = appEnv(profile, { ...db, mail: mailFake });
 	const { child, origin } = await serve(profile, env, { quiet });
 	stop.add(() => stopChild(child));
-	return { db, seeded, env, child, origin };
+	return { db, seeded, env, child, origin, mail: mailFake };
 }
