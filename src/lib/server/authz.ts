@@ -4,6 +4,7 @@ import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { memberships, setups, studios, type Setup, type StudioRole, type TokenScope } from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
+import type { StudioFilter } from '$lib/server/db/queries/visibility';
 import type { SessionUser } from '$lib/server/session';
 import { isUuid } from '$lib/uuid';
 
@@ -116,6 +117,15 @@ export async function studiosWith(user: SessionUser, capability: Capability): Pr
 		.innerJoin(studios, eq(studios.id, memberships.studioId))
 		.where(and(eq(memberships.userId, user.id), isNull(studios.deletedAt)));
 	return mine.filter((m) => ROLE_CAPABILITIES[m.role].has(capability)).map((m) => m.studioId);
+}
+
+/**
+ * The same answer as `studiosWith`, as a filter a query applies in the database (no query of its
+ * own): every studio for a site admin, else the studios where the caller's role allows `capability`.
+ */
+export function studioFilter(user: SessionUser, capability: Capability): StudioFilter {
+	if (user.isAdmin) return 'all';
+	return { userId: user.id, roles: ROLE_ORDER.filter((role) => ROLE_CAPABILITIES[role].has(capability)) };
 }
 
 export const SETUP_NOT_FOUND = 'No such setup.';

@@ -12,13 +12,6 @@ import { blankDocument } from '$lib/notebook/load';
 import { setupListQuerySchema } from '$lib/scene/inputs';
 import { importQuerySchema, MAX_EXPORT_BYTES } from '$lib/scene/export';
 
-interface GearOption {
-	id: string;
-	name: string;
-	kind: string;
-	studioId: string;
-}
-
 /** A refusal (a studio filter the caller may not see) becomes the list's message, not an error page. */
 async function orRefusal<T>(work: Promise<T>): Promise<{ ok: true; data: T } | { ok: false; message: string }> {
 	try {
@@ -36,11 +29,7 @@ export async function load({ locals, url }) {
 	const shelves = query.studio ? studios.filter((s) => s.id === query.studio) : studios;
 	// The same question the browser's search-as-you-type asks the API, read by the API's own schema.
 	const listQuery = setupListQuerySchema.parse(Object.fromEntries(new URLSearchParams(apiSearch(query))));
-	const [list, shelfItems] = await Promise.all([
-		orRefusal(listSetupsFor(user, listQuery)),
-		listGearOnShelves(user, shelves.map((s) => s.id))
-	]);
-	const gear: GearOption[] = shelfItems.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId }));
+	const [list, gear] = await Promise.all([orRefusal(listSetupsFor(user, listQuery)), listGearOnShelves(user, shelves.map((s) => s.id))]);
 	return {
 		query,
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role })),

@@ -4,6 +4,7 @@ import { alias } from 'drizzle-orm/pg-core';
 import { db, type Tx } from '../index';
 import { setupRevisions, setups, studioSetupCounts, studios, users } from '../schema';
 import type { SetupListQuery } from '$lib/scene/inputs';
+import { inStudiosOf, type StudioFilter } from './visibility';
 
 type Runner = typeof db | Tx;
 
@@ -127,6 +128,21 @@ export async function findRevision(setupId: string, number: number) {
 	return row ?? null;
 }
 
+/** What a page shows of a revision: its document, who saved it, when and why; not the thumbnail. */
+export async function findRevisionDocument(setupId: string, number: number) {
+	const [row] = await db
+		.select({
+			document: setupRevisions.document,
+			createdAt: setupRevisions.createdAt,
+			message: setupRevisions.message,
+			authorName: sql<string | null>`coalesce(${users.name}, ${users.email})`
+		})
+		.from(setupRevisions)
+		.leftJoin(users, eq(users.id, setupRevisions.authorId))
+		.where(and(eq(setupRevisions.setupId, setupId), eq(setupRevisions.number, number)));
+	return row ?? null;
+}
+
 /** Every revision of a setup, newest first, without documents or thumbnails. */
 export async function listRevisions(setupId: string) {
 	return db
@@ -155,9 +171,8 @@ export async function revisionThumbnail(setupId: string, number: number) {
 	return row?.png ?? null;
 }
 
-/** Live setups duplicated from this one, in the given studios. */
-export async function listDerivatives(setupId: string, studioIds: string[] | 'all') {
-	if (studioIds !== 'all' && studioIds.length === 0) return [];
+/** Live setups duplicated from this one, in the studios the filter lets through. */
+export async function listDerivatives(setupId: string, visible: StudioFilter) {
 	return db
 		.select({
 			id: setups.id,
@@ -168,15 +183,18 @@ export async function listDerivatives(setupId: string, studioIds: string[] | 'al
 		})
 		.from(setups)
 		.innerJoin(studios, eq(studios.id, setups.studioId))
-		.where(
-			and(
-				eq(setups.derivedFromSetupId, setupId),
-				isNull(setups.deletedAt),
-				isNull(studios.deletedAt),
-				studioIds === 'all' ? undefined : inArray(setups.studioId, studioIds)
-			)
-		)
+		.where(and(eq(setups.derivedFromSetupId, setupId), isNull(setups.deletedAt), isNull(studios.deletedAt), inStudiosOf(setups.studioId, visible)))
 		.orderBy(asc(setups.createdAt), asc(setups.id));
+}
+
+/** The title of a live setup in a studio the filter lets through, or null. */
+export async function visibleSetupTitle(setupId: string, visible: StudioFilter): Promise<string | null> {
+	const [row] = await db
+		.select({ title: setups.title })
+		.from(setups)
+		.innerJoin(studios, eq(studios.id, setups.studioId))
+		.where(and(eq(setups.id, setupId), isNull(setups.deletedAt), isNull(studios.deletedAt), inStudiosOf(setups.studioId, visible)));
+	return row?.title ?? null;
 }
 
 export interface RevisionContent {
