@@ -108,20 +108,10 @@ function refused(capability: Capability): never {
 	error(403, `Your role in this studio does not allow that (${capability}).`);
 }
 
-/** The studios whose setups or gear the caller may use with `capability`: ids, or 'all' for a site admin. */
-export async function studiosWith(user: SessionUser, capability: Capability): Promise<string[] | 'all'> {
-	if (user.isAdmin) return 'all';
-	const mine = await db
-		.select({ studioId: memberships.studioId, role: memberships.role })
-		.from(memberships)
-		.innerJoin(studios, eq(studios.id, memberships.studioId))
-		.where(and(eq(memberships.userId, user.id), isNull(studios.deletedAt)));
-	return mine.filter((m) => ROLE_CAPABILITIES[m.role].has(capability)).map((m) => m.studioId);
-}
-
 /**
- * The same answer as `studiosWith`, as a filter a query applies in the database (no query of its
- * own): every studio for a site admin, else the studios where the caller's role allows `capability`.
+ * The studios whose setups or gear the caller may use with `capability`, as a filter a query applies
+ * in the database (no query of its own): every studio for a site admin, else the live studios where
+ * the caller's role allows `capability`.
  */
 export function studioFilter(user: SessionUser, capability: Capability): StudioFilter {
 	if (user.isAdmin) return 'all';

@@ -11,7 +11,6 @@ import {
 	requireUser,
 	SETUP_NOT_FOUND,
 	studioFilter,
-	studiosWith,
 	type StudioAccess
 } from '$lib/server/authz';
 import { RuleViolation } from '$lib/server/errors';
@@ -73,7 +72,7 @@ async function staleSave(user: SessionUser, setupId: string, baseRevision: numbe
 /** The notebook: setups of one studio (`query.studio`) or of every studio the caller can view. */
 export async function listSetupsFor(user: SessionUser | null, query: SetupListQuery): Promise<SetupListPage> {
 	const signedIn = requireUser(user);
-	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.view')).studioId] : await studiosWith(signedIn, 'setups.view');
+	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.view')).studioId] : studioFilter(signedIn, 'setups.view');
 	const { items, total } = await listSetups({ ...query, gearId: query.gear, studioIds });
 	return { items: items.map((r) => listItem(r)), total, page: query.page, pageSize: query.pageSize };
 }
@@ -81,7 +80,7 @@ export async function listSetupsFor(user: SessionUser | null, query: SetupListQu
 /** The trash: deleted setups of one studio, or of every studio where the caller may edit (and so restore). */
 export async function listTrash(user: SessionUser | null, query: SetupListQuery): Promise<SetupListPage> {
 	const signedIn = requireUser(user);
-	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.edit')).studioId] : await studiosWith(signedIn, 'setups.edit');
+	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.edit')).studioId] : studioFilter(signedIn, 'setups.edit');
 	const { items, total } = await listSetups({ ...query, gearId: query.gear, studioIds, trashed: true });
 	return { items: items.map((r) => listItem(r, true)), total, page: query.page, pageSize: query.pageSize };
 }
