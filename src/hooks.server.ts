@@ -3,7 +3,6 @@ import { redirect, type Handle } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from './auth';
 import { emailSchema } from '$lib/schemas/account';
-import { getUserById } from '$lib/server/db/queries/users';
 import { userForAccessToken } from '$lib/server/db/queries/tokens';
 import { hitRateLimits, type RateRule } from '$lib/server/db/queries/rate-limits';
 import { tokenMayReach, tokenMayUse } from '$lib/server/authz';
@@ -93,13 +92,10 @@ const identify: Handle = async ({ event, resolve }) => {
 		event.locals.user = found.user;
 		event.locals.authMethod = 'token';
 	} else if (SESSION_COOKIES.some((name) => event.cookies.get(name))) {
-		// Only ask Auth.js (and the database) when a session cookie is present.
+		// Only ask Auth.js (and the database) when a session cookie is present; its one lookup brings the user.
 		const session = await event.locals.auth();
-		const id = session?.user?.id;
-		if (id) {
-			event.locals.user = await getUserById(id);
-			event.locals.authMethod = event.locals.user ? 'session' : null;
-		}
+		event.locals.user = session?.caller ?? null;
+		event.locals.authMethod = event.locals.user ? 'session' : null;
 	}
 	return resolve(event);
 };

@@ -1,7 +1,7 @@
 /**
- * Calling the setups API from the notebook pages: `load` functions and form actions pass SvelteKit's
- * `event.fetch` (in-process, with the caller's session cookie), the browser passes its own `fetch`.
- * The pages depend only on the API contract (/api/v1/openapi.json), never on the server's internal functions.
+ * Calling the setups API from the browser (the save panel, the notebook's search as you type, the
+ * editor's new-setup page): one client and one error parser, for the contract in /api/v1/openapi.json.
+ * Server code calls the services in `$lib/server` instead.
  */
 import type { SetupDocument } from '$lib/scene/document';
 

@@ -4,6 +4,7 @@ import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { memberships, setups, studios, type Setup, type StudioRole, type TokenScope } from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
+import type { StudioFilter } from '$lib/server/db/queries/visibility';
 import type { SessionUser } from '$lib/server/session';
 import { isUuid } from '$lib/uuid';
 
@@ -107,15 +108,14 @@ function refused(capability: Capability): never {
 	error(403, `Your role in this studio does not allow that (${capability}).`);
 }
 
-/** The studios whose setups or gear the caller may use with `capability`: ids, or 'all' for a site admin. */
-export async function studiosWith(user: SessionUser, capability: Capability): Promise<string[] | 'all'> {
+/**
+ * The studios whose setups or gear the caller may use with `capability`, as a filter a query applies
+ * in the database (no query of its own): every studio for a site admin, else the live studios where
+ * the caller's role allows `capability`.
+ */
+export function studioFilter(user: SessionUser, capability: Capability): StudioFilter {
 	if (user.isAdmin) return 'all';
-	const mine = await db
-		.select({ studioId: memberships.studioId, role: memberships.role })
-		.from(memberships)
-		.innerJoin(studios, eq(studios.id, memberships.studioId))
-		.where(and(eq(memberships.userId, user.id), isNull(studios.deletedAt)));
-	return mine.filter((m) => ROLE_CAPABILITIES[m.role].has(capability)).map((m) => m.studioId);
+	return { userId: user.id, roles: ROLE_ORDER.filter((role) => ROLE_CAPABILITIES[role].has(capability)) };
 }
 
 export const SETUP_NOT_FOUND = 'No such setup.';

@@ -1,9 +1,9 @@
 // The gear shelf's rules: authz first, then the named queries; every spec checked against its kind.
 import { error } from '@sveltejs/kit';
-import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser, studiosWith } from '$lib/server/authz';
+import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser, studioFilter, type StudioAccess } from '$lib/server/authz';
 import type { SessionUser } from '$lib/server/session';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
-import { insertGearRow, listGearRows, updateGearRow } from '$lib/server/db/queries/gear';
+import { insertGearRow, listGearOptions, listGearRows, updateGearRow, type GearOption } from '$lib/server/db/queries/gear';
 import type { Gear } from '$lib/server/db/schema';
 import { parseGearSpec, type GearCreateInput, type GearKind, type GearUpdateInput } from '$lib/scene/gear';
 import { InputError } from '$lib/server/setups-documents';
@@ -48,15 +48,21 @@ export async function listGear(
 	const signedIn = requireUser(user);
 	const studioId = await studioOrPersonal(signedIn, options.studioId);
 	const access = await authorizeStudio(signedIn, studioId, 'gear.view');
-	const rows = await listGearRows(studioId, options);
-	return { studioId, canEdit: can(access, 'gear.edit'), items: rows.map(gearItem) };
+	return { studioId, canEdit: can(access, 'gear.edit'), items: await shelfOf(access, options) };
 }
 
-/** The shelves of several studios in one list, leaving out any the caller may not see. */
-export async function listGearOnShelves(user: SessionUser | null, studioIds: string[]): Promise<GearItem[]> {
-	const visible = await studiosWith(requireUser(user), 'gear.view');
-	const rows = await listGearRows(visible === 'all' ? studioIds : studioIds.filter((id) => visible.includes(id)));
-	return rows.map(gearItem);
+/**
+ * The shelf of a studio whose access authz has already answered (the setup page has it from
+ * `setupOverview`), so the page asks no second time; empty when the role may not see gear.
+ */
+export async function shelfOf(access: StudioAccess, options: { kind?: GearKind; includeRetired?: boolean } = {}): Promise<GearItem[]> {
+	if (!can(access, 'gear.view')) return [];
+	return (await listGearRows(access.studioId, options)).map(gearItem);
+}
+
+/** The gear on several shelves by name, for choosing one (the notebook's gear filter), leaving out any shelf the caller may not see. */
+export async function listGearOnShelves(user: SessionUser | null, studioIds: string[]): Promise<GearOption[]> {
+	return listGearOptions(studioIds, studioFilter(requireUser(user), 'gear.view'));
 }
 
 export async function getGear(user: SessionUser | null, gearId: string): Promise<GearItem & { canEdit: boolean }> {

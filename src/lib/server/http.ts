@@ -18,16 +18,26 @@ export function apiError(
 	return json({ error: { message, issues }, ...extra } satisfies ApiErrorBody, { status });
 }
 
-/** API.md's 400 answer (/api/v1/openapi.json) naming every field at fault; the message names the first. */
-export function invalidInput(issues: { path: string[]; message: string }[]) {
+/** The message of a 400 for bad input: it names the first field at fault. */
+export function invalidInputMessage(issues: { path: string[]; message: string }[]): string {
 	const first = issues[0];
 	const where = first && first.path.length ? `${first.path.join('.')}: ` : '';
-	return apiError(400, `Invalid input. ${where}${first?.message ?? 'check the body'}`, issues);
+	return `Invalid input. ${where}${first?.message ?? 'check the body'}`;
+}
+
+/** API.md's 400 answer (/api/v1/openapi.json) naming every field at fault; the message names the first. */
+export function invalidInput(issues: { path: string[]; message: string }[]) {
+	return apiError(400, invalidInputMessage(issues), issues);
+}
+
+/** A zod error's issues with their paths as text, as the API's error body and the forms name fields. */
+export function zodIssues(error: z.ZodError): { path: string[]; message: string }[] {
+	return error.issues.map((issue) => ({ path: issue.path.map(String), message: issue.message }));
 }
 
 /** Turns a zod error into API.md's 400 answer, naming every field at fault. */
 export function zodErrorResponse(error: z.ZodError) {
-	return invalidInput(error.issues.map((issue) => ({ path: issue.path.map(String), message: issue.message })));
+	return invalidInput(zodIssues(error));
 }
 
 /** The media type of a request's body, lower-case without parameters; null when not given. */
@@ -127,8 +137,6 @@ export async function readBodyText(request: Request, maxBytes: number): Promise<
 	}
 }
 
-type IssueList = { path: string[]; message: string }[];
-
 /**
  * Wraps a JSON route handler so that a refusal thrown with SvelteKit's `error()` (401, 403, 404, …) or a
  * `RuleViolation` becomes the API's error body with the same status. A RuleViolation may carry `issues`
@@ -145,9 +153,8 @@ export function apiRoute<E extends RequestEvent>(handler: (event: E) => Response
 		} catch (e) {
 			if (isHttpError(e)) return apiError(e.status, e.body.message);
 			if (e instanceof RuleViolation) {
-				const detail = e as RuleViolation & { issues?: IssueList; extra?: Record<string, unknown> };
-				const issues = detail.issues ?? (e.field ? [{ path: [e.field], message: e.message }] : []);
-				return apiError(e.status, e.message, issues, detail.extra ?? {});
+				const extra = (e as RuleViolation & { extra?: Record<string, unknown> }).extra;
+				return apiError(e.status, e.message, e.issues, extra ?? {});
 			}
 			throw e;
 		}

@@ -28,11 +28,8 @@ export class StaleRevisionError extends RuleViolation {
 
 /** Bad input found below the edge (a gear id the shelf does not know, an import file): 400 with issues. */
 export class InputError extends RuleViolation {
-	constructor(
-		message: string,
-		readonly issues: DocumentIssue[]
-	) {
-		super(message, issues[0]?.path.join('.') || null, 400);
+	constructor(message: string, issues: DocumentIssue[]) {
+		super(message, issues[0]?.path.join('.') || null, 400, issues);
 	}
 }
 

@@ -10,7 +10,8 @@ import {
 	can,
 	requireUser,
 	SETUP_NOT_FOUND,
-	studiosWith
+	studioFilter,
+	type StudioAccess
 } from '$lib/server/authz';
 import { RuleViolation } from '$lib/server/errors';
 import type { SessionUser } from '$lib/server/session';
@@ -18,14 +19,15 @@ import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import {
 	appendRevision,
 	findRevision,
-	findSetup,
+	findRevisionDocument,
 	insertSetup,
 	listDerivatives,
 	listRevisions,
 	listSetups,
 	revisionThumbnail,
 	trashSetupRow,
-	untrashSetupRow
+	untrashSetupRow,
+	visibleSetupTitle
 } from '$lib/server/db/queries/setups';
 import type { Setup } from '$lib/server/db/schema';
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
@@ -70,7 +72,7 @@ async function staleSave(user: SessionUser, setupId: string, baseRevision: numbe
 /** The notebook: setups of one studio (`query.studio`) or of every studio the caller can view. */
 export async function listSetupsFor(user: SessionUser | null, query: SetupListQuery): Promise<SetupListPage> {
 	const signedIn = requireUser(user);
-	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.view')).studioId] : await studiosWith(signedIn, 'setups.view');
+	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.view')).studioId] : studioFilter(signedIn, 'setups.view');
 	const { items, total } = await listSetups({ ...query, gearId: query.gear, studioIds });
 	return { items: items.map((r) => listItem(r)), total, page: query.page, pageSize: query.pageSize };
 }
@@ -78,7 +80,7 @@ export async function listSetupsFor(user: SessionUser | null, query: SetupListQu
 /** The trash: deleted setups of one studio, or of every studio where the caller may edit (and so restore). */
 export async function listTrash(user: SessionUser | null, query: SetupListQuery): Promise<SetupListPage> {
 	const signedIn = requireUser(user);
-	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.edit')).studioId] : await studiosWith(signedIn, 'setups.edit');
+	const studioIds = query.studio ? [(await authorizeStudio(signedIn, query.studio, 'setups.edit')).studioId] : studioFilter(signedIn, 'setups.edit');
 	const { items, total } = await listSetups({ ...query, gearId: query.gear, studioIds, trashed: true });
 	return { items: items.map((r) => listItem(r, true)), total, page: query.page, pageSize: query.pageSize };
 }
@@ -88,16 +90,16 @@ export async function listTrash(user: SessionUser | null, query: SetupListQuery)
 
 /** Lineage as the caller may see it: where the setup came from (its title only if they may see it), what came from it. */
 async function lineageOf(user: SessionUser, setup: Setup) {
-	const visible = await studiosWith(user, 'setups.view');
+	const visible = studioFilter(user, 'setups.view');
 	const derived = setup.derivedFromSetupId && setup.derivedFromRevision ? { setupId: setup.derivedFromSetupId, revisionNumber: setup.derivedFromRevision } : null;
-	const [origin, derivatives] = await Promise.all([derived ? findSetup(derived.setupId) : null, listDerivatives(setup.id, visible)]);
-	let derivedFrom: SetupDetail['derivedFrom'] = derived;
-	if (derived && origin && (visible === 'all' || visible.includes(origin.setup.studioId))) derivedFrom = { ...derived, title: origin.setup.title };
+	const [originTitle, derivatives] = await Promise.all([derived ? visibleSetupTitle(derived.setupId, visible) : null, listDerivatives(setup.id, visible)]);
+	const derivedFrom: SetupDetail['derivedFrom'] = derived && originTitle !== null ? { ...derived, title: originTitle } : derived;
 	return { derivedFrom, derivatives };
 }
 
+/** The latest revision's document, author, time and message (not its thumbnail). */
 async function latestRevision(setup: Setup) {
-	const latest = await findRevision(setup.id, setup.latestRevision);
+	const latest = await findRevisionDocument(setup.id, setup.latestRevision);
 	if (!latest) error(404, SETUP_NOT_FOUND);
 	return latest;
 }
@@ -105,7 +107,7 @@ async function latestRevision(setup: Setup) {
 export async function getSetup(user: SessionUser | null, setupId: string): Promise<SetupDetail> {
 	const access = await authorizeSetup(user, setupId, 'setups.view');
 	const [latest, { derivedFrom, derivatives }] = await Promise.all([latestRevision(access.setup), lineageOf(user!, access.setup)]);
-	return setupDetail(access, readStoredDocument(latest.revision.document), derivedFrom, derivatives);
+	return setupDetail(access, readStoredDocument(latest.document), derivedFrom, derivatives);
 }
 
 export interface SetupOverview {
@@ -115,19 +117,22 @@ export interface SetupOverview {
 	exposure: (ExposureResult & { revisionNumber: number }) | null;
 	/** Why there is no exposure (the latest document fails today's checks, or gives a non-finite number). */
 	exposureError: string | null;
+	/** The caller's standing in the setup's studio, as authz answered it (e.g. for its gear shelf). */
+	access: StudioAccess;
 }
 
 /** What the setup page shows, asked of authz once: the setup, its latest revision and that revision's exposure. */
 export async function setupOverview(user: SessionUser | null, setupId: string): Promise<SetupOverview> {
 	const access = await authorizeSetup(user, setupId, 'setups.view');
 	const [latest, { derivedFrom, derivatives }] = await Promise.all([latestRevision(access.setup), lineageOf(user!, access.setup)]);
-	const setup = setupDetail(access, readStoredDocument(latest.revision.document), derivedFrom, derivatives);
+	const setup = setupDetail(access, readStoredDocument(latest.document), derivedFrom, derivatives);
 	const computed = exposureOf(setup, setup.revisionNumber);
 	return {
 		setup,
-		latest: { authorName: latest.authorName, createdAt: latest.revision.createdAt.toISOString(), message: latest.revision.message },
+		latest: { authorName: latest.authorName, createdAt: latest.createdAt.toISOString(), message: latest.message },
 		exposure: computed.ok ? { ...computed.result, revisionNumber: setup.revisionNumber } : null,
-		exposureError: computed.ok ? null : computed.message
+		exposureError: computed.ok ? null : computed.message,
+		access: access.access
 	};
 }
 

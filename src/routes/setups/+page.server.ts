@@ -3,21 +3,14 @@ import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { listSetupsFor } from '$lib/server/setups';
 import { listGearOnShelves } from '$lib/server/gear';
-import { callApi } from '$lib/notebook/api';
-import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
+import { attempt, parseInput } from '$lib/server/actions';
+import { createSetupFromForm } from '$lib/server/setups-changes';
+import { importSetup } from '$lib/server/setups-export';
+import { readNewSetupForm } from '$lib/notebook/create';
 import { apiSearch, readListQuery } from '$lib/notebook/list-query';
 import { blankDocument } from '$lib/notebook/load';
 import { setupListQuerySchema } from '$lib/scene/inputs';
-
-/** A setup file is at most 1 MiB (the setups API's import limit). */
-const MAX_FILE_BYTES = 1024 * 1024;
-
-interface GearOption {
-	id: string;
-	name: string;
-	kind: string;
-	studioId: string;
-}
+import { importQuerySchema, MAX_EXPORT_BYTES } from '$lib/scene/export';
 
 /** A refusal (a studio filter the caller may not see) becomes the list's message, not an error page. */
 async function orRefusal<T>(work: Promise<T>): Promise<{ ok: true; data: T } | { ok: false; message: string }> {
@@ -36,11 +29,7 @@ export async function load({ locals, url }) {
 	const shelves = query.studio ? studios.filter((s) => s.id === query.studio) : studios;
 	// The same question the browser's search-as-you-type asks the API, read by the API's own schema.
 	const listQuery = setupListQuerySchema.parse(Object.fromEntries(new URLSearchParams(apiSearch(query))));
-	const [list, shelfItems] = await Promise.all([
-		orRefusal(listSetupsFor(user, listQuery)),
-		listGearOnShelves(user, shelves.map((s) => s.id))
-	]);
-	const gear: GearOption[] = shelfItems.map(({ id, name, kind, studioId }) => ({ id, name, kind, studioId }));
+	const [list, gear] = await Promise.all([orRefusal(listSetupsFor(user, listQuery)), listGearOnShelves(user, shelves.map((s) => s.id))]);
 	return {
 		query,
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal, role: s.role })),
@@ -51,16 +40,16 @@ export async function load({ locals, url }) {
 }
 
 export const actions = {
-	/** New setup: a small form (studio, title, subject) → POST /api/v1/setups with a minimal document. */
-	create: async ({ request, fetch }) => {
+	/** New setup: a small form (studio, title, subject) → a setup with a minimal document. */
+	create: async ({ request, locals }) => {
 		const values = readNewSetupForm(await request.formData());
-		const r = await createSetupFrom(fetch, values, blankDocument());
+		const r = await createSetupFromForm(locals.user, values, blankDocument());
 		if (!r.ok) return fail(r.status, { action: 'create', values, errors: r.errors });
 		redirect(303, `/setups/${r.id}?created=1`);
 	},
 
-	/** Import: a setup file from an export → POST /api/v1/setups/import; a bad file creates nothing. */
-	import: async ({ request, fetch }) => {
+	/** Import: a setup file from an export, as POST /api/v1/setups/import takes it; a bad file creates nothing. */
+	import: async ({ request, locals }) => {
 		const form = await request.formData();
 		const studioId = String(form.get('studioId') ?? '');
 		const file = form.get('file');
@@ -68,22 +57,20 @@ export const actions = {
 		if (!(file instanceof File) || file.size === 0) {
 			return fail(400, { action: 'import', values, errors: { file: file instanceof File && file.name ? `“${file.name}” is empty.` : 'Choose a setup file to import.' } });
 		}
-		if (file.size > MAX_FILE_BYTES) {
+		if (file.size > MAX_EXPORT_BYTES) {
 			return fail(400, {
 				action: 'import',
 				values,
-				errors: { file: `“${file.name}” is too large (${Math.ceil(file.size / 1024)} KiB); a setup file is at most ${MAX_FILE_BYTES / 1024} KiB.` }
+				errors: { file: `“${file.name}” is too large (${Math.ceil(file.size / 1024)} KiB); a setup file is at most ${MAX_EXPORT_BYTES / 1024} KiB.` }
 			});
 		}
 		const text = await file.text();
-		const r = await callApi<{ id: string }>(fetch, `/api/v1/setups/import${studioId ? `?studio=${encodeURIComponent(studioId)}` : ''}`, {
-			method: 'POST',
-			rawBody: text
-		});
+		const query = parseInput(importQuerySchema, { studio: studioId || undefined });
+		const r = query.ok ? await attempt(() => importSetup(locals.user, text, { studioId: query.data.studio })) : query;
 		if (!r.ok) {
 			const details = r.issues.filter((i) => i.path.length).slice(0, 8).map((i) => `${i.path.join('.')}: ${i.message}`);
 			const where = r.issues.some((i) => i.path[0] === 'studio') ? 'studioId' : 'file';
-			return fail(r.status === 413 ? 400 : r.status, {
+			return fail(r.status, {
 				action: 'import',
 				values,
 				errors: { [where]: `“${file.name}”: ${r.message}` } as Record<string, string>,

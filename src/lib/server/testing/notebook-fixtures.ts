@@ -2,6 +2,7 @@
 // and a personal access token, a studio with one member per role, and a small valid setup document.
 // Everything is made directly in the test database that `npm test` set up; nothing is mocked.
 import { randomBytes } from 'node:crypto';
+import * as devalue from 'devalue';
 import { expect } from 'vitest';
 import { db } from '$lib/server/db';
 import { memberships, sessions, studios, users, type StudioRole } from '$lib/server/db/schema';
@@ -139,4 +140,31 @@ export function expectErrorBody(answer: ApiAnswer, status: number, field?: strin
 		const paths = (answer.body.error.issues as { path: string[] }[]).map((i) => i.path.join('.'));
 		expect(paths, `issues should name ${field}`).toContain(field);
 	}
+}
+
+export interface ActionAnswer {
+	/** SvelteKit's result type: `success`, `failure`, `redirect` or `error`. */
+	type: 'success' | 'failure' | 'redirect' | 'error';
+	/** The action's status: fail()'s, error()'s, or the redirect's. */
+	status: number;
+	location?: string;
+	/** What `fail()` or a success returned, decoded as the page's script decodes it. */
+	data?: any;
+	error?: { message: string };
+}
+
+/**
+ * A named form action posted as `use:enhance` posts it (SvelteKit answers JSON with the action's result),
+ * signed in with `who`'s session cookie. `form` may hold files.
+ */
+export async function postAction(path: string, form: Record<string, string> | FormData, who?: TestUser): Promise<ActionAnswer> {
+	const res = await fetch(`${baseUrl()}${path}`, {
+		method: 'POST',
+		redirect: 'manual',
+		headers: { origin: baseUrl(), accept: 'application/json', 'x-sveltekit-action': 'true', ...(who ? { cookie: who.cookie } : {}) },
+		body: form instanceof FormData ? form : new URLSearchParams(form)
+	});
+	const body = await res.json();
+	const status = body.type === 'error' ? res.status : body.status;
+	return { type: body.type, status, location: body.location, data: body.data ? devalue.parse(body.data) : undefined, error: body.error };
 }

@@ -2,16 +2,16 @@ import { error, fail, redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
 import { setupOverview, trashSetup } from '$lib/server/setups';
 import { saveChange, type SaveOutcome } from '$lib/server/setups-changes';
-import { listGear } from '$lib/server/gear';
+import { shelfOf } from '$lib/server/gear';
 import { elementLabels } from '$lib/notebook/load';
 import { renderNotes } from '$lib/notebook/markdown';
 import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/settings';
 
 export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
-	const { setup, latest, exposure, exposureError } = await setupOverview(user, params.id);
-	// The studio's modifiers, offered in the editor beside the presets.
-	const shelf = await listGear(user, { studioId: setup.studioId, kind: 'modifier' });
+	const { setup, latest, exposure, exposureError, access } = await setupOverview(user, params.id);
+	// The studio's modifiers, offered in the editor beside the presets: only what the editor reads.
+	const shelf = (await shelfOf(access, { kind: 'modifier' })).map(({ id, kind, name, spec }) => ({ id, kind, name, spec }));
 	return {
 		setup: {
 			id: setup.id,
@@ -38,7 +38,7 @@ export async function load({ params, url, locals }) {
 		canEdit: setup.canEdit,
 		canDuplicate: setup.canDuplicate,
 		unitSystem: user.unitSystem,
-		shelf: shelf.items
+		shelf
 	};
 }
 

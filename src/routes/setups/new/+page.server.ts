@@ -3,7 +3,8 @@ import { requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
 import { listGear } from '$lib/server/gear';
 import { blankDocument } from '$lib/notebook/load';
-import { createSetupFrom, readNewSetupForm } from '$lib/notebook/create';
+import { readNewSetupForm } from '$lib/notebook/create';
+import { createSetupFromForm } from '$lib/server/setups-changes';
 
 /** A new setup in the editor: the empty plan, and the studios the user may add setups to. */
 export async function load({ locals, url }) {
@@ -23,9 +24,9 @@ export async function load({ locals, url }) {
 
 export const actions = {
 	/** Without JavaScript: the setup is made with the empty plan; the editor then opens on it. */
-	create: async ({ request, fetch }) => {
+	create: async ({ request, locals }) => {
 		const values = readNewSetupForm(await request.formData());
-		const r = await createSetupFrom(fetch, values, blankDocument());
+		const r = await createSetupFromForm(locals.user, values, blankDocument());
 		if (!r.ok) return fail(r.status, { values, errors: r.errors });
 		redirect(303, `/setups/${r.id}?created=1`);
 	}

@@ -1,7 +1,8 @@
 // Named queries for the gear shelf. Callers have asked authz first (src/lib/server/gear.ts).
 import { and, asc, eq, inArray, isNull, sql } from 'drizzle-orm';
 import { db } from '../index';
-import { gear, type NewGear } from '../schema';
+import { gear, type Gear, type NewGear } from '../schema';
+import { inStudiosOf, type StudioFilter } from './visibility';
 import type { GearKind } from '$lib/scene/gear';
 
 /** The shelf of one studio, or of several at once (`studioIds` an array). */
@@ -17,6 +18,18 @@ export async function listGearRows(studioIds: string | string[], { kind, include
 				includeRetired ? undefined : isNull(gear.retiredAt)
 			)
 		)
+		.orderBy(asc(gear.kind), asc(gear.name), asc(gear.id));
+}
+
+export type GearOption = Pick<Gear, 'id' | 'name' | 'kind' | 'studioId'>;
+
+/** Live gear of several shelves, only what a list of choices shows, in the studios the filter lets through. */
+export async function listGearOptions(studioIds: string[], visible: StudioFilter): Promise<GearOption[]> {
+	if (studioIds.length === 0) return [];
+	return db
+		.select({ id: gear.id, name: gear.name, kind: gear.kind, studioId: gear.studioId })
+		.from(gear)
+		.where(and(inArray(gear.studioId, studioIds), isNull(gear.retiredAt), inStudiosOf(gear.studioId, visible)))
 		.orderBy(asc(gear.kind), asc(gear.name), asc(gear.id));
 }
 

@@ -1,15 +1,16 @@
 // Named queries for setups and their revisions. Callers have asked authz first (src/lib/server/setups.ts).
 import { and, asc, count, desc, eq, inArray, isNotNull, isNull, sql, type SQL } from 'drizzle-orm';
-import { alias } from 'drizzle-orm/pg-core';
+import { alias, type PgColumn } from 'drizzle-orm/pg-core';
 import { db, type Tx } from '../index';
 import { setupRevisions, setups, studioSetupCounts, studios, users } from '../schema';
 import type { SetupListQuery } from '$lib/scene/inputs';
+import { inStudiosOf, type StudioFilter } from './visibility';
 
 type Runner = typeof db | Tx;
 
 export interface SetupListFilter extends Pick<SetupListQuery, 'q' | 'tag' | 'subject' | 'sort' | 'order' | 'page' | 'pageSize'> {
-	/** The studios to list from; 'all' for a site admin without a studio filter. */
-	studioIds: string[] | 'all';
+	/** The studios to list from: named ones (asked of authz), or those a caller may see ('all' for a site admin). */
+	studioIds: string[] | StudioFilter;
 	gearId?: string;
 	/** List the trash instead of the live setups. */
 	trashed?: boolean;
@@ -27,18 +28,23 @@ export function searchWords(q: string | undefined): string[] {
 }
 
 /**
- * Named studios were checked by authz, which sees only studios that are not deleted; with 'all' (a site
- * admin) deleted studios are left out here, which needs the join to studios.
+ * Named studios were checked by authz, which sees only studios that are not deleted, and a caller's
+ * filter keeps only live studios; with 'all' (a site admin) deleted studios are left out here, which
+ * needs the join to studios.
  */
 function listConditions(filter: SetupListFilter): SQL[] {
 	const where: SQL[] = [filter.trashed ? isNotNull(setups.deletedAt) : isNull(setups.deletedAt)];
 	if (filter.studioIds === 'all') where.push(isNull(studios.deletedAt));
-	else where.push(inArray(setups.studioId, filter.studioIds));
+	else where.push(studiosCondition(setups.studioId, filter.studioIds)!);
 	for (const word of searchWords(filter.q)) where.push(sql`${setups.searchText} like ${likePattern(word)}`);
 	if (filter.tag) where.push(sql`${setups.tags} @> array[${filter.tag}]::text[]`);
 	if (filter.subject) where.push(sql`${setups.subject} ilike ${likePattern(filter.subject)}`);
 	if (filter.gearId) where.push(sql`${setups.gearIds} @> array[${filter.gearId}]::uuid[]`);
 	return where;
+}
+
+function studiosCondition(studioId: PgColumn, studioIds: string[] | StudioFilter) {
+	return Array.isArray(studioIds) ? inArray(studioId, studioIds) : inStudiosOf(studioId, studioIds);
 }
 
 function listOrder(filter: SetupListFilter) {
@@ -53,7 +59,7 @@ const deletedBy = alias(users, 'deleted_by');
 /** One page of setups and the total that match. The page walks the list index with a limit; the total
  * comes from countSetups. The two run side by side. */
 export async function listSetups(filter: SetupListFilter) {
-	if (filter.studioIds !== 'all' && filter.studioIds.length === 0) return { items: [], total: 0 };
+	if (Array.isArray(filter.studioIds) && filter.studioIds.length === 0) return { items: [], total: 0 };
 	const where = and(...listConditions(filter));
 	const page = db
 		.select({
@@ -95,7 +101,7 @@ async function countSetups(filter: SetupListFilter, where: SQL | undefined): Pro
 		const [row] = await db
 			.select({ n: sql<number>`coalesce(sum(${column}), 0)::int` })
 			.from(studioSetupCounts)
-			.where(inArray(studioSetupCounts.studioId, filter.studioIds));
+			.where(studiosCondition(studioSetupCounts.studioId, filter.studioIds));
 		return row.n;
 	}
 	const counted = db.select({ n: count() }).from(setups);
@@ -119,6 +125,21 @@ export async function findRevision(setupId: string, number: number) {
 	const [row] = await db
 		.select({
 			revision: setupRevisions,
+			authorName: sql<string | null>`coalesce(${users.name}, ${users.email})`
+		})
+		.from(setupRevisions)
+		.leftJoin(users, eq(users.id, setupRevisions.authorId))
+		.where(and(eq(setupRevisions.setupId, setupId), eq(setupRevisions.number, number)));
+	return row ?? null;
+}
+
+/** What a page shows of a revision: its document, who saved it, when and why; not the thumbnail. */
+export async function findRevisionDocument(setupId: string, number: number) {
+	const [row] = await db
+		.select({
+			document: setupRevisions.document,
+			createdAt: setupRevisions.createdAt,
+			message: setupRevisions.message,
 			authorName: sql<string | null>`coalesce(${users.name}, ${users.email})`
 		})
 		.from(setupRevisions)
@@ -155,9 +176,8 @@ export async function revisionThumbnail(setupId: string, number: number) {
 	return row?.png ?? null;
 }
 
-/** Live setups duplicated from this one, in the given studios. */
-export async function listDerivatives(setupId: string, studioIds: string[] | 'all') {
-	if (studioIds !== 'all' && studioIds.length === 0) return [];
+/** Live setups duplicated from this one, in the studios the filter lets through. */
+export async function listDerivatives(setupId: string, visible: StudioFilter) {
 	return db
 		.select({
 			id: setups.id,
@@ -168,15 +188,18 @@ export async function listDerivatives(setupId: string, studioIds: string[] | 'al
 		})
 		.from(setups)
 		.innerJoin(studios, eq(studios.id, setups.studioId))
-		.where(
-			and(
-				eq(setups.derivedFromSetupId, setupId),
-				isNull(setups.deletedAt),
-				isNull(studios.deletedAt),
-				studioIds === 'all' ? undefined : inArray(setups.studioId, studioIds)
-			)
-		)
+		.where(and(eq(setups.derivedFromSetupId, setupId), isNull(setups.deletedAt), isNull(studios.deletedAt), inStudiosOf(setups.studioId, visible)))
 		.orderBy(asc(setups.createdAt), asc(setups.id));
+}
+
+/** The title of a live setup in a studio the filter lets through, or null. */
+export async function visibleSetupTitle(setupId: string, visible: StudioFilter): Promise<string | null> {
+	const [row] = await db
+		.select({ title: setups.title })
+		.from(setups)
+		.innerJoin(studios, eq(studios.id, setups.studioId))
+		.where(and(eq(setups.id, setupId), isNull(setups.deletedAt), isNull(studios.deletedAt), inStudiosOf(setups.studioId, visible)));
+	return row?.title ?? null;
 }
 
 export interface RevisionContent {

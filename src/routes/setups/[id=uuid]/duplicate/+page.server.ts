@@ -1,8 +1,10 @@
 import { error, fail, redirect } from '@sveltejs/kit';
-import { requireUser } from '$lib/server/authz';
+import { authorizeSetup, requireUser } from '$lib/server/authz';
 import { myStudios } from '$lib/server/studios';
-import { callApi, issuesByField, type SetupRecord } from '$lib/notebook/api';
-import { getOrFail } from '$lib/notebook/load';
+import { duplicateSetup } from '$lib/server/setups';
+import { attempt, parseInput } from '$lib/server/actions';
+import { issuesByField } from '$lib/notebook/api';
+import { setupDuplicateSchema } from '$lib/scene/inputs';
 
 /** Studios where the caller may make setups: only those are offered as the copy's home. */
 async function editableStudios(user: Parameters<typeof myStudios>[0]) {
@@ -10,23 +12,23 @@ async function editableStudios(user: Parameters<typeof myStudios>[0]) {
 	return studios.filter((s) => s.role === 'owner' || s.role === 'editor').map((s) => ({ id: s.id, name: s.name, personal: s.personal }));
 }
 
-export async function load({ params, fetch, url, locals }) {
+export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
-	const setup = await getOrFail<SetupRecord & { canDuplicate?: boolean; canEdit?: boolean }>(fetch, `/api/v1/setups/${encodeURIComponent(params.id)}`, url);
-	if (setup.canDuplicate === false) error(403, 'Your role in this studio does not allow duplicating its setups.');
+	const { setup, canDuplicate } = await authorizeSetup(user, params.id, 'setups.view');
+	if (!canDuplicate) error(403, 'Your role in this studio does not allow duplicating its setups.');
 	const studios = await editableStudios(user);
 	// The copy stays beside the original when the caller may edit there; else it goes to their own studio.
 	const here = studios.find((s) => s.id === setup.studioId);
 	const defaultStudioId = here?.id ?? studios.find((s) => s.personal)?.id ?? studios[0]?.id ?? '';
 	return {
-		setup: { id: setup.id, title: setup.title, subject: setup.subject, revisionNumber: setup.revisionNumber, tags: setup.tags },
+		setup: { id: setup.id, title: setup.title, subject: setup.subject, revisionNumber: setup.latestRevision, tags: setup.tags },
 		studios,
 		defaultStudioId
 	};
 }
 
 export const actions = {
-	default: async ({ request, params, fetch }) => {
+	default: async ({ request, params, locals }) => {
 		const form = await request.formData();
 		const values = {
 			subject: String(form.get('subject') ?? '').trim(),
@@ -38,10 +40,8 @@ export const actions = {
 		if (!values.title) errors.title = 'Give the copy a title.';
 		if (!values.studioId) errors.studioId = 'Choose the studio the copy goes to.';
 		if (Object.keys(errors).length) return fail(400, { values, errors });
-		const r = await callApi<{ id: string }>(fetch, `/api/v1/setups/${encodeURIComponent(params.id)}/duplicate`, {
-			method: 'POST',
-			body: { subject: values.subject, title: values.title, studioId: values.studioId }
-		});
+		const input = parseInput(setupDuplicateSchema, values);
+		const r = input.ok ? await attempt(() => duplicateSetup(locals.user, params.id, input.data)) : input;
 		if (!r.ok) {
 			if (r.status === 401) error(401, r.message);
 			// A studio the caller may not edit in answers 403/404: say so beside the studio field.
