@@ -118,7 +118,8 @@ export function compareDocuments(a: ComparableDocument, b: ComparableDocument, o
 	const lightsA = new Map(a.scene.lights.map((l) => [l.id, l]));
 	for (const lb of b.scene.lights) {
 		const la = lightsA.get(lb.id);
-		if (la && la.kind === lb.kind) altered.push(...lightPropertyChanges(la, lb, labelOf(lb.id), units));
+		if (la && la.kind === lb.kind)
+			altered.push(...lightPropertyChanges(la, lb, labelOf(lb.id), units, { before: a.plan?.elements?.[lb.id], after: b.plan?.elements?.[lb.id] }));
 	}
 	altered.push(...drawingChanges(a, b, ea, eb, units));
 
