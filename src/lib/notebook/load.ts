@@ -41,13 +41,23 @@ export function elementLabels(doc: SetupDocument): Record<string, string> {
 	return out;
 }
 
-const WHEN = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
+export type WhenStyle = 'datetime' | 'date';
 
-/** A date-time for people; fixed locale and zone so the server and the browser render the same text. */
-export function formatWhen(iso: string): string {
-	const d = new Date(iso);
-	if (Number.isNaN(d.getTime())) return iso;
-	return `${WHEN.format(d)} UTC`;
+const STYLES: Record<WhenStyle, Intl.DateTimeFormatOptions> = {
+	datetime: { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' },
+	date: { day: 'numeric', month: 'short', year: 'numeric' }
+};
+
+/**
+ * A date-time for people. Without `timeZone` it is written in UTC and says so: that is what the server
+ * renders and the page hydrates with. `When.svelte` then writes it again in the reader's own zone
+ * (`timeZone: 'local'`), once the page is live.
+ */
+export function formatWhen(at: string | Date, style: WhenStyle = 'datetime', timeZone: 'UTC' | 'local' = 'UTC'): string {
+	const d = new Date(at);
+	if (Number.isNaN(d.getTime())) return String(at);
+	if (timeZone === 'UTC') return `${new Intl.DateTimeFormat('en-GB', { ...STYLES[style], timeZone: 'UTC' }).format(d)}${style === 'date' ? '' : ' UTC'}`;
+	return new Intl.DateTimeFormat('en-GB', { ...STYLES[style], ...(style === 'date' ? {} : { timeZoneName: 'short' }) }).format(d);
 }
 
 /**
