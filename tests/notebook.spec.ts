@@ -104,7 +104,7 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	await expect(revisions.nth(0).getByTestId('no-plan-picture')).toHaveText('No picture of the plan was saved with revision 2.');
 
 	// And the comparison between them, in words, from the newest revision's "compare with" (the one before it by default).
-	await expect(revisions.nth(0).getByLabel('Compare revision 2 with')).toHaveValue('1');
+	await expect(revisions.nth(0).getByLabel('Compare revision 2 with', { exact: true })).toHaveValue('1');
 	await page.getByRole('button', { name: 'Compare revision 2 with the chosen revision' }).click();
 	await expect(page.getByRole('heading', { level: 1, name: 'Revision 1 → revision 2' })).toBeVisible();
 	const words = page.getByTestId('comparison');

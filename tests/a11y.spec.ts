@@ -1,0 +1,72 @@
+// Every page checked with axe (WCAG 2.1 A and AA rules), in the light and the dim theme, at desktop
+// and phone width: any serious or critical violation fails, named with its rule, page and element.
+import AxeBuilder from '@axe-core/playwright';
+import type { Page } from '@playwright/test';
+import { expect, signedInAs, test } from './fixtures';
+
+const OWNER = 'mara.quill@fernhill.example';
+// The seeded quartz cluster (src/lib/server/seed/notebook-data.ts): four revisions.
+const QUARTZ_ID = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
+
+interface Found {
+	page: string;
+	rule: string;
+	impact: string;
+	help: string;
+	targets: string[];
+}
+
+/** Waits until the page is live (scripts loaded, lazy panels in), then runs axe over it. */
+async function audit(page: Page, name: string, url: string): Promise<Found[]> {
+	const res = await page.goto(url);
+	expect(res, name).not.toBeNull();
+	await page.waitForLoadState('networkidle');
+	const result = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+	return result.violations
+		.filter((v) => v.impact === 'serious' || v.impact === 'critical')
+		.map((v) => ({ page: name, rule: v.id, impact: v.impact!, help: v.help, targets: v.nodes.map((n) => n.target.join(' ')) }));
+}
+
+const SIGNED_OUT: [string, string][] = [
+	['home', '/'],
+	['sign-in', '/signin'],
+	['calculator', '/calc'],
+	['API reference', '/api']
+];
+
+const SIGNED_IN: [string, string][] = [
+	['studios', '/studios'],
+	['notebook list', '/setups'],
+	['setup page with the editor', `/setups/${QUARTZ_ID}`],
+	['history', `/setups/${QUARTZ_ID}/history`],
+	['compare', `/setups/${QUARTZ_ID}/compare?from=2&to=4`],
+	['gear', '/gear'],
+	['account', '/account'],
+	['error page (404)', '/setups/00000000-0000-4000-8000-000000000000']
+];
+
+for (const scheme of ['light', 'dark'] as const) {
+	for (const [width, viewport] of [
+		['desktop', { width: 1280, height: 900 }],
+		['phone', { width: 390, height: 844 }]
+	] as const) {
+		test(`no serious or critical axe violation on any page: ${scheme} theme, ${width} width`, async ({ page, context, browser, baseURL }) => {
+			test.setTimeout(180_000);
+			await page.setViewportSize(viewport);
+			await page.emulateMedia({ colorScheme: scheme });
+			const found: Found[] = [];
+			for (const [name, url] of SIGNED_OUT) found.push(...(await audit(page, name, url)));
+
+			await signedInAs(context, browser, baseURL, OWNER);
+			// A studio of the owner's, from the studios page.
+			await page.goto('/studios');
+			const studio = await page.locator('main a[href^="/studios/"]').first().getAttribute('href');
+			expect(studio).toMatch(/^\/studios\/[0-9a-f-]{36}$/);
+			for (const [name, url] of [...SIGNED_IN, ['a studio', studio!] as [string, string]]) found.push(...(await audit(page, name, url)));
+
+			// The theme really was the one asked for on every page.
+			expect(await page.evaluate(() => document.documentElement.classList.contains('dark'))).toBe(scheme === 'dark');
+			expect(found, found.map((f) => `${f.page}: ${f.rule} (${f.impact}) ${f.help}: ${f.targets.join(', ')}`).join('\n')).toEqual([]);
+		});
+	}
+}
