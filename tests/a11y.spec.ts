@@ -70,3 +70,40 @@ for (const scheme of ['light', 'dark'] as const) {
 		});
 	}
 }
+
+test('a form error is tied to its field and announced', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	await page.goto('/studios');
+	await page.waitForLoadState('networkidle');
+	const name = page.getByLabel('Name', { exact: true });
+	await name.fill('   ');
+	await page.getByRole('button', { name: 'Make the studio' }).click();
+	// The message is an alert (read out as it appears) and the field's description; the field is invalid.
+	const alert = page.getByRole('alert').filter({ hasText: 'Give the studio a name.' });
+	await expect(alert).toBeVisible();
+	await expect(name).toHaveAttribute('aria-invalid', 'true');
+	await expect(name).toHaveAccessibleDescription('Give the studio a name.');
+});
+
+test.describe('times in the reader’s own time zone', () => {
+	test.use({ timezoneId: 'Pacific/Auckland' });
+
+	test('the history shows a seeded save at its local time, and the UTC time without JavaScript', async ({ page, context, browser, baseURL }) => {
+		await signedInAs(context, browser, baseURL, OWNER);
+		// Revision 1 of the quartz cluster was saved at 18:40 UTC on 6 October 2026: 07:40 the next morning in Auckland (NZDT, UTC+13).
+		await page.goto(`/setups/${QUARTZ_ID}/history`);
+		const first = page.getByTestId('revision-timeline').locator('li[data-revision="1"] time');
+		await expect(first).toHaveAttribute('datetime', '2026-10-06T18:40:00.000Z');
+		await expect(first).toHaveText(/^7 Oct 2026, 07:40 (GMT\+13|NZDT)$/);
+	});
+});
+
+test.describe('times without JavaScript', () => {
+	test.use({ javaScriptEnabled: false });
+
+	test('the server writes them in UTC and says so', async ({ page, context, browser, baseURL }) => {
+		await signedInAs(context, browser, baseURL, OWNER);
+		await page.goto(`/setups/${QUARTZ_ID}/history`);
+		await expect(page.getByTestId('revision-timeline').locator('li[data-revision="1"] time')).toHaveText('6 Oct 2026, 18:40 UTC');
+	});
+});
