@@ -111,6 +111,13 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	await expect(words).toContainText('Notes changed (1 line added)');
 	await expect(page.getByTestId('exposure-change')).toHaveText('0 stops');
 	await expect(page.getByTestId('notes-diff')).toContainText('Smoky quartz: card 5 cm closer');
+	// Both plans side by side; neither revision was saved from the editor, so neither has a picture, and the page says so.
+	const sides = page.getByTestId('plans-side-by-side');
+	await expect(sides.getByRole('heading', { level: 2 })).toHaveText(['Before: revision 1', 'After: revision 2']);
+	await expect(sides.getByTestId('no-plan-picture')).toHaveText([
+		'No picture of the plan was saved with revision 1.',
+		'No picture of the plan was saved with revision 2.'
+	]);
 
 	// The original lists its new derivative.
 	await visit(page, `/setups/${quartzId}`);
@@ -140,8 +147,14 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 
 	// Meanwhile someone else saves revision 2 through the API.
 	const current = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	// Saved with a picture of the plan (a 1 × 1 PNG stands in for the editor's), which the history then shows.
 	const put = await page.request.put(`/api/v1/setups/${id}`, {
-		data: { baseRevision: 1, document: { ...current.document, notes: 'Theirs: use the silver card.' }, message: 'Silver card' }
+		data: {
+			baseRevision: 1,
+			document: { ...current.document, notes: 'Theirs: use the silver card.' },
+			message: 'Silver card',
+			thumbnailPng: 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII='
+		}
 	});
 	expect(put.status()).toBe(200);
 
@@ -168,6 +181,10 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await expect(page.getByRole('status')).toContainText(`“${title}” is back in the notebook at revision 3.`);
 	await visit(page, `/setups/${id}/history`);
 	await expect(page.getByTestId('revision-timeline').locator(':scope > li')).toHaveCount(3);
+	const pictured = page.getByTestId('revision-timeline').locator('li[data-revision="2"]').getByRole('img', { name: 'The plan of revision 2' });
+	await pictured.scrollIntoViewIfNeeded();
+	await expect.poll(() => pictured.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0))).toBe(1);
+	await expect(page.getByTestId('revision-timeline').locator('li[data-revision="3"]').getByTestId('no-plan-picture')).toBeVisible();
 
 	// Restoring revision 2 makes revision 4, a copy of it; nothing is overwritten.
 	await page.getByRole('button', { name: 'Restore revision 2' }).click();
