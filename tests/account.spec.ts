@@ -15,7 +15,8 @@ test('make a read-only token that expires in 7 days, use it from a script, and s
 	await page.getByRole('button', { name: 'Make a token' }).click();
 	const notice = page.getByRole('status').filter({ hasText: 'catalogue reader' });
 	await expect(notice).toContainText('New read-only token');
-	const expires = new Date(Date.now() + 7 * 24 * 3600_000).toLocaleDateString('en-US');
+	// Dates read as the page writes them once live: in the browser's own zone, as "9 Dec 2026".
+	const expires = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric' }).format(new Date(Date.now() + 7 * 24 * 3600_000));
 	const secret = (await page.getByTestId('new-token').textContent())!.trim();
 	expect(secret).toMatch(/^slw_/);
 

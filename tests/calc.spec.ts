@@ -1,6 +1,7 @@
 // The calculator at /calc: the flash power for f/16 at 1:1, read with its working, live with JavaScript,
 // through the form action without it, and in imperial units remembered across visits.
-import { expect, test } from './fixtures';
+import { randomUUID } from 'node:crypto';
+import { expect, signIn, test } from './fixtures';
 
 const FLASH = 'Flash power for an aperture';
 
@@ -55,6 +56,19 @@ test.describe('calculator with JavaScript', () => {
 		await expect(page.getByRole('region', { name: FLASH }).getByLabel('Flash to subject')).toHaveValue('12 in');
 		await page.getByRole('button', { name: 'Metric (cm, m)' }).click();
 		await expect(page.getByRole('region', { name: FLASH }).getByLabel('Flash to subject')).toHaveValue('30 cm');
+	});
+
+	test('a signed-in photographer switches the calculator to imperial; the account stays metric, and the page says so', async ({ page }) => {
+		await signIn(page, `imogen.reed+${randomUUID().slice(0, 8)}@fernhill.example`, '/calc');
+		await expect(page.getByTestId('units-scope')).toContainText('The calculator only');
+		await page.getByRole('button', { name: 'Imperial (in, ft)' }).click();
+		await expect(page.getByRole('region', { name: FLASH }).getByLabel('Flash to subject')).toHaveValue('12 in');
+		await expect(page.getByTestId('units-scope')).toHaveText(/This page shows imperial units; your account stays metric\./);
+		await page.goto('/account');
+		await expect(page.getByRole('radio', { name: 'Metric (cm, m)' })).toBeChecked();
+		// And back on the calculator, its own choice is kept.
+		await page.goto('/calc');
+		await expect(page.getByRole('button', { name: 'Imperial (in, ft)' })).toHaveAttribute('aria-pressed', 'true');
 	});
 });
 

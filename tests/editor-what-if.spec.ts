@@ -66,9 +66,12 @@ test('the shortcut sheet opens with ? and from the toolbar, closes with Escape a
 	await plan.focus();
 	await page.keyboard.press('Shift+?');
 	await expect(sheet).toBeVisible();
-	await expect(sheet.getByRole('row', { name: /Undo the last change/ })).toContainText('Ctrl');
-	await expect(sheet.getByRole('row', { name: /Show this list of shortcuts/ })).toBeVisible();
-	await expect(sheet.getByRole('row', { name: /Zoom in/ }).locator('kbd')).toHaveText(['+']);
+	await expect(sheet.getByRole('row', { name: /Undo: take back the last change/ })).toContainText('Ctrl');
+	await expect(sheet.getByRole('row', { name: /Open this list/ })).toBeVisible();
+	await expect(sheet.getByRole('row', { name: /Look closer/ }).locator('kbd')).toHaveText(['+']);
+	// Only what the screen shows, in our own words: no pointer modes, no drawing order.
+	await expect(sheet).not.toContainText(/Select tool|Hand tool|to front|to back/i);
+	await expect(sheet.getByRole('row', { name: /Slide the view/ }).locator('kbd')).toHaveText(['Space (hold)']);
 	// Modal: the focus is inside the sheet.
 	await expect(sheet.getByRole('button', { name: 'Close' })).toBeFocused();
 	await page.keyboard.press('Escape');

@@ -94,19 +94,30 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 
 	// The history shows two revisions.
 	await page.getByRole('link', { name: 'History', exact: true }).click();
-	const revisions = page.getByTestId('revision-table').locator('tbody tr');
+	const revisions = page.getByTestId('revision-timeline').locator(':scope > li');
 	await expect(revisions).toHaveCount(2);
 	await expect(revisions.nth(0)).toContainText('Card closer for the smoky quartz');
 	await expect(revisions.nth(0)).toContainText('Mara Quill');
 	await expect(revisions.nth(1)).toContainText(`Duplicated from “${QUARTZ}”`);
 
-	// And the comparison between them, in words.
-	await page.getByRole('button', { name: 'Compare the two chosen revisions' }).click();
+	// The notes form saves no picture of the plan, and the timeline says so.
+	await expect(revisions.nth(0).getByTestId('no-plan-picture')).toHaveText('No picture of the plan was saved with revision 2.');
+
+	// And the comparison between them, in words, from the newest revision's "compare with" (the one before it by default).
+	await expect(revisions.nth(0).getByLabel('Compare revision 2 with', { exact: true })).toHaveValue('1');
+	await page.getByRole('button', { name: 'Compare revision 2 with the chosen revision' }).click();
 	await expect(page.getByRole('heading', { level: 1, name: 'Revision 1 → revision 2' })).toBeVisible();
 	const words = page.getByTestId('comparison');
 	await expect(words).toContainText('Notes changed (1 line added)');
 	await expect(page.getByTestId('exposure-change')).toHaveText('0 stops');
 	await expect(page.getByTestId('notes-diff')).toContainText('Smoky quartz: card 5 cm closer');
+	// Both plans side by side; neither revision was saved from the editor, so neither has a picture, and the page says so.
+	const sides = page.getByTestId('plans-side-by-side');
+	await expect(sides.getByRole('heading', { level: 2 })).toHaveText(['Before: revision 1', 'After: revision 2']);
+	await expect(sides.getByTestId('no-plan-picture')).toHaveText([
+		'No picture of the plan was saved with revision 1.',
+		'No picture of the plan was saved with revision 2.'
+	]);
 
 	// The original lists its new derivative.
 	await visit(page, `/setups/${quartzId}`);
@@ -136,8 +147,14 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 
 	// Meanwhile someone else saves revision 2 through the API.
 	const current = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	// Saved with a picture of the plan (a 1 × 1 PNG stands in for the editor's), which the history then shows.
 	const put = await page.request.put(`/api/v1/setups/${id}`, {
-		data: { baseRevision: 1, document: { ...current.document, notes: 'Theirs: use the silver card.' }, message: 'Silver card' }
+		data: {
+			baseRevision: 1,
+			document: { ...current.document, notes: 'Theirs: use the silver card.' },
+			message: 'Silver card',
+			thumbnailPng: 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAQAAAC1HAwCAAAAC0lEQVR42mNkYAAAAAYAAjCB0C8AAAAASUVORK5CYII='
+		}
 	});
 	expect(put.status()).toBe(200);
 
@@ -163,14 +180,18 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await page.getByRole('button', { name: `Restore ${title}` }).click();
 	await expect(page.getByRole('status')).toContainText(`“${title}” is back in the notebook at revision 3.`);
 	await visit(page, `/setups/${id}/history`);
-	await expect(page.getByTestId('revision-table').locator('tbody tr')).toHaveCount(3);
+	await expect(page.getByTestId('revision-timeline').locator(':scope > li')).toHaveCount(3);
+	const pictured = page.getByTestId('revision-timeline').locator('li[data-revision="2"]').getByRole('img', { name: 'The plan of revision 2' });
+	await pictured.scrollIntoViewIfNeeded();
+	await expect.poll(() => pictured.evaluate((img: HTMLImageElement) => (img.complete ? img.naturalWidth : 0))).toBe(1);
+	await expect(page.getByTestId('revision-timeline').locator('li[data-revision="3"]').getByTestId('no-plan-picture')).toBeVisible();
 
 	// Restoring revision 2 makes revision 4, a copy of it; nothing is overwritten.
 	await page.getByRole('button', { name: 'Restore revision 2' }).click();
 	await expect(page.getByRole('status').filter({ hasText: 'Revision 2 restored as revision 4.' })).toBeVisible();
-	const rows = page.getByTestId('revision-table').locator('tbody tr');
+	const rows = page.getByTestId('revision-timeline').locator(':scope > li');
 	await expect(rows).toHaveCount(4);
-	await expect(rows.nth(0)).toContainText('a copy of revision 2');
+	await expect(rows.nth(0)).toContainText('A copy of revision 2, restored.');
 	await page.getByRole('link', { name: 'Open the setup' }).click();
 	await expect(page.getByTestId('notes-rendered')).toHaveText('Theirs: use the silver card.');
 });

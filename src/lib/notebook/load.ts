@@ -1,18 +1,8 @@
 /**
- * Helpers for the notebook pages' `load` functions and actions: an API answer that is a refusal
- * becomes the page's own refusal (401 → sign in, 403, 404), so a page never reveals more than the API.
+ * Small helpers shared by the notebook pages: a blank document, element labels, dates for people and
+ * sections that open when a form comes back with errors.
  */
 import type { SetupDocument } from '$lib/scene/document';
-import { error, redirect } from '@sveltejs/kit';
-import { callApi, type Fetch } from './api';
-
-/** GET an API path or end the page with the API's status and message. */
-export async function getOrFail<T>(fetchFn: Fetch, path: string, url: URL): Promise<T> {
-	const r = await callApi<T>(fetchFn, path);
-	if (r.ok) return r.data;
-	if (r.status === 401) redirect(303, `/signin?callbackUrl=${encodeURIComponent(url.pathname + url.search)}`);
-	error(r.status >= 400 && r.status <= 599 ? r.status : 500, r.message);
-}
 
 /**
  * The smallest valid setup document: one subject at the origin, a camera set for close-up work (ISO 100,
@@ -41,13 +31,23 @@ export function elementLabels(doc: SetupDocument): Record<string, string> {
 	return out;
 }
 
-const WHEN = new Intl.DateTimeFormat('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' });
+export type WhenStyle = 'datetime' | 'date';
 
-/** A date-time for people; fixed locale and zone so the server and the browser render the same text. */
-export function formatWhen(iso: string): string {
-	const d = new Date(iso);
-	if (Number.isNaN(d.getTime())) return iso;
-	return `${WHEN.format(d)} UTC`;
+const STYLES: Record<WhenStyle, Intl.DateTimeFormatOptions> = {
+	datetime: { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' },
+	date: { day: 'numeric', month: 'short', year: 'numeric' }
+};
+
+/**
+ * A date-time for people. Without `timeZone` it is written in UTC and says so: that is what the server
+ * renders and the page hydrates with. `When.svelte` then writes it again in the reader's own zone
+ * (`timeZone: 'local'`), once the page is live.
+ */
+export function formatWhen(at: string | Date, style: WhenStyle = 'datetime', timeZone: 'UTC' | 'local' = 'UTC'): string {
+	const d = new Date(at);
+	if (Number.isNaN(d.getTime())) return String(at);
+	if (timeZone === 'UTC') return `${new Intl.DateTimeFormat('en-GB', { ...STYLES[style], timeZone: 'UTC' }).format(d)}${style === 'date' ? '' : ' UTC'}`;
+	return new Intl.DateTimeFormat('en-GB', { ...STYLES[style], ...(style === 'date' ? {} : { timeZoneName: 'short' }) }).format(d);
 }
 
 /**

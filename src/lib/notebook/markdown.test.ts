@@ -9,6 +9,15 @@ describe('renderNotes', () => {
 		expect(html).toContain('<a href="https://fernhill.example/" rel="noopener noreferrer nofollow">club</a>');
 	});
 
+	it('never makes a second h1: headings move down under the page’s h1 and the notes’ h2', () => {
+		const html = renderNotes('# Quartz cluster\n\n## Cleaning\n\n###### Smallest\n\n<h1>typed as HTML</h1>');
+		expect(html).not.toMatch(/<h1|<h2/);
+		expect(html).toContain('<h3>Quartz cluster</h3>');
+		expect(html).toContain('<h4>Cleaning</h4>');
+		expect(html).toContain('<h6>Smallest</h6>');
+		expect(html).toContain('<h3>typed as HTML</h3>');
+	});
+
 	it('removes scripts, event handlers and javascript: links', () => {
 		const html = renderNotes('<script>alert(1)</script>\n\n<img src="x.png" onerror="alert(2)">\n\n[x](javascript:alert(3))');
 		expect(html).not.toMatch(/<script|onerror|javascript:/i);

@@ -8,6 +8,9 @@ import sanitizeHtml from 'sanitize-html';
 
 const marked = new Marked({ gfm: true, breaks: true, async: false });
 
+/** How many levels a heading in the notes moves down: the page's h1 and the notes' own h2 are above. */
+export const NOTES_HEADING_SHIFT = 2;
+
 const ALLOWED = {
 	allowedTags: [
 		'p', 'br', 'hr', 'h1', 'h2', 'h3', 'h4', 'h5', 'h6', 'blockquote', 'pre', 'code',
@@ -23,7 +26,10 @@ const ALLOWED = {
 	allowedSchemes: ['http', 'https', 'mailto'],
 	allowedSchemesByTag: { img: [] },
 	allowProtocolRelative: false,
+	// The notes sit under the page's h1 and their own h2 ("Notes"): a "# heading" in them is an h3, and
+	// every level below moves down with it (h6 stays h6), so a note never adds a second h1.
 	transformTags: {
+		...Object.fromEntries([1, 2, 3, 4, 5, 6].map((level) => [`h${level}`, `h${Math.min(6, level + NOTES_HEADING_SHIFT)}`])),
 		a: (tagName: string, attribs: Record<string, string>) => ({
 			tagName,
 			attribs: { ...attribs, rel: 'noopener noreferrer nofollow' }

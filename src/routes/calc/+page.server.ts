@@ -1,10 +1,9 @@
 import { fail, type Actions } from '@sveltejs/kit';
-import { saveUnitPreference } from '$lib/server/db/queries/users';
 import { initialValues, type FieldValues } from './fields';
 import { runCalculation, type CalculationPath } from '$lib/light/calculations';
 import { answerQuestion, type Send } from './compute';
 import { QUESTIONS, questionById } from './questions';
-import { isUnitSystem, rememberUnitSystem, unitSystemFor } from '$lib/server/unit-preference';
+import { calculatorUnitSystem, isUnitSystem, rememberCalculatorUnits, unitSystemFor } from '$lib/server/unit-preference';
 import type { PageServerLoad } from './$types';
 
 /** On the server the route's schema and engine run in-process: the same answer, no internal request. */
@@ -14,7 +13,7 @@ const sendDirect: Send = async (route, body) => {
 };
 
 export const load: PageServerLoad = async ({ locals, cookies }) => {
-	const units = unitSystemFor(locals, cookies);
+	const units = calculatorUnitSystem(locals, cookies);
 	// Every question is answered for its starting values, so the page is useful before anyone types and
 	// without JavaScript.
 	const initial = await Promise.all(
@@ -23,7 +22,8 @@ export const load: PageServerLoad = async ({ locals, cookies }) => {
 			return [q.id, { values, outcome: await answerQuestion(q, values, units, sendDirect) }] as const;
 		})
 	);
-	return { units, initial: Object.fromEntries(initial) };
+	// The account's own choice, so the page can say when it shows other units.
+	return { units, accountUnits: locals.user ? unitSystemFor(locals, cookies) : null, initial: Object.fromEntries(initial) };
 };
 
 function formValues(data: FormData): FieldValues {
@@ -36,7 +36,7 @@ function formValues(data: FormData): FieldValues {
 function questionAction(id: string): Actions[string] {
 	return async ({ request, locals, cookies }) => {
 		const question = questionById(id)!;
-		const units = unitSystemFor(locals, cookies);
+		const units = calculatorUnitSystem(locals, cookies);
 		const values = formValues(await request.formData());
 		const outcome = await answerQuestion(question, values, units, sendDirect);
 		if (!outcome.ok) return fail(400, { question: id, values, errors: outcome.errors });
@@ -46,12 +46,11 @@ function questionAction(id: string): Actions[string] {
 
 export const actions: Actions = {
 	...Object.fromEntries(QUESTIONS.map((q) => [q.id, questionAction(q.id)])),
-	units: async ({ request, locals, cookies }) => {
+	/** Units for this page only: the account's choice is made on the account page and stays as it is. */
+	units: async ({ request, cookies }) => {
 		const value = (await request.formData()).get('units');
 		if (!isUnitSystem(value)) return fail(400, { question: 'units', errors: { units: 'Choose metric or imperial.' } });
-		rememberUnitSystem(cookies, value);
-		// lead: persist per user (the account page's saveUnitPreference, used here for signed-in users).
-		if (locals.user) await saveUnitPreference(locals.user.id, value);
+		rememberCalculatorUnits(cookies, value);
 		return { question: 'units', units: value };
 	}
 };

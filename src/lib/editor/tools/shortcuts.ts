@@ -1,5 +1,9 @@
 /**
  * Keyboard shortcuts: one table for the behaviour and for the help sheet. `mod` is Ctrl, or ⌘ on a Mac.
+ * The sheet names each key in the words of the control it stands for on screen (Undo, Duplicate, Lock,
+ * Aim at the subject, the falloff map), and lists only keys whose action a person can see: the keys
+ * that switch between pointer modes (V, H) and change the drawing order ([, ]) still work but are left
+ * off the sheet (`onSheet: false`) while no control on screen shows those modes or that order.
  */
 import type { PlanKeyInput } from './types';
 
@@ -31,7 +35,7 @@ export type ShortcutAction =
 	| 'toggle-grid-snap'
 	| 'show-shortcuts';
 
-export const SHORTCUT_GROUPS = ['Edit', 'Select', 'Move', 'View', 'Tools', 'Help'] as const;
+export const SHORTCUT_GROUPS = ['Changes', 'Picking elements', 'Placing and turning', 'The view', 'This list'] as const;
 export type ShortcutGroup = (typeof SHORTCUT_GROUPS)[number];
 
 export interface Shortcut {
@@ -40,6 +44,8 @@ export interface Shortcut {
 	keys: string[];
 	description: string;
 	group: ShortcutGroup;
+	/** False: the key works, but nothing on screen shows what it does, so the sheet leaves it out. */
+	onSheet?: false;
 	matches(e: PlanKeyInput): boolean;
 }
 
@@ -48,43 +54,56 @@ const plain = (e: PlanKeyInput) => !mod(e) && !e.altKey;
 const key = (e: PlanKeyInput, ...keys: string[]) => keys.includes(e.key.length === 1 ? e.key.toLowerCase() : e.key);
 
 export const SHORTCUTS: readonly Shortcut[] = [
-	{ action: 'undo', keys: ['mod+Z'], description: 'Undo the last change', group: 'Edit', matches: (e) => mod(e) && !e.shiftKey && key(e, 'z') },
-	{ action: 'redo', keys: ['mod+Shift+Z', 'mod+Y'], description: 'Redo', group: 'Edit', matches: (e) => mod(e) && ((e.shiftKey && key(e, 'z')) || key(e, 'y')) },
-	{ action: 'delete', keys: ['Delete', 'Backspace'], description: 'Delete the selection', group: 'Edit', matches: (e) => plain(e) && key(e, 'Delete', 'Backspace') },
-	{ action: 'duplicate', keys: ['mod+D'], description: 'Duplicate the selection', group: 'Edit', matches: (e) => mod(e) && key(e, 'd') },
-	{ action: 'toggle-lock', keys: ['L'], description: 'Lock or unlock the selection', group: 'Edit', matches: (e) => plain(e) && key(e, 'l') },
-	{ action: 'bring-to-front', keys: [']'], description: 'Draw the selection on top', group: 'Edit', matches: (e) => plain(e) && key(e, ']') },
-	{ action: 'send-to-back', keys: ['['], description: 'Draw the selection underneath', group: 'Edit', matches: (e) => plain(e) && key(e, '[') },
-	{ action: 'select-all', keys: ['mod+A'], description: 'Select every element', group: 'Select', matches: (e) => mod(e) && key(e, 'a') },
+	{ action: 'undo', keys: ['mod+Z'], description: 'Undo: take back the last change', group: 'Changes', matches: (e) => mod(e) && !e.shiftKey && key(e, 'z') },
+	{ action: 'redo', keys: ['mod+Shift+Z', 'mod+Y'], description: 'Redo: put it back', group: 'Changes', matches: (e) => mod(e) && ((e.shiftKey && key(e, 'z')) || key(e, 'y')) },
+	{ action: 'delete', keys: ['Delete', 'Backspace'], description: 'Delete the picked elements', group: 'Changes', matches: (e) => plain(e) && key(e, 'Delete', 'Backspace') },
+	{ action: 'duplicate', keys: ['mod+D'], description: 'Duplicate the picked elements', group: 'Changes', matches: (e) => mod(e) && key(e, 'd') },
+	{ action: 'toggle-lock', keys: ['L'], description: 'Lock or unlock the picked elements in place', group: 'Changes', matches: (e) => plain(e) && key(e, 'l') },
+	{ action: 'bring-to-front', keys: [']'], description: 'Draw over the others', group: 'Changes', onSheet: false, matches: (e) => plain(e) && key(e, ']') },
+	{ action: 'send-to-back', keys: ['['], description: 'Draw under the others', group: 'Changes', onSheet: false, matches: (e) => plain(e) && key(e, '[') },
+	{ action: 'select-all', keys: ['mod+A'], description: 'Pick every element', group: 'Picking elements', matches: (e) => mod(e) && key(e, 'a') },
 	// Not Tab: Tab must keep moving the keyboard focus out of the plan.
-	{ action: 'select-next', keys: ['N'], description: 'Select the next element', group: 'Select', matches: (e) => plain(e) && !e.shiftKey && key(e, 'n') },
-	{ action: 'select-previous', keys: ['Shift+N'], description: 'Select the previous element', group: 'Select', matches: (e) => plain(e) && Boolean(e.shiftKey) && key(e, 'n') },
-	{ action: 'clear-selection', keys: ['Escape'], description: 'Cancel a drag, or clear the selection', group: 'Select', matches: (e) => key(e, 'Escape') },
-	{ action: 'nudge-left', keys: ['←'], description: 'Move left one grid step (Shift: ten)', group: 'Move', matches: (e) => plain(e) && key(e, 'ArrowLeft') },
-	{ action: 'nudge-right', keys: ['→'], description: 'Move right one grid step (Shift: ten)', group: 'Move', matches: (e) => plain(e) && key(e, 'ArrowRight') },
-	{ action: 'nudge-up', keys: ['↑'], description: 'Move up the plan one grid step (Shift: ten)', group: 'Move', matches: (e) => plain(e) && key(e, 'ArrowUp') },
-	{ action: 'nudge-down', keys: ['↓'], description: 'Move down the plan one grid step (Shift: ten)', group: 'Move', matches: (e) => plain(e) && key(e, 'ArrowDown') },
-	{ action: 'rotate-clockwise', keys: ['R'], description: 'Turn 15° clockwise', group: 'Move', matches: (e) => plain(e) && !e.shiftKey && key(e, 'r') },
-	{ action: 'rotate-anticlockwise', keys: ['Shift+R'], description: 'Turn 15° anticlockwise', group: 'Move', matches: (e) => plain(e) && Boolean(e.shiftKey) && key(e, 'r') },
-	{ action: 'aim-at-subject', keys: ['A'], description: 'Aim lights, cards and the camera at the subject', group: 'Move', matches: (e) => plain(e) && key(e, 'a') },
-	{ action: 'zoom-in', keys: ['+'], description: 'Zoom in', group: 'View', matches: (e) => !mod(e) && key(e, '+', '=') },
-	{ action: 'zoom-out', keys: ['−'], description: 'Zoom out', group: 'View', matches: (e) => !mod(e) && key(e, '-', '_') },
-	{ action: 'zoom-to-fit', keys: ['0'], description: 'Show the whole plan', group: 'View', matches: (e) => plain(e) && key(e, '0') },
-	{ action: 'toggle-falloff', keys: ['F'], description: 'Show or hide the falloff map', group: 'View', matches: (e) => plain(e) && key(e, 'f') },
-	{ action: 'toggle-grid-snap', keys: ['G'], description: 'Snap to the grid on or off (Alt while dragging: no snapping)', group: 'View', matches: (e) => plain(e) && key(e, 'g') },
-	{ action: 'select-tool', keys: ['V'], description: 'Select tool', group: 'Tools', matches: (e) => plain(e) && key(e, 'v') },
-	{ action: 'hand-tool', keys: ['H', 'Space (hold)'], description: 'Hand tool: drag to pan', group: 'Tools', matches: (e) => plain(e) && key(e, 'h') },
+	{ action: 'select-next', keys: ['N'], description: 'Pick the next element in the list', group: 'Picking elements', matches: (e) => plain(e) && !e.shiftKey && key(e, 'n') },
+	{ action: 'select-previous', keys: ['Shift+N'], description: 'Pick the one before', group: 'Picking elements', matches: (e) => plain(e) && Boolean(e.shiftKey) && key(e, 'n') },
+	{ action: 'clear-selection', keys: ['Escape'], description: 'Stop a drag where it began, or let go of what is picked', group: 'Picking elements', matches: (e) => key(e, 'Escape') },
+	{ action: 'nudge-left', keys: ['←'], description: 'Slide left one step (with Shift: ten)', group: 'Placing and turning', matches: (e) => plain(e) && key(e, 'ArrowLeft') },
+	{ action: 'nudge-right', keys: ['→'], description: 'Slide right one step (with Shift: ten)', group: 'Placing and turning', matches: (e) => plain(e) && key(e, 'ArrowRight') },
+	{ action: 'nudge-up', keys: ['↑'], description: 'Slide away from the camera side one step (with Shift: ten)', group: 'Placing and turning', matches: (e) => plain(e) && key(e, 'ArrowUp') },
+	{ action: 'nudge-down', keys: ['↓'], description: 'Slide towards the camera side one step (with Shift: ten)', group: 'Placing and turning', matches: (e) => plain(e) && key(e, 'ArrowDown') },
+	{ action: 'rotate-clockwise', keys: ['R'], description: 'Turn 15° clockwise', group: 'Placing and turning', matches: (e) => plain(e) && !e.shiftKey && key(e, 'r') },
+	{ action: 'rotate-anticlockwise', keys: ['Shift+R'], description: 'Turn 15° anticlockwise', group: 'Placing and turning', matches: (e) => plain(e) && Boolean(e.shiftKey) && key(e, 'r') },
+	{ action: 'aim-at-subject', keys: ['A'], description: 'Aim at the subject (lights, cards and the camera)', group: 'Placing and turning', matches: (e) => plain(e) && key(e, 'a') },
+	{ action: 'zoom-in', keys: ['+'], description: 'Look closer', group: 'The view', matches: (e) => !mod(e) && key(e, '+', '=') },
+	{ action: 'zoom-out', keys: ['−'], description: 'Look further out', group: 'The view', matches: (e) => !mod(e) && key(e, '-', '_') },
+	{ action: 'zoom-to-fit', keys: ['0'], description: 'Fit the whole table in view', group: 'The view', matches: (e) => plain(e) && key(e, '0') },
+	{ action: 'toggle-falloff', keys: ['F'], description: 'Falloff map on or off', group: 'The view', matches: (e) => plain(e) && key(e, 'f') },
+	{ action: 'toggle-grid-snap', keys: ['G'], description: 'Snapping to even steps on or off (hold Alt while dragging to place freely)', group: 'The view', matches: (e) => plain(e) && key(e, 'g') },
+	{ action: 'select-tool', keys: ['V'], description: 'Pointer picks and drags elements', group: 'The view', onSheet: false, matches: (e) => plain(e) && key(e, 'v') },
+	{ action: 'hand-tool', keys: ['H', 'Space (hold)'], description: 'Slide the view: hold Space and drag the plan', group: 'The view', matches: (e) => plain(e) && key(e, 'h') },
 	// The sheet itself opens it (ShortcutSheet.svelte listens for "?"); the editor only claims the key.
-	{ action: 'show-shortcuts', keys: ['?'], description: 'Show this list of shortcuts', group: 'Help', matches: (e) => plain(e) && e.key === '?' }
+	{ action: 'show-shortcuts', keys: ['?'], description: 'Open this list', group: 'This list', matches: (e) => plain(e) && e.key === '?' }
 ];
 
 export function shortcutFor(e: PlanKeyInput): Shortcut | undefined {
 	return SHORTCUTS.find((s) => s.matches(e));
 }
 
-/** The table for the help sheet: groups in a fixed order, each with its shortcuts in table order. */
-export function shortcutSheet(table: readonly Shortcut[] = SHORTCUTS): { group: ShortcutGroup; shortcuts: Shortcut[] }[] {
-	return SHORTCUT_GROUPS.map((group) => ({ group, shortcuts: table.filter((s) => s.group === group) })).filter((g) => g.shortcuts.length);
+/** The help sheet: groups in a fixed order, each with its shortcuts in table order, as the sheet shows them. */
+export function shortcutSheet(table: readonly Shortcut[] = SHORTCUTS): { group: ShortcutGroup; shortcuts: SheetEntry[] }[] {
+	return SHORTCUT_GROUPS.map((group) => ({ group, shortcuts: table.filter((s) => s.group === group && s.onSheet !== false).map(sheetEntry) })).filter(
+		(g) => g.shortcuts.length
+	);
+}
+
+export interface SheetEntry {
+	action: ShortcutAction;
+	keys: string[];
+	description: string;
+}
+
+/** The slide-the-view entry shows only Space: H switches to a mode nothing on screen shows. */
+function sheetEntry(s: Shortcut): SheetEntry {
+	return { action: s.action, keys: s.action === 'hand-tool' ? ['Space (hold)'] : s.keys, description: s.description };
 }
 
 /** A key as a person reads it: `mod` becomes Ctrl, or ⌘ on a Mac; the parts of a chord are split. */

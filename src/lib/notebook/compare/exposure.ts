@@ -3,6 +3,7 @@ import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import { formatFNumber, formatStops, roundSig } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
 import type { ComparableDocument } from './placement';
+import { formatStopsDelta, shownStopsDelta } from './shown';
 import type { ExposureChange, LightExposureEntry } from './index';
 
 function safeExposure(scene: ExposureScene): ExposureResult | string {
@@ -41,8 +42,8 @@ export function exposureChange(a: ComparableDocument, b: ComparableDocument, lab
 	if (before === null && after === null) text = 'No light reaches the subject in either revision.';
 	else if (before === null) text = `Exposure: no light before; now ${formatStops(after)} at ${at(b)}.`;
 	else if (after === null) text = `Exposure: ${formatStops(before)} at ${at(a)} before; now no light reaches the subject.`;
-	else if (Math.abs(delta!) < 0.05) text = `Exposure unchanged: ${formatStops(after)} at ${at(b)}.`;
-	else text = `Exposure ${formatStops(delta)}: ${formatStops(before)} at ${at(a)} → ${formatStops(after)} at ${at(b)}.`;
+	else if (shownStopsDelta(before, after) === 0) text = `Exposure unchanged: ${formatStops(after)} at ${at(b)}.`;
+	else text = `Exposure ${formatStopsDelta(before, after)}: ${formatStops(before)} at ${at(a)} → ${formatStops(after)} at ${at(b)}.`;
 
 	const lights: LightExposureEntry[] = [];
 	const byIdA = new Map(ea.lights.map((l) => [l.id, l]));
@@ -50,11 +51,11 @@ export function exposureChange(a: ComparableDocument, b: ComparableDocument, lab
 		const la = byIdA.get(lb.id);
 		if (!la) continue;
 		const d = la.stops !== null && lb.stops !== null ? lb.stops - la.stops : null;
-		const same = la.stops === lb.stops || (d !== null && Math.abs(d) < 0.05);
+		const same = la.stops === lb.stops || (la.stops !== null && lb.stops !== null && shownStopsDelta(la.stops, lb.stops) === 0);
 		if (same) continue;
 		const name = labelOf(lb.id);
 		let t: string;
-		if (d !== null) t = `${name}: ${formatStops(d)} (${formatStops(la.stops)} → ${formatStops(lb.stops)})`;
+		if (la.stops !== null && lb.stops !== null) t = `${name}: ${formatStopsDelta(la.stops, lb.stops)} (${formatStops(la.stops)} → ${formatStops(lb.stops)})`;
 		else if (lb.stops === null) t = `${name}: no longer reaches the subject${lb.blocked ? ` (blocked by a flag)` : ''}`;
 		else t = `${name}: now reaches the subject (${formatStops(lb.stops)})`;
 		lights.push({ id: lb.id, label: name, beforeStops: la.stops, afterStops: lb.stops, deltaStops: d, text: t });
@@ -65,7 +66,7 @@ export function exposureChange(a: ComparableDocument, b: ComparableDocument, lab
 			: `Key light ${ea.keyLightId ? labelOf(ea.keyLightId) : 'none'} → ${eb.keyLightId ? labelOf(eb.keyLightId) : 'none'}`;
 	const ra = ea.lightingRatio;
 	const rb = eb.lightingRatio;
-	const ratioChanged = (ra === null) !== (rb === null) || (ra !== null && rb !== null && Math.abs(Math.log2(rb / ra)) >= 0.05);
+	const ratioChanged = ratioText(ra) !== ratioText(rb);
 	return {
 		beforeStops: before,
 		afterStops: after,

@@ -2,8 +2,9 @@
  * The comparison of two revisions of a setup, in words: elements added, removed and moved (and by how
  * far), what changed on a light, the camera and ambient settings, the notes, and the change in exposure
  * in stops, computed with the light engine from both documents. One file a topic: `elements.ts` (what
- * stands where), `placement.ts` (what moved), `lights.ts`, `settings.ts`, `notes.ts`, `exposure.ts`;
- * this file puts them together.
+ * stands where), `placement.ts` (what moved), `lights.ts`, `settings.ts`, `notes.ts`, `exposure.ts`,
+ * and `shown.ts`, the one rule for numbers (compared as printed); this file puts them together. Only
+ * what changed is reported, each change once (`honest.test.ts`).
  *
  * Pure: plain documents in, plain sentences and numbers out. The history pages render it; the setup
  * page uses it to show what changed under a stale save.
@@ -118,7 +119,8 @@ export function compareDocuments(a: ComparableDocument, b: ComparableDocument, o
 	const lightsA = new Map(a.scene.lights.map((l) => [l.id, l]));
 	for (const lb of b.scene.lights) {
 		const la = lightsA.get(lb.id);
-		if (la && la.kind === lb.kind) altered.push(...lightPropertyChanges(la, lb, labelOf(lb.id), units));
+		if (la && la.kind === lb.kind)
+			altered.push(...lightPropertyChanges(la, lb, labelOf(lb.id), units, { before: a.plan?.elements?.[lb.id], after: b.plan?.elements?.[lb.id] }));
 	}
 	altered.push(...drawingChanges(a, b, ea, eb, units));
 

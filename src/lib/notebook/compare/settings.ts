@@ -1,7 +1,8 @@
 /** The camera, subject and ambient settings of two revisions, compared field by field. */
 import { formatFNumber, formatShutter, formatStops, roundSig } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
-import { beforeAfter, stopsBetween } from './lights';
+import { stopsBetween, stopsNote } from './lights';
+import { shownChange, shownStops } from './shown';
 import type { SettingEntry } from './index';
 
 type Camera = ExposureScene['camera'];
@@ -17,22 +18,31 @@ const OPTIONAL_CAMERA_FIELDS: [keyof Camera, string, (v: number) => string][] = 
 	['maxAperture', 'Narrowest aperture in the table', (v) => formatFNumber(v)]
 ];
 
+/** ` (−1 stop of light)`, or nothing under a tenth of a stop. */
+function ofLight(stops: number, what: string): string {
+	return shownStops(stops) === 0 ? '' : ` (${formatStops(stops)} of ${what})`;
+}
+
 export function settingChanges(a: ExposureScene, b: ExposureScene): SettingEntry[] {
 	const out: SettingEntry[] = [];
-	const push = (setting: string, before: unknown, after: unknown, text: string) => out.push({ setting, before, after, text });
+	const push = (setting: string, before: unknown, after: unknown, text: string | null) => {
+		if (text !== null) out.push({ setting, before, after, text });
+	};
+	/** `Name before → after (note)` when the two read differently (see shown.ts). */
+	const change = <T>(name: string, before: T, after: T, fmt: (v: T) => string, note = '') => {
+		const shown = shownChange(before, after, fmt);
+		return shown === null ? null : `${name} ${shown}${note}`;
+	};
 	const ca = a.camera;
 	const cb = b.camera;
-	if (ca.iso !== cb.iso) push('iso', ca.iso, cb.iso, `ISO ${ca.iso} → ${cb.iso} (${formatStops(stopsBetween(ca.iso, cb.iso))})`);
-	if (ca.aperture !== cb.aperture)
-		push('aperture', ca.aperture, cb.aperture, `Aperture ${formatFNumber(ca.aperture)} → ${formatFNumber(cb.aperture)} (${formatStops(-2 * stopsBetween(ca.aperture, cb.aperture))} of light)`);
-	if (ca.shutter !== cb.shutter)
-		push('shutter', ca.shutter, cb.shutter, `Shutter speed ${formatShutter(ca.shutter)} → ${formatShutter(cb.shutter)} (${formatStops(stopsBetween(ca.shutter, cb.shutter))} of ambient)`);
-	if (ca.magnification !== cb.magnification)
-		push('magnification', ca.magnification, cb.magnification, `Magnification ${roundSig(ca.magnification)}× → ${roundSig(cb.magnification)}×`);
+	push('iso', ca.iso, cb.iso, change('ISO', ca.iso, cb.iso, (v) => roundSig(v, 4), stopsNote(stopsBetween(ca.iso, cb.iso))));
+	push('aperture', ca.aperture, cb.aperture, change('Aperture', ca.aperture, cb.aperture, (v) => formatFNumber(v), ofLight(-2 * stopsBetween(ca.aperture, cb.aperture), 'light')));
+	push('shutter', ca.shutter, cb.shutter, change('Shutter speed', ca.shutter, cb.shutter, formatShutter, ofLight(stopsBetween(ca.shutter, cb.shutter), 'ambient')));
+	push('magnification', ca.magnification, cb.magnification, change('Magnification', ca.magnification, cb.magnification, (v) => `${roundSig(v)}×`));
 	for (const [key, name, fmt] of OPTIONAL_CAMERA_FIELDS) {
 		const va = ca[key] as number | undefined;
 		const vb = cb[key] as number | undefined;
-		if (va !== vb) push(key, va ?? null, vb ?? null, `${name} ${beforeAfter(va, vb, fmt)}`);
+		push(key, va ?? null, vb ?? null, change(name, va, vb, (v) => (v === undefined ? 'not set' : fmt(v))));
 	}
 	if ((ca.centreColumn ?? 'down') !== (cb.centreColumn ?? 'down'))
 		push('centreColumn', ca.centreColumn ?? 'down', cb.centreColumn ?? 'down', `Tripod centre column ${ca.centreColumn ?? 'down'} → ${cb.centreColumn ?? 'down'}`);
@@ -41,8 +51,8 @@ export function settingChanges(a: ExposureScene, b: ExposureScene): SettingEntry
 	if (!aa && ab) push('ambient', null, ab.ev100, `Ambient light added: EV ${roundSig(ab.ev100, 3)} at ISO 100`);
 	else if (aa && !ab) push('ambient', aa.ev100, null, `Ambient light removed (was EV ${roundSig(aa.ev100, 3)})`);
 	else if (aa && ab) {
-		if (aa.ev100 !== ab.ev100) push('ambient.ev100', aa.ev100, ab.ev100, `Ambient EV ${roundSig(aa.ev100, 3)} → ${roundSig(ab.ev100, 3)} (${formatStops(ab.ev100 - aa.ev100)})`);
-		if (aa.kelvin !== ab.kelvin) push('ambient.kelvin', aa.kelvin ?? null, ab.kelvin ?? null, `Ambient colour temperature ${beforeAfter(aa.kelvin || undefined, ab.kelvin || undefined, (k) => `${k} K`)}`);
+		push('ambient.ev100', aa.ev100, ab.ev100, change('Ambient EV', aa.ev100, ab.ev100, (v) => roundSig(v, 3), stopsNote(ab.ev100 - aa.ev100)));
+		push('ambient.kelvin', aa.kelvin ?? null, ab.kelvin ?? null, change('Ambient colour temperature', aa.kelvin || undefined, ab.kelvin || undefined, (k) => (k === undefined ? 'not set' : `${roundSig(k, 4)} K`)));
 	}
 	if ((a.subject.living ?? false) !== (b.subject.living ?? false))
 		push('subject.living', a.subject.living ?? false, b.subject.living ?? false, b.subject.living ? 'The subject is now marked as a living person or animal' : 'The subject is no longer marked as living');

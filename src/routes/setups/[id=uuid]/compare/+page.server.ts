@@ -1,8 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
-import { type RevisionRecord, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
+import { getSetup, getSetupRevision, listSetupRevisions, type RevisionDetail } from '$lib/server/setups';
 import { compareDocuments, comparisonSentences } from '$lib/notebook/compare';
-import { getOrFail } from '$lib/notebook/load';
 
 function revisionParam(url: URL, name: string): number | null {
 	const raw = url.searchParams.get(name);
@@ -11,26 +10,20 @@ function revisionParam(url: URL, name: string): number | null {
 	return Number(raw);
 }
 
-export async function load({ params, fetch, url, locals }) {
+export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
-	const id = encodeURIComponent(params.id);
-	const [setup, revisions] = await Promise.all([
-		getOrFail<SetupRecord>(fetch, `/api/v1/setups/${id}`, url),
-		getOrFail<RevisionSummary[]>(fetch, `/api/v1/setups/${id}/revisions`, url)
-	]);
-	const latest = setup.revisionNumber;
-	const to = revisionParam(url, 'to') ?? latest;
+	const [setup, revisions] = await Promise.all([getSetup(user, params.id), listSetupRevisions(user, params.id)]);
+	const to = revisionParam(url, 'to') ?? setup.revisionNumber;
 	const from = revisionParam(url, 'from') ?? Math.max(1, to - 1);
-	const [a, b] = await Promise.all([
-		getOrFail<RevisionRecord>(fetch, `/api/v1/setups/${id}/revisions/${from}`, url),
-		getOrFail<RevisionRecord>(fetch, `/api/v1/setups/${id}/revisions/${to}`, url)
-	]);
+	const [a, b] = await Promise.all([getSetupRevision(user, params.id, from), getSetupRevision(user, params.id, to)]);
 	const comparison = compareDocuments(a.document, b.document, { unitSystem: user.unitSystem });
-	const meta = (r: RevisionRecord) => ({
+	const meta = (r: RevisionDetail) => ({
 		number: r.number,
 		authorName: r.authorName ?? null,
-		createdAt: r.createdAt ?? '',
+		createdAt: r.createdAt,
 		message: r.message ?? '',
+		restoredFrom: r.restoredFrom,
+		hasThumbnail: r.hasThumbnail,
 		aperture: r.document.scene.camera.aperture
 	});
 	return {

@@ -1,16 +1,10 @@
-import { error, fail } from '@sveltejs/kit';
-import { can, requireUser, studioAccess } from '$lib/server/authz';
-import { callApi, type RevisionSummary, type SetupRecord } from '$lib/notebook/api';
-import { getOrFail } from '$lib/notebook/load';
+import { fail } from '@sveltejs/kit';
+import { requireUser } from '$lib/server/authz';
+import { getSetup, listSetupRevisions, restoreRevision, StaleRevisionError } from '$lib/server/setups';
 
-export async function load({ params, fetch, url, locals }) {
+export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
-	const id = encodeURIComponent(params.id);
-	const [setup, revisions] = await Promise.all([
-		getOrFail<SetupRecord & { canEdit?: boolean }>(fetch, `/api/v1/setups/${id}`, url),
-		getOrFail<(RevisionSummary & { restoredFrom?: number | null })[]>(fetch, `/api/v1/setups/${id}/revisions`, url)
-	]);
-	const canEdit = setup.canEdit ?? can(await studioAccess(user, setup.studioId), 'setups.edit');
+	const [setup, revisions] = await Promise.all([getSetup(user, params.id), listSetupRevisions(user, params.id)]);
 	return {
 		setup: { id: setup.id, title: setup.title, subject: setup.subject, revisionNumber: setup.revisionNumber },
 		revisions: revisions.map((r) => ({
@@ -18,33 +12,33 @@ export async function load({ params, fetch, url, locals }) {
 			authorName: r.authorName,
 			createdAt: r.createdAt,
 			message: r.message,
-			restoredFrom: r.restoredFrom ?? null
+			restoredFrom: r.restoredFrom,
+			hasThumbnail: r.hasThumbnail
 		})),
-		canEdit
+		canEdit: setup.canEdit
 	};
 }
 
 export const actions = {
 	/** A new revision that copies an older one; refused if someone saved since the page was loaded. */
-	restore: async ({ request, params, fetch }) => {
+	restore: async ({ request, params, locals }) => {
 		const form = await request.formData();
 		const n = Number(form.get('revision'));
 		const latest = Number(form.get('latestRevision'));
 		if (!Number.isInteger(n) || n < 1) return fail(400, { action: 'restore', errors: { form: 'Pick a revision to restore.' } as Record<string, string> });
-		const r = await callApi<{ revisionNumber: number }>(fetch, `/api/v1/setups/${encodeURIComponent(params.id)}/revisions/${n}/restore`, {
-			method: 'POST',
-			body: Number.isInteger(latest) && latest >= 1 ? { baseRevision: latest } : {}
-		});
-		if (r.ok) return { action: 'restore', restored: n, revisionNumber: r.data.revisionNumber };
-		if (r.status === 409) {
+		const baseRevision = Number.isInteger(latest) && latest >= 1 ? latest : undefined;
+		try {
+			const { revisionNumber } = await restoreRevision(locals.user, params.id, n, { baseRevision });
+			return { action: 'restore', restored: n, revisionNumber };
+		} catch (e) {
+			// A refusal (401, 403, 404) goes on to SvelteKit's error page, as for any page.
+			if (!(e instanceof StaleRevisionError)) throw e;
 			return fail(409, {
 				action: 'restore',
 				errors: {
-					form: `Not restored: someone saved revision ${String(r.body?.latestRevision ?? 'a newer one')} while this page was open. The list now shows it; look at what changed, then restore again if you still want revision ${n}.`
+					form: `Not restored: someone saved revision ${e.latestRevision} while this page was open. The list now shows it; look at what changed, then restore again if you still want revision ${n}.`
 				} as Record<string, string>
 			});
 		}
-		if (r.status === 401 || r.status === 403 || r.status === 404) error(r.status, r.message);
-		return fail(r.status, { action: 'restore', errors: { form: r.message } as Record<string, string> });
 	}
 };

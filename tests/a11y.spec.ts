@@ -1,0 +1,130 @@
+// Every page checked with axe (WCAG 2.1 A and AA rules), in the light and the dim theme, at desktop
+// and phone width: any serious or critical violation fails, named with its rule, page and element.
+import AxeBuilder from '@axe-core/playwright';
+import type { Page } from '@playwright/test';
+import { expect, signedInAs, test } from './fixtures';
+
+const OWNER = 'mara.quill@fernhill.example';
+// The seeded quartz cluster (src/lib/server/seed/notebook-data.ts): four revisions.
+const QUARTZ_ID = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
+
+interface Found {
+	page: string;
+	rule: string;
+	impact: string;
+	help: string;
+	targets: string[];
+}
+
+const WCAG_21_AA = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'];
+
+/**
+ * Known violations inside the plan editor's own components, left to the editor's redesign on another
+ * branch: each rule is skipped on its element only, and checked everywhere else on the page.
+ * REMOVE once the editor's branch is merged (the lead removes it):
+ * - label-content-name-mismatch: the element list's buttons (src/lib/editor/workspace/ElementList.svelte)
+ *   are named "<label>, <kind>, at <x>, <y>" while they show "<label> · <kind> · <x>, <y>".
+ */
+const EDITOR_EXCEPTIONS: { rule: string; selector: string }[] = [{ rule: 'label-content-name-mismatch', selector: '[data-testid="element-list"]' }];
+
+const serious = (violations: Awaited<ReturnType<AxeBuilder['analyze']>>['violations'], name: string): Found[] =>
+	violations
+		.filter((v) => v.impact === 'serious' || v.impact === 'critical')
+		.map((v) => ({ page: name, rule: v.id, impact: v.impact!, help: v.help, targets: v.nodes.map((n) => n.target.join(' ')) }));
+
+/** Waits until the page is live (scripts loaded, lazy panels in), then runs axe over it. */
+async function audit(page: Page, name: string, url: string, exceptions: typeof EDITOR_EXCEPTIONS = []): Promise<Found[]> {
+	const res = await page.goto(url);
+	expect(res, name).not.toBeNull();
+	await page.waitForLoadState('networkidle');
+	const skipped = exceptions.map((e) => e.rule);
+	const found = serious((await new AxeBuilder({ page }).withTags(WCAG_21_AA).disableRules(skipped).analyze()).violations, name);
+	// Each skipped rule still runs over the whole page but its one element.
+	for (const e of exceptions) {
+		const rest = await new AxeBuilder({ page }).withRules([e.rule]).exclude(e.selector).analyze();
+		found.push(...serious(rest.violations, name));
+	}
+	return found;
+}
+
+const SIGNED_OUT: [string, string][] = [
+	['home', '/'],
+	['sign-in', '/signin'],
+	['calculator', '/calc'],
+	['API reference', '/api']
+];
+
+const SIGNED_IN: [string, string][] = [
+	['studios', '/studios'],
+	['notebook list', '/setups'],
+	['setup page with the editor', `/setups/${QUARTZ_ID}`],
+	['history', `/setups/${QUARTZ_ID}/history`],
+	['compare', `/setups/${QUARTZ_ID}/compare?from=2&to=4`],
+	['gear', '/gear'],
+	['account', '/account'],
+	['error page (404)', '/setups/00000000-0000-4000-8000-000000000000']
+];
+
+for (const scheme of ['light', 'dark'] as const) {
+	for (const [width, viewport] of [
+		['desktop', { width: 1280, height: 900 }],
+		['phone', { width: 390, height: 844 }]
+	] as const) {
+		test(`no serious or critical axe violation on any page: ${scheme} theme, ${width} width`, async ({ page, context, browser, baseURL }) => {
+			test.setTimeout(180_000);
+			await page.setViewportSize(viewport);
+			await page.emulateMedia({ colorScheme: scheme });
+			const found: Found[] = [];
+			for (const [name, url] of SIGNED_OUT) found.push(...(await audit(page, name, url)));
+
+			await signedInAs(context, browser, baseURL, OWNER);
+			// A studio of the owner's, from the studios page.
+			await page.goto('/studios');
+			const studio = await page.locator('main a[href^="/studios/"]').first().getAttribute('href');
+			expect(studio).toMatch(/^\/studios\/[0-9a-f-]{36}$/);
+			for (const [name, url] of [...SIGNED_IN, ['a studio', studio!] as [string, string]])
+				found.push(...(await audit(page, name, url, name === 'setup page with the editor' ? EDITOR_EXCEPTIONS : [])));
+
+			// The theme really was the one asked for on every page.
+			expect(await page.evaluate(() => document.documentElement.classList.contains('dark'))).toBe(scheme === 'dark');
+			expect(found, found.map((f) => `${f.page}: ${f.rule} (${f.impact}) ${f.help}: ${f.targets.join(', ')}`).join('\n')).toEqual([]);
+		});
+	}
+}
+
+test('a form error is tied to its field and announced', async ({ page, context, browser, baseURL }) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	await page.goto('/studios');
+	await page.waitForLoadState('networkidle');
+	const name = page.getByLabel('Name', { exact: true });
+	await name.fill('   ');
+	await page.getByRole('button', { name: 'Make the studio' }).click();
+	// The message is an alert (read out as it appears) and the field's description; the field is invalid.
+	const alert = page.getByRole('alert').filter({ hasText: 'Give the studio a name.' });
+	await expect(alert).toBeVisible();
+	await expect(name).toHaveAttribute('aria-invalid', 'true');
+	await expect(name).toHaveAccessibleDescription('Give the studio a name.');
+});
+
+test.describe('times in the reader’s own time zone', () => {
+	test.use({ timezoneId: 'Pacific/Auckland' });
+
+	test('the history shows a seeded save at its local time, and the UTC time without JavaScript', async ({ page, context, browser, baseURL }) => {
+		await signedInAs(context, browser, baseURL, OWNER);
+		// Revision 1 of the quartz cluster was saved at 18:40 UTC on 6 October 2026: 07:40 the next morning in Auckland (NZDT, UTC+13).
+		await page.goto(`/setups/${QUARTZ_ID}/history`);
+		const first = page.getByTestId('revision-timeline').locator('li[data-revision="1"] time');
+		await expect(first).toHaveAttribute('datetime', '2026-10-06T18:40:00.000Z');
+		await expect(first).toHaveText(/^7 Oct 2026, 07:40 (GMT\+13|NZDT)$/);
+	});
+});
+
+test.describe('times without JavaScript', () => {
+	test.use({ javaScriptEnabled: false });
+
+	test('the server writes them in UTC and says so', async ({ page, context, browser, baseURL }) => {
+		await signedInAs(context, browser, baseURL, OWNER);
+		await page.goto(`/setups/${QUARTZ_ID}/history`);
+		await expect(page.getByTestId('revision-timeline').locator('li[data-revision="1"] time')).toHaveText('6 Oct 2026, 18:40 UTC');
+	});
+});
