@@ -4,12 +4,16 @@
  * writes the model.
  *
  * Locked elements are not moved, turned, aimed or deleted (their other properties can still be set).
- * A plan has one subject (the scene needs it) and at most one camera.
+ * A plan has one subject (the scene needs it), at most one camera and at most one ambient light (the
+ * engine takes one ambient).
  */
 import { z } from 'zod';
-import { defaultElement, newElementId, newElementLabel } from './model/defaults';
+import { defaultElement, KIND_LABELS, newElementId, newElementLabel } from './model/defaults';
 import { emptyDiff, type ModelDiff } from './model/diff';
 import { aimAngles, direction2, normaliseDeg, position3 } from './model/geometry';
+import { AMBIENT_ID } from './model/layout';
+import { powerNeeded } from './model/power-needed';
+import { flashFiguresFromShelf, type ShelfGear } from './model/shelf';
 import {
 	ambientSettingsSchema,
 	cameraSettingsSchema,
@@ -20,7 +24,7 @@ import {
 	type ElementKind
 } from './model/schema';
 import type { EditorModel, Vec2, Vec3 } from './model/types';
-import { cameraOf, subjectOf, topZIndex } from './model/types';
+import { ambientOf, cameraOf, subjectOf, topZIndex } from './model/types';
 
 export interface CommandError {
 	message: string;
@@ -80,10 +84,18 @@ function nearestEmitter(model: EditorModel, point: Vec2): EditorElement | undefi
 	return best;
 }
 
+/** Why a plan cannot take another element of this kind (null: it can). */
+function oneOfAKind(model: EditorModel, kind: ElementKind): string | null {
+	if (kind === 'subject' && subjectOf(model)) return 'the plan already has a subject';
+	if (kind === 'camera' && cameraOf(model)) return 'the plan already has a camera';
+	if (kind === 'ambient' && ambientOf(model)) return 'the plan already has an ambient light (a setup has one: edit it, or delete it first)';
+	return null;
+}
+
 export function addElement(kind: ElementKind, at: AddOptions): Command {
 	return (model) => {
-		if (kind === 'subject' && subjectOf(model)) return refuse('the plan already has a subject');
-		if (kind === 'camera' && cameraOf(model)) return refuse('the plan already has a camera');
+		const taken = oneOfAKind(model, kind);
+		if (taken) return refuse(taken);
 		const id = newElementId(model, kind);
 		let el: EditorElement = defaultElement(kind, {
 			id,
@@ -112,8 +124,8 @@ export function addElement(kind: ElementKind, at: AddOptions): Command {
 /** Puts a whole element on the plan (pasting, the element list's "add as"). A taken id gets a new one. */
 export function insertElement(element: EditorElement): Command {
 	return (model) => {
-		if (element.kind === 'subject' && subjectOf(model)) return refuse('the plan already has a subject');
-		if (element.kind === 'camera' && cameraOf(model)) return refuse('the plan already has a camera');
+		const taken = oneOfAKind(model, element.kind);
+		if (taken) return refuse(taken);
 		const id = element.id in model.elements ? newElementId(model, element.kind) : element.id;
 		const checked = checkElement({ ...element, id });
 		if (!checked.ok) return checked.result;
@@ -240,8 +252,8 @@ export function duplicateElements(ids: readonly string[], offsetM: Vec2 = [0.05,
 	return (model) => {
 		const picked = pick(model, ids, { unlockedOnly: false });
 		if (picked.error) return picked.error;
-		const copyable = picked.elements.filter((e) => e.kind !== 'subject' && e.kind !== 'camera');
-		if (!copyable.length) return refuse('the subject and the camera cannot be duplicated: a plan has one of each');
+		const copyable = picked.elements.filter((e) => e.kind !== 'subject' && e.kind !== 'camera' && e.kind !== 'ambient');
+		if (!copyable.length) return refuse('the subject, the camera and the ambient light cannot be duplicated: a plan has one of each');
 		const diff = emptyDiff();
 		const taken = new Set<string>();
 		const newIds = new Map<string, string>();
@@ -311,7 +323,8 @@ export function setElementProperties(id: string, patch: Readonly<Record<string, 
 		if (!el) return refuse('no such element on the plan');
 		if ('id' in patch && patch.id !== id) return refuse('id cannot be changed', ['id']);
 		if ('kind' in patch && patch.kind !== el.kind) return refuse('kind cannot be changed', ['kind']);
-		for (const key of Object.keys(patch)) if (!(key in el) && key !== 'normal') return refuse(`${key} is not a property of a ${el.kind}`, [key]);
+		const shape = elementSchemaFor(el.kind).shape;
+		for (const key of Object.keys(patch)) if (!(key in shape)) return refuse(`${key} is not a property of a ${el.kind}`, [key]);
 		if (el.locked && !(patch.locked === false)) {
 			const key = GEOMETRY_KEYS.find((k) => k in patch && patch[k] !== (el as Record<string, unknown>)[k]);
 			if (key) return refuse(`“${el.label}” is locked: unlock it to change ${key}`, [key]);
@@ -347,16 +360,94 @@ export function setCameraSettings(patch: Partial<CameraSettings>): Command {
 	};
 }
 
+/**
+ * The scene's ambient (EV at ISO 100, kelvin), kept on the ambient element: sets it on the one the plan
+ * has, or puts open sky behind the subject; null removes it.
+ */
 export function setAmbient(ambient: AmbientSettings | null): Command {
 	return (model) => {
-		let next: AmbientSettings | null = null;
-		if (ambient !== null) {
-			const parsed = ambientSettingsSchema.safeParse(ambient);
-			if (!parsed.success) return zodError(parsed.error, ['ambient']);
-			next = parsed.data;
-		}
+		const current = ambientOf(model);
 		const diff = emptyDiff();
-		diff.ambient = [model.ambient, next];
-		return ok(diff);
+		if (ambient === null) {
+			if (current) diff.removed[current.id] = current;
+			return ok(diff);
+		}
+		const parsed = ambientSettingsSchema.safeParse(ambient);
+		if (!parsed.success) return zodError(parsed.error, ['ambient']);
+		const figures = { ev100: parsed.data.ev100, kelvin: parsed.data.kelvin ?? null };
+		if (current) {
+			diff.updated[current.id] = [current, { ...current, ...figures }];
+			return ok(diff);
+		}
+		const subject = subjectOf(model);
+		const id = AMBIENT_ID in model.elements ? newElementId(model, 'ambient') : AMBIENT_ID;
+		const at = { xM: subject?.xM ?? 0, yM: (subject?.yM ?? 0) - 0.4, heightM: (subject?.heightM ?? 0) + 0.3, rotationDeg: 90 };
+		const el = defaultElement('ambient', { id, label: KIND_LABELS.ambient, ...at, zIndex: topZIndex(model) + 1 });
+		diff.added[id] = { ...el, source: 'sky', ...figures };
+		return ok(diff, [id]);
+	};
+}
+
+// ---------- from the gear shelf, and the power needed ----------
+
+/**
+ * A flash's guide number (with its measured calibration), ladder, zoom, kelvin and mains caution from a
+ * shelf flash; null: the figures stay and the flash no longer names a shelf item (typed by hand).
+ * A power below the flash's lowest step is raised to it (the flash cannot go lower).
+ */
+export function takeFlashFromShelf(id: string, flash: ShelfGear<'flash'> | null): Command {
+	return (model) => {
+		const el = model.elements[id];
+		if (!el || el.kind !== 'flash') return refuse('select a flash', ['gearId']);
+		if (!flash) return setElementProperties(id, { gearId: undefined })(model);
+		const figures = flashFiguresFromShelf(flash);
+		return setElementProperties(id, { ...figures, power: Math.max(el.power, figures.lowestPower) })(model);
+	};
+}
+
+/** One diff that changes a camera element and the camera settings together (one undo step). */
+function cameraChange(model: EditorModel, id: string, elementPatch: Record<string, unknown>, settingsPatch: Partial<CameraSettings>): CommandResult {
+	const el = model.elements[id];
+	if (!el || el.kind !== 'camera') return refuse('select the camera');
+	const element = setElementProperties(id, elementPatch)(model);
+	if (!element.ok) return element;
+	if (!Object.keys(settingsPatch).length) return element;
+	const settings = setCameraSettings(settingsPatch)(model);
+	if (!settings.ok) return settings;
+	return ok({ ...element.diff, camera: settings.diff.camera });
+}
+
+/** A camera body from the shelf: its sensor (field of view), circle of confusion and sync speed. */
+export function takeCameraFromShelf(id: string, body: ShelfGear<'camera'> | null): Command {
+	return (model) => {
+		if (!body) return cameraChange(model, id, { gearId: undefined }, {});
+		const s = body.spec;
+		return cameraChange(model, id, { gearId: body.id, sensorWidthMm: s.sensorWidthMm, sensorHeightMm: s.sensorHeightMm }, { cocMm: s.cocMm, syncSpeed: s.syncSpeedS });
+	};
+}
+
+/**
+ * A lens from the shelf: its focal length (field of view), pupil magnification (working aperture) and
+ * marked aperture range (the aperture table's rows).
+ */
+export function takeLensFromShelf(id: string, lens: ShelfGear<'lens'> | null): Command {
+	return (model) => {
+		if (!lens) return cameraChange(model, id, { lens: null }, {});
+		const s = lens.spec;
+		return cameraChange(
+			model,
+			id,
+			{ lens: { name: lens.name.slice(0, 200), gearId: lens.id, pupilMagnification: s.pupilMagnification }, focalLengthMm: s.focalLengthMm },
+			{ pupilMagnification: s.pupilMagnification, minAperture: s.widestAperture, maxAperture: s.narrowestAperture }
+		);
+	};
+}
+
+/** Sets a flash to the ladder step nearest the power the setup needs for a correct exposure (`powerNeeded`). */
+export function setPowerToNeeded(id: string): Command {
+	return (model) => {
+		const needed = powerNeeded(model, id);
+		if (!needed.ok) return refuse(needed.message, ['power']);
+		return setElementProperties(id, { power: needed.step.fraction })(model);
 	};
 }

@@ -7,8 +7,10 @@
  *   position [x, y, z]   where the scene has no place for it (camera, diffuser, background, a flag's height);
  *   widthM, depthM        plan sizes; heightM the upright size of a panel (card, diffuser, flag).
  * The editor adds its own fields beside them (the document keeps unknown fields): zIndex, tiltDeg,
- * modifier, otherLossStops, facingSet, focalLengthMm, sensorWidthMm, sensorHeightMm, and for a card
- * or a diffuser the figures the scene cannot hold for it (surface, reflectance, source, lossStops).
+ * modifier, otherLossStops, facingSet, focalLengthMm, sensorWidthMm, sensorHeightMm, lens (a camera's
+ * lens from the gear shelf), lowestPower and zoomMm (a flash's), source (the ambient's window or sky),
+ * and for a card or a diffuser the figures the scene cannot hold for it (surface, reflectance, source,
+ * lossStops). The ambient light's EV and kelvin are the scene's; its place and width are the plan's.
  * Everything the editor does not use is written back as it was read: other fields of an entry (a
  * subject's height, a gear id), entries of kinds it does not draw, the plan's print frame.
  */
@@ -32,15 +34,16 @@ const isKind = (k: unknown): k is ElementKind => typeof k === 'string' && (ELEME
 /** Fields the editor keeps under its own names, per kind. */
 const EDITOR_FIELDS: Record<ElementKind, readonly string[]> = {
 	subject: ['zIndex', 'widthM', 'depthM'],
-	camera: ['zIndex', 'focalLengthMm', 'sensorWidthMm', 'sensorHeightMm'],
-	flash: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg'],
+	camera: ['zIndex', 'focalLengthMm', 'sensorWidthMm', 'sensorHeightMm', 'gearId', 'lens'],
+	flash: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg', 'lowestPower', 'zoomMm', 'gearId'],
 	continuous: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg'],
 	reflector: ['zIndex', 'widthM', 'tiltDeg', 'facingSet', 'surface', 'reflectance', 'source'],
 	diffuser: ['zIndex', 'widthM', 'tiltDeg', 'lossStops'],
 	flag: ['zIndex', 'widthM', 'tiltDeg'],
+	ambient: ['zIndex', 'widthM', 'source'],
 	background: ['zIndex', 'widthM', 'depthM']
 };
-const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag']);
+const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag', 'ambient']);
 const PANELS: ReadonlySet<ElementKind> = new Set(['reflector', 'diffuser', 'flag']);
 
 function expandColour(c: unknown): unknown {
@@ -133,9 +136,13 @@ function entryFor(el: EditorElement, read: Entry | undefined): Entry {
 			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM });
 			break;
 		case 'camera':
-			Object.assign(entry, { focalLengthMm: el.focalLengthMm, sensorWidthMm: el.sensorWidthMm, sensorHeightMm: el.sensorHeightMm });
+			Object.assign(entry, { focalLengthMm: el.focalLengthMm, sensorWidthMm: el.sensorWidthMm, sensorHeightMm: el.sensorHeightMm, lens: el.lens });
+			setGearId(entry, el.gearId);
 			break;
 		case 'flash':
+			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg, lowestPower: el.lowestPower, zoomMm: el.zoomMm });
+			setGearId(entry, el.gearId);
+			break;
 		case 'continuous':
 			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg });
 			break;
@@ -156,11 +163,20 @@ function entryFor(el: EditorElement, read: Entry | undefined): Entry {
 		case 'flag':
 			Object.assign(entry, { widthM: el.widthM, heightM: el.panelHeightM, tiltDeg: el.tiltDeg });
 			break;
+		case 'ambient':
+			Object.assign(entry, { widthM: el.widthM, source: el.source });
+			break;
 		case 'background':
 			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM, colour: el.colour });
 			break;
 	}
 	return entry;
+}
+
+/** The gear id the element now has (a flash typed by hand no longer names the shelf item it came from). */
+function setGearId(entry: Entry, gearId: string | undefined) {
+	if (gearId) entry.gearId = gearId;
+	else delete entry.gearId;
 }
 
 export function planFromModel(model: EditorModel): Plan {
