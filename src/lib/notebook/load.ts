@@ -5,6 +5,7 @@
 import type { SetupDocument } from '$lib/scene/document';
 import { error, redirect } from '@sveltejs/kit';
 import { callApi, type Fetch } from './api';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 /** GET an API path or end the page with the API's status and message. */
 export async function getOrFail<T>(fetchFn: Fetch, path: string, url: URL): Promise<T> {
@@ -20,7 +21,7 @@ export async function getOrFail<T>(fetchFn: Fetch, path: string, url: URL): Prom
  */
 export function blankDocument(): SetupDocument {
 	return {
-		schemaVersion: 1,
+		schemaVersion: CURRENT_SCHEMA_VERSION,
 		scene: {
 			camera: { iso: 100, aperture: 11, shutter: 1 / 125, magnification: 0.5 },
 			subject: { position: [0, 0, 0] },

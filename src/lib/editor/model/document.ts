@@ -85,9 +85,17 @@ function elementFromEntry(id: string, kind: ElementKind, entry: Entry, zIndex: n
 	return base;
 }
 
+/**
+ * A modifier, or a diffuser with no place of its own, fitted to a light (`attachedTo`): drawn on that
+ * light, not on the table. Its loss is already in the light's `lossStops` in the scene.
+ */
+function isFitted(entry: Entry): boolean {
+	return typeof entry.attachedTo === 'string' && (entry.kind === 'modifier' || (entry.kind === 'diffuser' && entry.position === undefined));
+}
+
 /** A modifier entry fitted to a light (`attachedTo`), as the light's modifier (the scene holds its beam and loss). */
 function attachedModifier(plan: Record<string, Entry>, lightId: string, light: SceneLight | undefined): Modifier | null {
-	const entry = Object.values(plan).find((e) => e.kind === 'modifier' && e.attachedTo === lightId);
+	const entry = Object.values(plan).find((e) => isFitted(e) && e.attachedTo === lightId);
 	if (!entry || !light || light.kind === 'reflector') return null;
 	return {
 		name: typeof entry.label === 'string' && entry.label ? entry.label.slice(0, 80) : 'Modifier',
@@ -110,7 +118,7 @@ export function modelFromDocument(doc: { scene: ExposureScene; plan?: Plan | Rec
 	const lightsById = new Map(doc.scene.lights.map((l) => [l.id, l]));
 	const parsed: Record<string, EditorElement> = {};
 	Object.entries(entries).forEach(([id, entry], i) => {
-		if (!isKind(entry.kind)) return; // kept as it is (a modifier, a label, the table, ...)
+		if (!isKind(entry.kind) || isFitted(entry)) return; // kept as it is (a modifier, a label, the table, ...)
 		const kind = entry.kind;
 		const zIndex = typeof entry.zIndex === 'number' ? entry.zIndex : kind === 'background' ? -1000 + i : i + 1;
 		let el = elementFromEntry(id, kind, entry, zIndex, notes);
@@ -184,7 +192,7 @@ export function planFromModel(model: EditorModel): Plan {
 	for (const el of elementsInOrder(model)) elements[el.id] = entryFor(el, model.kept.entries[el.id]);
 	// Entries of kinds the editor does not draw go back as they came, unless what they were fitted to is gone.
 	for (const [id, entry] of Object.entries(model.kept.entries)) {
-		if (isKind(entry.kind) || id in elements) continue;
+		if ((isKind(entry.kind) && !isFitted(entry)) || id in elements) continue;
 		if (typeof entry.attachedTo === 'string' && !(entry.attachedTo in model.elements)) continue;
 		elements[id] = { ...entry };
 	}
