@@ -11,7 +11,7 @@ export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
 	const { setup, latest, exposure, exposureError } = await setupOverview(user, params.id);
 	// The studio's modifiers, offered in the editor beside the presets.
-	const shelf = await listGear(user, { studioId: setup.studioId, kind: 'modifier' });
+	const shelf = await listGear(user, { studioId: setup.studioId });
 	return {
 		setup: {
 			id: setup.id,
