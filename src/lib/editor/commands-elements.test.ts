@@ -1,23 +1,15 @@
 // Commands that describe elements fully: the ambient light, gear from the shelf and the power needed.
 import { describe, expect, it } from 'vitest';
 import { computeExposure } from '$lib/light/scene';
-import {
-	addElement,
-	duplicateElements,
-	removeElements,
-	setAmbient,
-	setElementProperties,
-	setPowerToNeeded,
-	takeCameraFromShelf,
-	takeFlashFromShelf,
-	takeLensFromShelf
-} from './commands';
-import { finishOf, REFLECTOR_FINISHES } from './model/defaults';
+import { addElement, duplicateElements, removeElements, setAmbient, setElementProperties } from './commands';
+import { setPowerToNeeded, takeCameraFromShelf, takeFlashFromShelf, takeLensFromShelf } from './commands-gear';
+import { REFLECTOR_FINISHES } from './model/defaults';
 import { powerNeeded } from './model/power-needed';
 import { toExposureScene } from './model/scene';
 import { shelfGear, type ShelfItem } from './model/shelf';
 import { ambientOf, type EditorModel } from './model/types';
 import { commandSession } from './test-fixtures';
+import { finishOf } from './workspace/inspector/fields';
 
 const exposureOf = (m: EditorModel) => computeExposure(toExposureScene(m));
 
@@ -25,7 +17,8 @@ const SHELF: ShelfItem[] = [
 	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000a001', kind: 'flash', name: 'Test flash 40', spec: { guideNumberM: 40, lowestPower: 1 / 64, syncSpeedS: 1 / 250, calibrationOffsetStops: -1, zoomMm: 35, kelvin: 5600 } },
 	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000e001', kind: 'camera', name: 'Test body', spec: { sensorWidthMm: 23.5, sensorHeightMm: 15.6, cocMm: 0.02, syncSpeedS: 1 / 250 } },
 	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000d001', kind: 'lens', name: 'Test 60 mm macro', spec: { focalLengthMm: 60, maxMagnification: 1, pupilMagnification: 0.7, widestAperture: 2.8, narrowestAperture: 22 } },
-	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000a002', kind: 'flash', name: 'Broken spec', spec: { guideNumberM: -1 } }
+	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000a003', kind: 'flash', name: 'Retired flash', spec: { guideNumberM: 36, lowestPower: 1 / 64, syncSpeedS: 1 / 200 }, retiredAt: '2026-10-01T00:00:00Z' },
+	{ id: '7e1a9b30-4c2d-4f1e-9a0b-00000000b001', kind: 'modifier', name: 'A softbox', spec: { shape: 'softbox', lossStops: 1, beamAngleDeg: 90 } }
 ];
 const gear = shelfGear(SHELF);
 
@@ -108,7 +101,7 @@ describe('set to the power needed', () => {
 });
 
 describe('gear from the shelf', () => {
-	it('reads only items whose spec passes', () => {
+	it('lists the flashes, bodies and lenses in use (not retired ones, not other kinds)', () => {
 		expect(gear.flashes.map((f) => f.name)).toEqual(['Test flash 40']);
 		expect(gear.cameras).toHaveLength(1);
 		expect(gear.lenses).toHaveLength(1);
@@ -123,6 +116,10 @@ describe('gear from the shelf', () => {
 		s.run(takeFlashFromShelf('key', null));
 		expect(s.model.elements.key).toMatchObject({ guideNumber: 28.28 });
 		expect((s.model.elements.key as { gearId?: string }).gearId).toBeUndefined();
+		// A figure the element cannot take is refused, naming it (the shelf's spec is not trusted blindly).
+		const odd = { ...gear.flashes[0], spec: { ...gear.flashes[0].spec, guideNumberM: -3 } };
+		const refused = s.run(takeFlashFromShelf('key', odd));
+		expect(!refused.ok && refused.error.path).toEqual(['guideNumber']);
 		s.undo();
 		s.undo();
 		expect(s.model.elements.key).toMatchObject({ guideNumber: 40, power: 1 / 128 });

@@ -12,8 +12,6 @@ import { defaultElement, KIND_LABELS, newElementId, newElementLabel } from './mo
 import { emptyDiff, type ModelDiff } from './model/diff';
 import { aimAngles, direction2, normaliseDeg, position3 } from './model/geometry';
 import { AMBIENT_ID } from './model/layout';
-import { powerNeeded } from './model/power-needed';
-import { flashFiguresFromShelf, type ShelfGear } from './model/shelf';
 import {
 	ambientSettingsSchema,
 	cameraSettingsSchema,
@@ -35,8 +33,8 @@ export interface CommandError {
 export type CommandResult = { ok: true; diff: ModelDiff; createdIds: string[] } | { ok: false; error: CommandError };
 export type Command = (model: EditorModel) => CommandResult;
 
-const ok = (diff: ModelDiff, createdIds: string[] = []): CommandResult => ({ ok: true, diff, createdIds });
-const refuse = (message: string, path?: (string | number)[]): CommandResult => ({ ok: false, error: { message, path } });
+export const ok = (diff: ModelDiff, createdIds: string[] = []): CommandResult => ({ ok: true, diff, createdIds });
+export const refuse = (message: string, path?: (string | number)[]): CommandResult => ({ ok: false, error: { message, path } });
 
 /** Elements by id, leaving out missing ids; refuses when none is left. */
 function pick(model: EditorModel, ids: readonly string[], { unlockedOnly }: { unlockedOnly: boolean }) {
@@ -385,69 +383,5 @@ export function setAmbient(ambient: AmbientSettings | null): Command {
 		const el = defaultElement('ambient', { id, label: KIND_LABELS.ambient, ...at, zIndex: topZIndex(model) + 1 });
 		diff.added[id] = { ...el, source: 'sky', ...figures };
 		return ok(diff, [id]);
-	};
-}
-
-// ---------- from the gear shelf, and the power needed ----------
-
-/**
- * A flash's guide number (with its measured calibration), ladder, zoom, kelvin and mains caution from a
- * shelf flash; null: the figures stay and the flash no longer names a shelf item (typed by hand).
- * A power below the flash's lowest step is raised to it (the flash cannot go lower).
- */
-export function takeFlashFromShelf(id: string, flash: ShelfGear<'flash'> | null): Command {
-	return (model) => {
-		const el = model.elements[id];
-		if (!el || el.kind !== 'flash') return refuse('select a flash', ['gearId']);
-		if (!flash) return setElementProperties(id, { gearId: undefined })(model);
-		const figures = flashFiguresFromShelf(flash);
-		return setElementProperties(id, { ...figures, power: Math.max(el.power, figures.lowestPower) })(model);
-	};
-}
-
-/** One diff that changes a camera element and the camera settings together (one undo step). */
-function cameraChange(model: EditorModel, id: string, elementPatch: Record<string, unknown>, settingsPatch: Partial<CameraSettings>): CommandResult {
-	const el = model.elements[id];
-	if (!el || el.kind !== 'camera') return refuse('select the camera');
-	const element = setElementProperties(id, elementPatch)(model);
-	if (!element.ok) return element;
-	if (!Object.keys(settingsPatch).length) return element;
-	const settings = setCameraSettings(settingsPatch)(model);
-	if (!settings.ok) return settings;
-	return ok({ ...element.diff, camera: settings.diff.camera });
-}
-
-/** A camera body from the shelf: its sensor (field of view), circle of confusion and sync speed. */
-export function takeCameraFromShelf(id: string, body: ShelfGear<'camera'> | null): Command {
-	return (model) => {
-		if (!body) return cameraChange(model, id, { gearId: undefined }, {});
-		const s = body.spec;
-		return cameraChange(model, id, { gearId: body.id, sensorWidthMm: s.sensorWidthMm, sensorHeightMm: s.sensorHeightMm }, { cocMm: s.cocMm, syncSpeed: s.syncSpeedS });
-	};
-}
-
-/**
- * A lens from the shelf: its focal length (field of view), pupil magnification (working aperture) and
- * marked aperture range (the aperture table's rows).
- */
-export function takeLensFromShelf(id: string, lens: ShelfGear<'lens'> | null): Command {
-	return (model) => {
-		if (!lens) return cameraChange(model, id, { lens: null }, {});
-		const s = lens.spec;
-		return cameraChange(
-			model,
-			id,
-			{ lens: { name: lens.name.slice(0, 200), gearId: lens.id, pupilMagnification: s.pupilMagnification }, focalLengthMm: s.focalLengthMm },
-			{ pupilMagnification: s.pupilMagnification, minAperture: s.widestAperture, maxAperture: s.narrowestAperture }
-		);
-	};
-}
-
-/** Sets a flash to the ladder step nearest the power the setup needs for a correct exposure (`powerNeeded`). */
-export function setPowerToNeeded(id: string): Command {
-	return (model) => {
-		const needed = powerNeeded(model, id);
-		if (!needed.ok) return refuse(needed.message, ['power']);
-		return setElementProperties(id, { power: needed.step.fraction })(model);
 	};
 }

@@ -275,8 +275,6 @@ export class Editor implements ToolHost {
 	setProperties(id: string, patch: Readonly<Record<string, unknown>>) { return this.execute(commands.setElementProperties(id, patch)); }
 	setCameraSettings(patch: Partial<CameraSettings>) { return this.execute(commands.setCameraSettings(patch)); }
 	setAmbient(ambient: AmbientSettings | null) { return this.execute(commands.setAmbient(ambient)); }
-	/** A flash set to the step of its ladder nearest the power the setup needs (one undo step). */
-	setPowerToNeeded(id: string) { return this.execute(commands.setPowerToNeeded(id)); }
 	bringSelectedToFront() { return this.execute(commands.bringToFront(this.#selectedIds)); }
 	sendSelectedToBack() { return this.execute(commands.sendToBack(this.#selectedIds)); }
 

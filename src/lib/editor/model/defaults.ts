@@ -3,7 +3,7 @@
  * and the modifiers offered before the gear shelf is connected. The figures are round demo values of
  * our own, not data of any product: the gear shelf's measured figures replace them.
  */
-import { SKY_PRESET_NAMES, SKY_PRESETS, type SkyPreset } from '$lib/light/ambient';
+import { SKY_PRESETS } from '$lib/light/ambient';
 import { LOWEST_POWER } from '$lib/light/flash';
 import type { ElementKind, ElementOfKind, Modifier, ReflectorFinish } from './schema';
 import type { EditorModel } from './types';
@@ -35,17 +35,6 @@ export const MODIFIER_PRESETS: readonly Modifier[] = [
 	{ name: 'Snoot', beamAngleDeg: 20, lossStops: 1, sizeM: 0.04 },
 	{ name: 'Grid (20°)', beamAngleDeg: 20, lossStops: 1, sizeM: 0.075 }
 ];
-
-/** The reflector finish a surface and reflectance are (null: neither, e.g. a measured figure). */
-export function finishOf(el: { surface: 'diffuse' | 'specular'; reflectance: number }): ReflectorFinish | null {
-	const names = Object.keys(REFLECTOR_FINISHES) as ReflectorFinish[];
-	return names.find((f) => REFLECTOR_FINISHES[f].surface === el.surface && REFLECTOR_FINISHES[f].reflectance === el.reflectance) ?? null;
-}
-
-/** The sky preset an EV is (null: metered or typed). */
-export function skyPresetOf(ev100: number): SkyPreset | null {
-	return SKY_PRESET_NAMES.find((p) => SKY_PRESETS[p].ev100 === ev100) ?? null;
-}
 
 export const KIND_LABELS: Record<ElementKind, string> = {
 	subject: 'Subject',

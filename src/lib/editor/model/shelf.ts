@@ -3,8 +3,7 @@
  * its name, the width of its front for the drawing, and its id, so the server copies the item into the
  * revision's gear when the plan is saved (`referencedGearIds` in `$lib/scene/document`).
  */
-import { LOWEST_POWER } from '$lib/light/flash';
-import { gearSpecSchemas, type GearSpec } from '$lib/scene/gear';
+import type { GearSpec } from '$lib/scene/gear';
 import { modifierSchema, type Modifier } from './schema';
 
 /** A gear item as `GET /api/v1/gear` lists it (only what the editor reads). */
@@ -45,15 +44,13 @@ export function shelfModifiers(items: readonly ShelfItem[]): Modifier[] {
 	return items.map(modifierFromShelf).filter((m): m is Modifier => m !== null);
 }
 
-/** Shelf items of one kind whose spec passes its schema (read only: the shelf's schemas are in `$lib/scene/gear`). */
+/**
+ * Shelf items of one kind in use. Their specs were checked by the gear schemas when they were saved
+ * and come from the server as stored (`$lib/scene/gear`), so they are not parsed again here: the
+ * element's own schema still checks every figure a command takes from them.
+ */
 function shelfOf<K extends 'flash' | 'camera' | 'lens'>(items: readonly ShelfItem[], kind: K): ShelfGear<K>[] {
-	const out: ShelfGear<K>[] = [];
-	for (const item of items) {
-		if (item.kind !== kind || item.retiredAt) continue;
-		const spec = gearSpecSchemas[kind].safeParse(item.spec);
-		if (spec.success) out.push({ id: item.id, name: item.name, spec: spec.data as GearSpec<K> });
-	}
-	return out;
+	return items.filter((i) => i.kind === kind && !i.retiredAt).map((i) => ({ id: i.id, name: i.name, spec: i.spec as GearSpec<K> }));
 }
 
 export interface ShelfGear<K extends 'flash' | 'camera' | 'lens'> {
@@ -67,20 +64,3 @@ export function shelfGear(items: readonly ShelfItem[]) {
 	return { flashes: shelfOf(items, 'flash'), cameras: shelfOf(items, 'camera'), lenses: shelfOf(items, 'lens') };
 }
 export type ShelfGearLists = ReturnType<typeof shelfGear>;
-
-/**
- * A flash element's figures from a shelf flash. The guide number is the rated one corrected by the
- * flash's measured calibration: exposure goes with GN², so c stops more light is GN × 2^(c/2) (the
- * guide number definition, see `$lib/light/flash.ts`). Its ladder ends at its lowest power.
- */
-export function flashFiguresFromShelf(flash: ShelfGear<'flash'>) {
-	const s = flash.spec;
-	return {
-		gearId: flash.id,
-		guideNumber: Math.round(s.guideNumberM * 2 ** (s.calibrationOffsetStops / 2) * 100) / 100,
-		lowestPower: Math.max(LOWEST_POWER, s.lowestPower),
-		zoomMm: s.zoomMm ?? null,
-		mainsPowered: s.mainsPowered,
-		...(s.kelvin !== undefined ? { kelvin: s.kelvin } : {})
-	};
-}

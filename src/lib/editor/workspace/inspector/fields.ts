@@ -4,12 +4,23 @@
  * by the editor's unit parser (`30 cm`, `12 in`; a bare number is cm or inches), so they only name it.
  * Pure: tested without a browser.
  */
-import { SKY_PRESET_NAMES, SKY_PRESETS } from '$lib/light/ambient';
+import { SKY_PRESET_NAMES, SKY_PRESETS, type SkyPreset } from '$lib/light/ambient';
 import { roundSig } from '$lib/light/format';
 import { plainNumber } from '$lib/light/number-text';
-import { finishOf, REFLECTOR_FINISHES, skyPresetOf } from '../../model/defaults';
+import { REFLECTOR_FINISHES } from '../../model/defaults';
 import { formatPower, parsePower } from '../../model/power-notation';
 import type { EditorElement, ReflectorFinish } from '../../model/schema';
+
+/** The reflector finish a surface and reflectance are (null: neither, e.g. a measured figure). */
+export function finishOf(el: { surface: 'diffuse' | 'specular'; reflectance: number }): ReflectorFinish | null {
+	const names = Object.keys(REFLECTOR_FINISHES) as ReflectorFinish[];
+	return names.find((f) => REFLECTOR_FINISHES[f].surface === el.surface && REFLECTOR_FINISHES[f].reflectance === el.reflectance) ?? null;
+}
+
+/** The sky preset an EV is (null: metered or typed). */
+export function skyPresetOf(ev100: number): SkyPreset | null {
+	return SKY_PRESET_NAMES.find((p) => SKY_PRESETS[p].ev100 === ev100) ?? null;
+}
 
 export type Patch = Record<string, unknown>;
 export type Reading = { ok: true; patch: Patch } | { ok: false; message: string };
