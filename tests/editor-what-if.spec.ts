@@ -50,7 +50,7 @@ test('what-if: twice as far is −2 stops at once, nothing moves until Keep, Kee
 	await expect(whatIf.getByTestId('what-if-power')).toHaveText('power +1.0 stop · 1/4');
 	await whatIf.getByRole('button', { name: 'Drop' }).click();
 	await expect(whatIf.getByTestId('what-if-power')).toHaveText('same power: 0.0 stops · 1/8');
-	await expect(page.getByLabel('Power (fraction of full)')).toHaveValue('0.125');
+	await expect(page.locator('#prop-power')).toHaveValue('1/8');
 	await expect(undo).toBeDisabled();
 });
 

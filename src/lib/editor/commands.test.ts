@@ -11,41 +11,11 @@ import {
 	setAmbient,
 	setCameraSettings,
 	setElementProperties,
-	setLocked,
-	type Command
+	setLocked
 } from './commands';
-import { History } from './history';
-import { applyDiff } from './model/diff';
 import { direction3 } from './model/geometry';
 import type { EditorModel } from './model/types';
-import { quartzModel } from './test-fixtures';
-
-/** Runs commands each as an undo step, as the editor does. */
-function session(model = quartzModel()) {
-	const history = new History();
-	return {
-		get model() {
-			return model;
-		},
-		run(command: Command) {
-			const r = command(model);
-			if (r.ok) {
-				history.mark();
-				history.record(r.diff);
-				model = applyDiff(model, r.diff);
-			}
-			return r;
-		},
-		undo() {
-			const d = history.undo();
-			if (d) model = applyDiff(model, d);
-		},
-		redo() {
-			const d = history.redo();
-			if (d) model = applyDiff(model, d);
-		}
-	};
-}
+import { commandSession as session } from './test-fixtures';
 
 const only = (m: EditorModel, kind: string) => Object.values(m.elements).filter((e) => e.kind === kind);
 
@@ -173,9 +143,9 @@ describe('commands', () => {
 		const bad = s.run(setCameraSettings({ iso: -5 }));
 		expect(!bad.ok && bad.error.path).toEqual(['camera', 'iso']);
 		s.run(setAmbient({ ev100: 9 }));
-		expect(s.model.ambient).toEqual({ ev100: 9 });
+		expect(only(s.model, 'ambient')).toMatchObject([{ ev100: 9, kelvin: null, source: 'sky' }]);
 		s.undo();
-		expect(s.model.ambient).toBeNull();
+		expect(only(s.model, 'ambient')).toEqual([]);
 		s.undo();
 		expect(s.model.camera.aperture).toBe(16);
 	});

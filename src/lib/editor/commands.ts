@@ -4,12 +4,14 @@
  * writes the model.
  *
  * Locked elements are not moved, turned, aimed or deleted (their other properties can still be set).
- * A plan has one subject (the scene needs it) and at most one camera.
+ * A plan has one subject (the scene needs it), at most one camera and at most one ambient light (the
+ * engine takes one ambient).
  */
 import { z } from 'zod';
-import { defaultElement, newElementId, newElementLabel } from './model/defaults';
+import { defaultElement, KIND_LABELS, newElementId, newElementLabel } from './model/defaults';
 import { emptyDiff, type ModelDiff } from './model/diff';
 import { aimAngles, direction2, normaliseDeg, position3 } from './model/geometry';
+import { AMBIENT_ID } from './model/layout';
 import {
 	ambientSettingsSchema,
 	cameraSettingsSchema,
@@ -20,7 +22,7 @@ import {
 	type ElementKind
 } from './model/schema';
 import type { EditorModel, Vec2, Vec3 } from './model/types';
-import { cameraOf, subjectOf, topZIndex } from './model/types';
+import { ambientOf, cameraOf, subjectOf, topZIndex } from './model/types';
 
 export interface CommandError {
 	message: string;
@@ -31,8 +33,8 @@ export interface CommandError {
 export type CommandResult = { ok: true; diff: ModelDiff; createdIds: string[] } | { ok: false; error: CommandError };
 export type Command = (model: EditorModel) => CommandResult;
 
-const ok = (diff: ModelDiff, createdIds: string[] = []): CommandResult => ({ ok: true, diff, createdIds });
-const refuse = (message: string, path?: (string | number)[]): CommandResult => ({ ok: false, error: { message, path } });
+export const ok = (diff: ModelDiff, createdIds: string[] = []): CommandResult => ({ ok: true, diff, createdIds });
+export const refuse = (message: string, path?: (string | number)[]): CommandResult => ({ ok: false, error: { message, path } });
 
 /** Elements by id, leaving out missing ids; refuses when none is left. */
 function pick(model: EditorModel, ids: readonly string[], { unlockedOnly }: { unlockedOnly: boolean }) {
@@ -80,10 +82,18 @@ function nearestEmitter(model: EditorModel, point: Vec2): EditorElement | undefi
 	return best;
 }
 
+/** Why a plan cannot take another element of this kind (null: it can). */
+function oneOfAKind(model: EditorModel, kind: ElementKind): string | null {
+	if (kind === 'subject' && subjectOf(model)) return 'the plan already has a subject';
+	if (kind === 'camera' && cameraOf(model)) return 'the plan already has a camera';
+	if (kind === 'ambient' && ambientOf(model)) return 'the plan already has an ambient light (a setup has one: edit it, or delete it first)';
+	return null;
+}
+
 export function addElement(kind: ElementKind, at: AddOptions): Command {
 	return (model) => {
-		if (kind === 'subject' && subjectOf(model)) return refuse('the plan already has a subject');
-		if (kind === 'camera' && cameraOf(model)) return refuse('the plan already has a camera');
+		const taken = oneOfAKind(model, kind);
+		if (taken) return refuse(taken);
 		const id = newElementId(model, kind);
 		let el: EditorElement = defaultElement(kind, {
 			id,
@@ -112,8 +122,8 @@ export function addElement(kind: ElementKind, at: AddOptions): Command {
 /** Puts a whole element on the plan (pasting, the element list's "add as"). A taken id gets a new one. */
 export function insertElement(element: EditorElement): Command {
 	return (model) => {
-		if (element.kind === 'subject' && subjectOf(model)) return refuse('the plan already has a subject');
-		if (element.kind === 'camera' && cameraOf(model)) return refuse('the plan already has a camera');
+		const taken = oneOfAKind(model, element.kind);
+		if (taken) return refuse(taken);
 		const id = element.id in model.elements ? newElementId(model, element.kind) : element.id;
 		const checked = checkElement({ ...element, id });
 		if (!checked.ok) return checked.result;
@@ -240,8 +250,8 @@ export function duplicateElements(ids: readonly string[], offsetM: Vec2 = [0.05,
 	return (model) => {
 		const picked = pick(model, ids, { unlockedOnly: false });
 		if (picked.error) return picked.error;
-		const copyable = picked.elements.filter((e) => e.kind !== 'subject' && e.kind !== 'camera');
-		if (!copyable.length) return refuse('the subject and the camera cannot be duplicated: a plan has one of each');
+		const copyable = picked.elements.filter((e) => e.kind !== 'subject' && e.kind !== 'camera' && e.kind !== 'ambient');
+		if (!copyable.length) return refuse('the subject, the camera and the ambient light cannot be duplicated: a plan has one of each');
 		const diff = emptyDiff();
 		const taken = new Set<string>();
 		const newIds = new Map<string, string>();
@@ -311,7 +321,8 @@ export function setElementProperties(id: string, patch: Readonly<Record<string, 
 		if (!el) return refuse('no such element on the plan');
 		if ('id' in patch && patch.id !== id) return refuse('id cannot be changed', ['id']);
 		if ('kind' in patch && patch.kind !== el.kind) return refuse('kind cannot be changed', ['kind']);
-		for (const key of Object.keys(patch)) if (!(key in el) && key !== 'normal') return refuse(`${key} is not a property of a ${el.kind}`, [key]);
+		const shape = elementSchemaFor(el.kind).shape;
+		for (const key of Object.keys(patch)) if (!(key in shape)) return refuse(`${key} is not a property of a ${el.kind}`, [key]);
 		if (el.locked && !(patch.locked === false)) {
 			const key = GEOMETRY_KEYS.find((k) => k in patch && patch[k] !== (el as Record<string, unknown>)[k]);
 			if (key) return refuse(`“${el.label}” is locked: unlock it to change ${key}`, [key]);
@@ -347,16 +358,30 @@ export function setCameraSettings(patch: Partial<CameraSettings>): Command {
 	};
 }
 
+/**
+ * The scene's ambient (EV at ISO 100, kelvin), kept on the ambient element: sets it on the one the plan
+ * has, or puts open sky behind the subject; null removes it.
+ */
 export function setAmbient(ambient: AmbientSettings | null): Command {
 	return (model) => {
-		let next: AmbientSettings | null = null;
-		if (ambient !== null) {
-			const parsed = ambientSettingsSchema.safeParse(ambient);
-			if (!parsed.success) return zodError(parsed.error, ['ambient']);
-			next = parsed.data;
-		}
+		const current = ambientOf(model);
 		const diff = emptyDiff();
-		diff.ambient = [model.ambient, next];
-		return ok(diff);
+		if (ambient === null) {
+			if (current) diff.removed[current.id] = current;
+			return ok(diff);
+		}
+		const parsed = ambientSettingsSchema.safeParse(ambient);
+		if (!parsed.success) return zodError(parsed.error, ['ambient']);
+		const figures = { ev100: parsed.data.ev100, kelvin: parsed.data.kelvin ?? null };
+		if (current) {
+			diff.updated[current.id] = [current, { ...current, ...figures }];
+			return ok(diff);
+		}
+		const subject = subjectOf(model);
+		const id = AMBIENT_ID in model.elements ? newElementId(model, 'ambient') : AMBIENT_ID;
+		const at = { xM: subject?.xM ?? 0, yM: (subject?.yM ?? 0) - 0.4, heightM: (subject?.heightM ?? 0) + 0.3, rotationDeg: 90 };
+		const el = defaultElement('ambient', { id, label: KIND_LABELS.ambient, ...at, zIndex: topZIndex(model) + 1 });
+		diff.added[id] = { ...el, source: 'sky', ...figures };
+		return ok(diff, [id]);
 	};
 }

@@ -23,6 +23,7 @@ import { boundsContain, elementBounds, hitTest, type Bounds } from './model/geom
 import { emptySetupScene, modelFromScene, placeForNew } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
 import type { AmbientSettings, CameraSettings, EditorElement, ElementKind, Modifier } from './model/schema';
+import type { ShelfGearLists } from './model/shelf';
 import { elementsInOrder, nextInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
 import { PointerInput } from './pointer-input.svelte';
 import type { SnapLine } from './tools/snap';
@@ -76,6 +77,8 @@ export class Editor implements ToolHost {
 	trialPosition = $state<{ id: string; xM: number; yM: number } | null>(null);
 	/** The studio's gear-shelf modifiers, offered beside the presets (the page loads them). */
 	shelfModifiers = $state<readonly Modifier[]>([]);
+	/** The studio's gear-shelf flashes, camera bodies and lenses, offered in the inspector (the page loads them). */
+	shelfGear = $state.raw<ShelfGearLists>({ flashes: [], cameras: [], lenses: [] });
 
 	// ----- the parts in their own files -----
 	readonly #tool = new ActiveTool(this);

@@ -12,6 +12,6 @@ export type { EditorModel } from './model/types';
 export { toExposureScene, excludedElements } from './model/scene';
 export { modelFromDocument, documentFromModel, planFromModel, type SetupDocument, type Plan } from './model/document';
 export { modelFromScene, emptySetupScene } from './model/layout';
-export { modifierFromShelf, shelfModifiers, type ShelfItem } from './model/shelf';
+export { modifierFromShelf, shelfModifiers, shelfGear, type ShelfItem } from './model/shelf';
 export { FALLOFF_LEGEND_STOPS, falloffColour, FALLOFF_PALETTE_LIGHT, FALLOFF_PALETTE_DARK } from './falloff';
 export { kelvinToHex, kelvinToRgb } from './kelvin-colour';

@@ -1,6 +1,9 @@
 /** Small setups for the editor's tests (the quartz cluster of the Fernhill Geology Circle's catalogue). */
 import type { ExposureScene } from '$lib/light/schema';
+import type { Command } from './commands';
 import { Editor } from './editor.svelte';
+import { History } from './history';
+import { applyDiff } from './model/diff';
 import { modelFromScene } from './model/layout';
 import type { EditorModel } from './model/types';
 
@@ -23,4 +26,31 @@ export function quartzEditor(): Editor {
 	e.setStageSize(800, 600);
 	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
 	return e;
+}
+
+/** Runs commands each as an undo step, as the editor does (a model and a history, no browser). */
+export function commandSession(model = quartzModel()) {
+	const history = new History();
+	return {
+		get model() {
+			return model;
+		},
+		run(command: Command) {
+			const r = command(model);
+			if (r.ok) {
+				history.mark();
+				history.record(r.diff);
+				model = applyDiff(model, r.diff);
+			}
+			return r;
+		},
+		undo() {
+			const d = history.undo();
+			if (d) model = applyDiff(model, d);
+		},
+		redo() {
+			const d = history.redo();
+			if (d) model = applyDiff(model, d);
+		}
+	};
 }

@@ -3,6 +3,7 @@
  * sections that open when a form comes back with errors.
  */
 import type { SetupDocument } from '$lib/scene/document';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 /**
  * The smallest valid setup document: one subject at the origin, a camera set for close-up work (ISO 100,
@@ -10,7 +11,7 @@ import type { SetupDocument } from '$lib/scene/document';
  */
 export function blankDocument(): SetupDocument {
 	return {
-		schemaVersion: 1,
+		schemaVersion: CURRENT_SCHEMA_VERSION,
 		scene: {
 			camera: { iso: 100, aperture: 11, shutter: 1 / 125, magnification: 0.5 },
 			subject: { position: [0, 0, 0] },

@@ -14,9 +14,9 @@ function paths(result: ReturnType<typeof setupDocumentSchema.safeParse>) {
 
 describe('setupDocumentSchema', () => {
 	it('accepts a scene alone, with an empty plan and empty notes (API.md)', () => {
-		const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: {}, notes: '' });
+		const r = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: {}, notes: '' });
 		expect(r.success).toBe(true);
-		expect(r.data).toEqual({ schemaVersion: 1, scene, plan: {}, notes: '', gear: [] });
+		expect(r.data).toEqual({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: {}, notes: '', gear: [] });
 		const bare = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene });
 		expect(bare.success && bare.data.plan).toEqual({});
 		expect(bare.success && bare.data.notes).toBe('');
@@ -24,9 +24,9 @@ describe('setupDocumentSchema', () => {
 
 	it('checks the scene with the exposure schema and names the field', () => {
 		const bad = { ...scene, lights: [{ ...scene.lights[0], power: 2 }] };
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene: bad }))).toEqual(['scene.lights.0.power']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene: bad }))).toEqual(['scene.lights.0.power']);
 		const unknownKind = { ...scene, lights: [{ ...scene.lights[0], kind: 'laser' }] };
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene: unknownKind }))[0]).toMatch(/^scene\.lights\.0/);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene: unknownKind }))[0]).toMatch(/^scene\.lights\.0/);
 	});
 
 	it('checks plan elements and keeps fields a newer editor adds', () => {
@@ -37,11 +37,11 @@ describe('setupDocumentSchema', () => {
 			},
 			viewport: { center: [0, 0], widthM: 1.2, depthM: 1 }
 		};
-		const ok = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan });
+		const ok = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan });
 		expect(ok.success).toBe(true);
 		expect(ok.data?.plan.elements?.key).toMatchObject({ futureField: { a: 1 } });
 		const bad = setupDocumentSchema.safeParse({
-			schemaVersion: 1,
+			schemaVersion: CURRENT_SCHEMA_VERSION,
 			scene,
 			plan: { elements: { key: { rotationDeg: Number.NaN, colour: 'red', kind: 'spaceship', widthM: -1, gearId: 'x' } } }
 		});
@@ -54,38 +54,38 @@ describe('setupDocumentSchema', () => {
 		const deepValue = (levels: number) => JSON.parse('{"a":'.repeat(levels) + '1' + '}'.repeat(levels));
 		// futureField's object is at level 4 (the document is 0): 28 nested objects end at level 31, 29 at 32.
 		const within = { elements: { key: { kind: 'flash', futureField: deepValue(28) } } };
-		expect(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: within }).success).toBe(true);
+		expect(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: within }).success).toBe(true);
 		for (const levels of [29, 2000, 10_000]) {
-			const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: { elements: { key: { futureField: deepValue(levels) } } } });
+			const r = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: { elements: { key: { futureField: deepValue(levels) } } } });
 			expect(r.success, `${levels} levels`).toBe(false);
 			expect(paths(r)[0]).toMatch(/^plan\.elements\.key\.futureField(\.a)+$/);
 			expect(r.error?.issues[0].message).toBe(`nests more than ${MAX_DOCUMENT_DEPTH} levels deep`);
 		}
 		const wide = { elements: { key: { futureField: Array(MAX_DOCUMENT_ENTRIES + 1).fill(0) } }, viewport: { extra: {} } };
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: wide }))).toEqual(['plan.elements.key.futureField']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: wide }))).toEqual(['plan.elements.key.futureField']);
 		const manyKeys = Object.fromEntries(Array.from({ length: MAX_DOCUMENT_ENTRIES + 1 }, (_, i) => [`k${i}`, i]));
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: { viewport: manyKeys } }))).toEqual(['plan.viewport']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: { viewport: manyKeys } }))).toEqual(['plan.viewport']);
 	});
 
 	it('refuses text that cannot be stored anywhere in the document', () => {
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'a\u0000b' }))).toEqual(['notes']);
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'a\ud800b' }))).toEqual(['notes']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, notes: 'a\u0000b' }))).toEqual(['notes']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, notes: 'a\ud800b' }))).toEqual(['notes']);
 		const label = { elements: { key: { label: 'Key\u0000' } } };
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, plan: label }))).toEqual(['plan.elements.key.label']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, plan: label }))).toEqual(['plan.elements.key.label']);
 	});
 
 	it('limits notes', () => {
-		const r = setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: 'x'.repeat(MAX_NOTES_CHARS + 1) });
+		const r = setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, notes: 'x'.repeat(MAX_NOTES_CHARS + 1) });
 		expect(paths(r)).toEqual(['notes']);
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, notes: ['a', 'b'] }))).toEqual(['notes']);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, notes: ['a', 'b'] }))).toEqual(['notes']);
 	});
 
 	it('checks the gear copies against their kind and refuses a copy held twice', () => {
 		const id = '7e1a9b30-4c2d-4f1e-9a0b-00000000a001';
 		const copy = { id, kind: 'flash', name: 'Kestrel 40', spec: { guideNumberM: 40, lowestPower: 1 / 256, syncSpeedS: 1 / 250 }, copiedAt: '2026-10-06T18:40:00Z' };
-		expect(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [copy] }).success).toBe(true);
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [{ ...copy, spec: { guideNumberM: -3 } }] }))).toContain('gear.0.spec.guideNumberM');
-		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: 1, scene, gear: [copy, copy] }))).toEqual(['gear.1.id']);
+		expect(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, gear: [copy] }).success).toBe(true);
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, gear: [{ ...copy, spec: { guideNumberM: -3 } }] }))).toContain('gear.0.spec.guideNumberM');
+		expect(paths(setupDocumentSchema.safeParse({ schemaVersion: CURRENT_SCHEMA_VERSION, scene, gear: [copy, copy] }))).toEqual(['gear.1.id']);
 	});
 
 	it('refuses another schemaVersion (older ones go through migrateDocument)', () => {
@@ -97,5 +97,8 @@ describe('setupDocumentSchema', () => {
 		const b = '7e1a9b30-4c2d-4f1e-9a0b-00000000b001';
 		expect(referencedGearIds({ plan: { elements: { x: { gearId: b }, y: { gearId: a }, z: { gearId: b }, w: {} } } })).toEqual([a, b]);
 		expect(referencedGearIds({ plan: {} })).toEqual([]);
+		const lens = '7e1a9b30-4c2d-4f1e-9a0b-00000000d001';
+		const fitted = { cam: { kind: 'camera' as const, lens: { name: 'Heron', gearId: lens } }, key: { modifier: { gearId: b } } };
+		expect(referencedGearIds({ plan: { elements: fitted } })).toEqual([b, lens]);
 	});
 });

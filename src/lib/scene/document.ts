@@ -36,6 +36,7 @@ export const PLAN_ELEMENT_KINDS = [
 	'continuous',
 	'reflector',
 	'flag',
+	'ambient',
 	'modifier',
 	'diffuser',
 	'background',
@@ -139,13 +140,17 @@ export type Plan = z.output<typeof planSchema>;
 export type GearSnapshot = z.output<typeof gearSnapshotSchema>;
 
 /**
- * The gear ids one plan element refers to: its own `gearId`, and that of the modifier the editor fitted
- * to a light (`modifier.gearId`, a field the editor writes beside the document's own).
+ * The gear ids one plan element refers to: its own `gearId`, and those of what the editor fitted to it,
+ * fields it writes beside the document's own: a light's modifier (`modifier.gearId`) and a camera's
+ * lens (`lens.gearId`).
  */
 function gearIdsOf(el: PlanElement): string[] {
-	const modifier = (el as { modifier?: unknown }).modifier;
-	const fitted = modifier && typeof modifier === 'object' ? (modifier as { gearId?: unknown }).gearId : undefined;
-	return [el.gearId, typeof fitted === 'string' ? fitted : undefined].filter((id): id is string => Boolean(id));
+	const fittedId = (key: 'modifier' | 'lens') => {
+		const fitted = (el as Record<string, unknown>)[key];
+		const id = fitted && typeof fitted === 'object' ? (fitted as { gearId?: unknown }).gearId : undefined;
+		return typeof id === 'string' ? id : undefined;
+	};
+	return [el.gearId, fittedId('modifier'), fittedId('lens')].filter((id): id is string => Boolean(id));
 }
 
 /** Every gear id the plan refers to, in a stable order. */

@@ -25,7 +25,7 @@ const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 			notes: ['# Ammonite', '', 'Raking light from the left.']
 		},
 		expected: {
-			schemaVersion: 1,
+			schemaVersion: 2,
 			scene,
 			plan: {
 				elements: {
@@ -34,6 +34,30 @@ const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 				}
 			},
 			notes: '# Ammonite\n\nRaking light from the left.',
+			gear: []
+		}
+	},
+	/** Version 1: the ambient light lived only in the scene; its plan entry comes with version 2. */
+	1: {
+		stored: {
+			schemaVersion: 1,
+			scene: { ...scene, ambient: { ev100: 13, kelvin: 6500 } },
+			plan: { elements: { rake: { kind: 'flash', label: 'Marten 24' }, 'ambient-1': { kind: 'label', label: 'Taken id' } }, viewport: { widthM: 1 } },
+			notes: '',
+			gear: []
+		},
+		expected: {
+			schemaVersion: 2,
+			scene: { ...scene, ambient: { ev100: 13, kelvin: 6500 } },
+			plan: {
+				elements: {
+					rake: { kind: 'flash', label: 'Marten 24' },
+					'ambient-1': { kind: 'label', label: 'Taken id' },
+					'ambient-2': { kind: 'ambient', label: 'Ambient light', source: 'sky' }
+				},
+				viewport: { widthM: 1 }
+			},
+			notes: '',
 			gear: []
 		}
 	}
@@ -57,7 +81,22 @@ describe('migrateDocument', () => {
 
 	it('0 → 1: a version 0 document without notes or layout gets an empty plan and empty notes', () => {
 		const r = migrateDocument({ schemaVersion: 0, scene });
-		expect(r.ok && r.document).toEqual({ schemaVersion: 1, scene, plan: {}, notes: '', gear: [] });
+		expect(r.ok && r.document).toEqual({ schemaVersion: 2, scene, plan: {}, notes: '', gear: [] });
+	});
+
+	it('1 → 2: a plan of {} stays {} and a scene without ambient gets no entry; an ambient entry already there is kept', () => {
+		const ambientScene = { ...scene, ambient: { ev100: 10 } };
+		expect(migrateDocument({ schemaVersion: 1, scene: ambientScene, plan: {} })).toMatchObject({ ok: true, document: { schemaVersion: 2, plan: {} } });
+		const noAmbient = { elements: { rake: { kind: 'flash' } } };
+		expect(migrateDocument({ schemaVersion: 1, scene, plan: noAmbient })).toMatchObject({ ok: true, document: { plan: noAmbient } });
+		const r = migrateDocument({ schemaVersion: 1, scene: ambientScene, plan: { elements: { rake: { kind: 'flash' } } } });
+		expect(r.ok && r.document.plan.elements).toEqual({ rake: { kind: 'flash' }, 'ambient-1': { kind: 'ambient', label: 'Ambient light', source: 'sky' } });
+		expect(r.ok && r.document.scene).toEqual(ambientScene);
+	});
+
+	it('1 → 2: a version 1 plan that is not an object is still named by the check', () => {
+		const r = migrateDocument({ schemaVersion: 1, scene: { ...scene, ambient: { ev100: 10 } }, plan: 'drawing' });
+		expect(!r.ok && r.issues[0].path).toEqual(['plan']);
 	});
 
 	it('0 → 1: a version 0 document with notes that are not lines names the field', () => {

@@ -73,8 +73,31 @@ const v0ToV1: Migration = {
 	}
 };
 
+/**
+ * Version 2: the ambient light (a window or open sky) is an element of the plan, `kind: "ambient"`, with
+ * its place (`position`), the way the light travels (`rotationDeg`), its width and its `source`
+ * ("window" or "sky"); its EV and kelvin stay in `scene.ambient`. A version 1 plan that draws
+ * elements gets an entry for the scene's ambient, as open sky; the editor lays out where it goes. A
+ * plan of `{}` stays `{}` (the editor lays out everything). The scene is not touched.
+ */
+const v1ToV2: Migration = {
+	from: 1,
+	describe: 'the scene’s ambient light gets a plan entry of its own (kind "ambient")',
+	up(doc) {
+		const next = { ...doc, schemaVersion: 2 };
+		const { scene, plan } = doc;
+		if (!isRecord(scene) || scene.ambient === undefined || !isRecord(plan) || !isRecord(plan.elements)) return next;
+		const elements = plan.elements;
+		if (!Object.keys(elements).length || Object.values(elements).some((e) => isRecord(e) && e.kind === 'ambient')) return next;
+		// The id the editor gives an ambient light it lays out (AMBIENT_ID in src/lib/editor/model/layout.ts).
+		let id = 'ambient-1';
+		for (let n = 2; id in elements; n++) id = `ambient-${n}`;
+		return { ...next, plan: { ...plan, elements: { ...elements, [id]: { kind: 'ambient', label: 'Ambient light', source: 'sky' } } } };
+	}
+};
+
 /** In order; MIGRATIONS[i] takes version i to version i + 1. */
-export const MIGRATIONS: readonly Migration[] = [v0ToV1];
+export const MIGRATIONS: readonly Migration[] = [v0ToV1, v1ToV2];
 
 if (MIGRATIONS.length !== CURRENT_SCHEMA_VERSION || MIGRATIONS.some((m, i) => m.from !== i)) {
 	throw new Error('setup document migrations must run 0 → 1 → … → CURRENT_SCHEMA_VERSION without gaps');

@@ -25,6 +25,7 @@ import {
 } from '$lib/server/setups';
 import { setupCreateSchema, setupListQuerySchema, setupSaveSchema } from '$lib/scene/inputs';
 import type { SessionUser } from '$lib/server/session';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 let studio: TestStudio;
 let editor: SessionUser;
@@ -274,7 +275,7 @@ describe('reading', () => {
 		await db.update(setupRevisions).set({ document: v0 }).where(and(eq(setupRevisions.setupId, id), eq(setupRevisions.number, 1)));
 		const detail = await getSetup(editor, id);
 		expect(detail.migratedFrom).toBe(0);
-		expect(detail.document).toMatchObject({ schemaVersion: 1, notes: 'old\nnotes', plan: { elements: { key: { rotationDeg: 30, widthM: 0.1 } } } });
+		expect(detail.document).toMatchObject({ schemaVersion: CURRENT_SCHEMA_VERSION, notes: 'old\nnotes', plan: { elements: { key: { rotationDeg: 30, widthM: 0.1 } } } });
 		const [stored] = await db.select({ d: setupRevisions.document }).from(setupRevisions).where(eq(setupRevisions.setupId, id));
 		expect(stored.d).toEqual(v0);
 		expect((await setupExposure(editor, id)).total.exposureOffsetStops).toEqual(expect.any(Number));
@@ -284,7 +285,7 @@ describe('reading', () => {
 			.select({ d: setupRevisions.document })
 			.from(setupRevisions)
 			.where(and(eq(setupRevisions.setupId, id), eq(setupRevisions.number, 2)));
-		expect((r2.d as { schemaVersion: number }).schemaVersion).toBe(1);
+		expect((r2.d as { schemaVersion: number }).schemaVersion).toBe(CURRENT_SCHEMA_VERSION);
 	});
 
 	it('the list searches title, subject and tags, filters by tag and pages', async () => {

@@ -3,12 +3,29 @@
  * and the modifiers offered before the gear shelf is connected. The figures are round demo values of
  * our own, not data of any product: the gear shelf's measured figures replace them.
  */
-import type { ElementKind, ElementOfKind, Modifier } from './schema';
+import { SKY_PRESETS } from '$lib/light/ambient';
+import { LOWEST_POWER } from '$lib/light/flash';
+import type { ElementKind, ElementOfKind, Modifier, ReflectorFinish } from './schema';
 import type { EditorModel } from './types';
 
 /** Common practice: electronic flash is close to daylight, tungsten halogen lamps about 3200 K. */
 export const DEFAULT_FLASH_KELVIN = 5500;
 export const DEFAULT_CONTINUOUS_KELVIN = 3200;
+/** Common practice: overcast daylight is about 6500 K. */
+export const DEFAULT_DAYLIGHT_KELVIN = 6500;
+
+/**
+ * A reflector's face, its surface and the share of light it returns. From memory (typical figures, not
+ * measurements): white card or foam board about 85 %, diffuse; a silver face about 90 %, mirror-like; a
+ * gold face about 75 %, mirror-like and warmer; a black card about 5 %, the "negative fill" that takes
+ * light away. A measured reflectance from the gear shelf or typed by hand replaces these.
+ */
+export const REFLECTOR_FINISHES: Record<ReflectorFinish, { label: string; surface: 'diffuse' | 'specular'; reflectance: number }> = {
+	white: { label: 'White', surface: 'diffuse', reflectance: 0.85 },
+	silver: { label: 'Silver', surface: 'specular', reflectance: 0.9 },
+	gold: { label: 'Gold', surface: 'specular', reflectance: 0.75 },
+	black: { label: 'Black', surface: 'diffuse', reflectance: 0.05 }
+};
 
 export const MODIFIER_PRESETS: readonly Modifier[] = [
 	{ name: 'Bare head', beamAngleDeg: 60, lossStops: 0, sizeM: 0.075 },
@@ -27,6 +44,7 @@ export const KIND_LABELS: Record<ElementKind, string> = {
 	reflector: 'Reflector',
 	diffuser: 'Diffuser',
 	flag: 'Flag',
+	ambient: 'Ambient light',
 	background: 'Background'
 };
 
@@ -64,7 +82,7 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 		case 'subject':
 			return { ...common, kind, heightM: h ?? 0.03, widthM: 0.08, depthM: 0.06, living: false } as ElementOfKind<K>;
 		case 'camera':
-			return { ...common, kind, heightM: h ?? 0.1, focalLengthMm: 100, sensorWidthMm: 36, sensorHeightMm: 24 } as ElementOfKind<K>;
+			return { ...common, kind, heightM: h ?? 0.1, focalLengthMm: 100, sensorWidthMm: 36, sensorHeightMm: 24, lens: null } as ElementOfKind<K>;
 		case 'flash':
 			return {
 				...common,
@@ -72,6 +90,8 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 				heightM: h ?? 0.25,
 				guideNumber: 40,
 				power: 1 / 8,
+				lowestPower: LOWEST_POWER,
+				zoomMm: null,
 				modifier: MODIFIER_PRESETS[0],
 				otherLossStops: 0,
 				kelvin: DEFAULT_FLASH_KELVIN,
@@ -101,8 +121,8 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 				widthM: 0.2,
 				panelHeightM: 0.2,
 				tiltDeg: 0,
-				surface: 'diffuse',
-				reflectance: 0.8,
+				surface: REFLECTOR_FINISHES.white.surface,
+				reflectance: REFLECTOR_FINISHES.white.reflectance,
 				source: 'ambient',
 				facingSet: true
 			} as ElementOfKind<K>;
@@ -110,6 +130,16 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 			return { ...common, kind, heightM: h ?? 0.2, widthM: 0.4, panelHeightM: 0.4, tiltDeg: 0, lossStops: 1 } as ElementOfKind<K>;
 		case 'flag':
 			return { ...common, kind, heightM: h ?? 0.15, widthM: 0.2, panelHeightM: 0.3, tiltDeg: 0 } as ElementOfKind<K>;
+		case 'ambient':
+			return {
+				...common,
+				kind,
+				heightM: h ?? 0.3,
+				source: 'window',
+				ev100: SKY_PRESETS.overcast.ev100,
+				kelvin: DEFAULT_DAYLIGHT_KELVIN,
+				widthM: 0.6
+			} as ElementOfKind<K>;
 		case 'background':
 			return { ...common, kind, heightM: h ?? 0, widthM: 0.8, depthM: 0.5, colour: '#1c1c1c' } as ElementOfKind<K>;
 	}

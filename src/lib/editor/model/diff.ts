@@ -1,9 +1,9 @@
 /**
  * Reversible diffs of the model, in the manner of a record store: elements added, updated (before and
- * after) and removed, plus the camera settings and the ambient as before/after pairs. A diff can be
+ * after) and removed, plus the camera settings as a before/after pair. A diff can be
  * reversed and squashed with the next one, so a whole gesture becomes one diff.
  */
-import type { AmbientSettings, CameraSettings, EditorElement } from './schema';
+import type { CameraSettings, EditorElement } from './schema';
 import type { EditorModel } from './types';
 
 export interface ModelDiff {
@@ -11,7 +11,6 @@ export interface ModelDiff {
 	updated: Record<string, [before: EditorElement, after: EditorElement]>;
 	removed: Record<string, EditorElement>;
 	camera?: [before: CameraSettings, after: CameraSettings];
-	ambient?: [before: AmbientSettings | null, after: AmbientSettings | null];
 }
 
 export function emptyDiff(): ModelDiff {
@@ -22,7 +21,7 @@ export function isEmptyDiff(diff: ModelDiff): boolean {
 	for (const _ in diff.added) return false;
 	for (const _ in diff.updated) return false;
 	for (const _ in diff.removed) return false;
-	return diff.camera === undefined && diff.ambient === undefined;
+	return diff.camera === undefined;
 }
 
 export function reverseDiff(diff: ModelDiff): ModelDiff {
@@ -30,7 +29,6 @@ export function reverseDiff(diff: ModelDiff): ModelDiff {
 	for (const [id, [before, after]] of Object.entries(diff.updated)) updated[id] = [after, before];
 	const reversed: ModelDiff = { added: { ...diff.removed }, updated, removed: { ...diff.added } };
 	if (diff.camera) reversed.camera = [diff.camera[1], diff.camera[0]];
-	if (diff.ambient) reversed.ambient = [diff.ambient[1], diff.ambient[0]];
 	return reversed;
 }
 
@@ -58,11 +56,9 @@ export function squashInto(target: ModelDiff, next: ModelDiff): ModelDiff {
 		} else target.removed[id] = el;
 	}
 	if (next.camera) target.camera = [target.camera?.[0] ?? next.camera[0], next.camera[1]];
-	if (next.ambient) target.ambient = [target.ambient ? target.ambient[0] : next.ambient[0], next.ambient[1]];
 	// An update that ends where it began is no change.
 	for (const [id, [before, after]] of Object.entries(target.updated)) if (before === after) delete target.updated[id];
 	if (target.camera && target.camera[0] === target.camera[1]) delete target.camera;
-	if (target.ambient && target.ambient[0] === target.ambient[1]) delete target.ambient;
 	return target;
 }
 
@@ -82,7 +78,6 @@ export function applyDiff(model: EditorModel, diff: ModelDiff): EditorModel {
 	return {
 		...model,
 		elements,
-		camera: diff.camera ? diff.camera[1] : model.camera,
-		ambient: diff.ambient ? diff.ambient[1] : model.ambient
+		camera: diff.camera ? diff.camera[1] : model.camera
 	};
 }

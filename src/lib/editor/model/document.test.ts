@@ -5,12 +5,13 @@ import { setupDocumentSchema, type SetupDocumentInput } from '$lib/scene/documen
 import { addElement, removeElements, setElementProperties } from '../commands';
 import { applyDiff } from './diff';
 import { documentFromModel, modelFromDocument } from './document';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 /** The quartz cluster as the notebook stores it: plan entries with gear ids, a fitted softbox, a label, a print frame. */
 const GEAR_FLASH = '11111111-1111-4111-8111-111111111111';
 const GEAR_BOX = '22222222-2222-4222-8222-222222222222';
 const quartz: SetupDocumentInput = {
-	schemaVersion: 1,
+	schemaVersion: CURRENT_SCHEMA_VERSION,
 	scene: {
 		camera: { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.4 },
 		subject: { position: [0, 0, 0.04] },

@@ -7,8 +7,10 @@
  *   position [x, y, z]   where the scene has no place for it (camera, diffuser, background, a flag's height);
  *   widthM, depthM        plan sizes; heightM the upright size of a panel (card, diffuser, flag).
  * The editor adds its own fields beside them (the document keeps unknown fields): zIndex, tiltDeg,
- * modifier, otherLossStops, facingSet, focalLengthMm, sensorWidthMm, sensorHeightMm, and for a card
- * or a diffuser the figures the scene cannot hold for it (surface, reflectance, source, lossStops).
+ * modifier, otherLossStops, facingSet, focalLengthMm, sensorWidthMm, sensorHeightMm, lens (a camera's
+ * lens from the gear shelf), lowestPower and zoomMm (a flash's), source (the ambient's window or sky),
+ * and for a card or a diffuser the figures the scene cannot hold for it (surface, reflectance, source,
+ * lossStops). The ambient light's EV and kelvin are the scene's; its place and width are the plan's.
  * Everything the editor does not use is written back as it was read: other fields of an entry (a
  * subject's height, a gear id), entries of kinds it does not draw, the plan's print frame.
  */
@@ -32,15 +34,16 @@ const isKind = (k: unknown): k is ElementKind => typeof k === 'string' && (ELEME
 /** Fields the editor keeps under its own names, per kind. */
 const EDITOR_FIELDS: Record<ElementKind, readonly string[]> = {
 	subject: ['zIndex', 'widthM', 'depthM'],
-	camera: ['zIndex', 'focalLengthMm', 'sensorWidthMm', 'sensorHeightMm'],
-	flash: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg'],
+	camera: ['zIndex', 'focalLengthMm', 'sensorWidthMm', 'sensorHeightMm', 'gearId', 'lens'],
+	flash: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg', 'lowestPower', 'zoomMm', 'gearId'],
 	continuous: ['zIndex', 'modifier', 'otherLossStops', 'tiltDeg'],
 	reflector: ['zIndex', 'widthM', 'tiltDeg', 'facingSet', 'surface', 'reflectance', 'source'],
 	diffuser: ['zIndex', 'widthM', 'tiltDeg', 'lossStops'],
 	flag: ['zIndex', 'widthM', 'tiltDeg'],
+	ambient: ['zIndex', 'widthM', 'source'],
 	background: ['zIndex', 'widthM', 'depthM']
 };
-const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag']);
+const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag', 'ambient']);
 const PANELS: ReadonlySet<ElementKind> = new Set(['reflector', 'diffuser', 'flag']);
 
 function expandColour(c: unknown): unknown {
@@ -82,9 +85,17 @@ function elementFromEntry(id: string, kind: ElementKind, entry: Entry, zIndex: n
 	return base;
 }
 
+/**
+ * A modifier, or a diffuser with no place of its own, fitted to a light (`attachedTo`): drawn on that
+ * light, not on the table. Its loss is already in the light's `lossStops` in the scene.
+ */
+function isFitted(entry: Entry): boolean {
+	return typeof entry.attachedTo === 'string' && (entry.kind === 'modifier' || (entry.kind === 'diffuser' && entry.position === undefined));
+}
+
 /** A modifier entry fitted to a light (`attachedTo`), as the light's modifier (the scene holds its beam and loss). */
 function attachedModifier(plan: Record<string, Entry>, lightId: string, light: SceneLight | undefined): Modifier | null {
-	const entry = Object.values(plan).find((e) => e.kind === 'modifier' && e.attachedTo === lightId);
+	const entry = Object.values(plan).find((e) => isFitted(e) && e.attachedTo === lightId);
 	if (!entry || !light || light.kind === 'reflector') return null;
 	return {
 		name: typeof entry.label === 'string' && entry.label ? entry.label.slice(0, 80) : 'Modifier',
@@ -107,7 +118,7 @@ export function modelFromDocument(doc: { scene: ExposureScene; plan?: Plan | Rec
 	const lightsById = new Map(doc.scene.lights.map((l) => [l.id, l]));
 	const parsed: Record<string, EditorElement> = {};
 	Object.entries(entries).forEach(([id, entry], i) => {
-		if (!isKind(entry.kind)) return; // kept as it is (a modifier, a label, the table, ...)
+		if (!isKind(entry.kind) || isFitted(entry)) return; // kept as it is (a modifier, a label, the table, ...)
 		const kind = entry.kind;
 		const zIndex = typeof entry.zIndex === 'number' ? entry.zIndex : kind === 'background' ? -1000 + i : i + 1;
 		let el = elementFromEntry(id, kind, entry, zIndex, notes);
@@ -133,9 +144,13 @@ function entryFor(el: EditorElement, read: Entry | undefined): Entry {
 			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM });
 			break;
 		case 'camera':
-			Object.assign(entry, { focalLengthMm: el.focalLengthMm, sensorWidthMm: el.sensorWidthMm, sensorHeightMm: el.sensorHeightMm });
+			Object.assign(entry, { focalLengthMm: el.focalLengthMm, sensorWidthMm: el.sensorWidthMm, sensorHeightMm: el.sensorHeightMm, lens: el.lens });
+			setGearId(entry, el.gearId);
 			break;
 		case 'flash':
+			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg, lowestPower: el.lowestPower, zoomMm: el.zoomMm });
+			setGearId(entry, el.gearId);
+			break;
 		case 'continuous':
 			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg });
 			break;
@@ -156,6 +171,9 @@ function entryFor(el: EditorElement, read: Entry | undefined): Entry {
 		case 'flag':
 			Object.assign(entry, { widthM: el.widthM, heightM: el.panelHeightM, tiltDeg: el.tiltDeg });
 			break;
+		case 'ambient':
+			Object.assign(entry, { widthM: el.widthM, source: el.source });
+			break;
 		case 'background':
 			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM, colour: el.colour });
 			break;
@@ -163,12 +181,18 @@ function entryFor(el: EditorElement, read: Entry | undefined): Entry {
 	return entry;
 }
 
+/** The gear id the element now has (a flash typed by hand no longer names the shelf item it came from). */
+function setGearId(entry: Entry, gearId: string | undefined) {
+	if (gearId) entry.gearId = gearId;
+	else delete entry.gearId;
+}
+
 export function planFromModel(model: EditorModel): Plan {
 	const elements: Record<string, Entry> = {};
 	for (const el of elementsInOrder(model)) elements[el.id] = entryFor(el, model.kept.entries[el.id]);
 	// Entries of kinds the editor does not draw go back as they came, unless what they were fitted to is gone.
 	for (const [id, entry] of Object.entries(model.kept.entries)) {
-		if (isKind(entry.kind) || id in elements) continue;
+		if ((isKind(entry.kind) && !isFitted(entry)) || id in elements) continue;
 		if (typeof entry.attachedTo === 'string' && !(entry.attachedTo in model.elements)) continue;
 		elements[id] = { ...entry };
 	}

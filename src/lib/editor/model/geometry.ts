@@ -59,6 +59,8 @@ export function emitterParts(el: Extract<EditorElement, { kind: 'flash' | 'conti
 }
 
 export const PANEL_THICKNESS_M = { reflector: 0.01, diffuser: 0.006, flag: 0.015 } as const;
+/** The ambient light is drawn as a window frame this deep, across its width. */
+export const AMBIENT_DEPTH_M = 0.03;
 
 /** The footprint in the element's own frame: u along its facing, v across it. */
 export interface Footprint {
@@ -87,6 +89,8 @@ export function footprint(el: EditorElement): Footprint {
 			const t = PANEL_THICKNESS_M[el.kind];
 			return { uMinM: -t / 2, uMaxM: t / 2, halfAcrossM: el.widthM / 2 };
 		}
+		case 'ambient':
+			return { uMinM: -AMBIENT_DEPTH_M / 2, uMaxM: AMBIENT_DEPTH_M / 2, halfAcrossM: el.widthM / 2 };
 	}
 }
 

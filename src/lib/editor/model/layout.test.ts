@@ -22,9 +22,11 @@ describe('laying out a plan from a scene alone (plan: {})', () => {
 	const { model, notes } = modelFromScene(ammonite);
 	const els = model.elements;
 
-	it('derives one element per subject, light and flag, and adds a camera', () => {
+	it('derives one element per subject, light, flag and the ambient, and adds a camera', () => {
 		expect(notes).toEqual([]);
-		expect(Object.values(els).map((e) => e.kind).sort()).toEqual(['camera', 'continuous', 'flag', 'flash', 'reflector', 'subject']);
+		expect(Object.values(els).map((e) => e.kind).sort()).toEqual(['ambient', 'camera', 'continuous', 'flag', 'flash', 'reflector', 'subject']);
+		// The ambient with no plan entry: open sky behind the subject, its EV the scene's.
+		expect(Object.values(els).find((e) => e.kind === 'ambient')).toMatchObject({ source: 'sky', ev100: 8, kelvin: null, rotationDeg: 90 });
 		expect([els.rake.xM, els.rake.yM, els.rake.heightM]).toEqual([-0.3, 0.05, 0.05]);
 	});
 

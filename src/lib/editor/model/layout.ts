@@ -11,6 +11,7 @@ import { defaultElement, KIND_LABELS } from './defaults';
 import { aimAngles, direction3, normaliseDeg, panelFromSegment, panelSegment } from './geometry';
 import { diffuserLossStops, reflectorProblem } from './scene';
 import type {
+	AmbientElement,
 	CameraElement,
 	ContinuousElement,
 	DiffuserElement,
@@ -148,10 +149,18 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 		elements[flag.id] = { ...base, xM: seg.xM, yM: seg.yM, widthM: Math.max(0.001, seg.widthM), rotationDeg: keepTurn(base.rotationDeg, seg.rotationDeg) };
 	}
 
+	const planAmbient = Object.values(planElements).find((e): e is AmbientElement => e.kind === 'ambient');
+	if (scene.ambient) {
+		const ambient = ambientFromScene(scene.ambient, planAmbient, subjectPos, nextZ);
+		if (elements[ambient.id]) notes.push(`the ambient light has the id of another element (“${ambient.id}”); the plan entry was replaced`);
+		elements[ambient.id] = ambient;
+	} else if (planAmbient) {
+		notes.push(`plan entry “${planAmbient.id}” has no ambient light in the scene and was left out`);
+	}
+
 	const model: EditorModel = {
 		elements,
 		camera: { ...scene.camera },
-		ambient: scene.ambient ? { ...scene.ambient } : null,
 		kept: EMPTY_KEPT_PLAN
 	};
 	// Reflectors the scene could not hold (no usable source) live in the plan only: keep them.
@@ -225,6 +234,23 @@ function emitterFromScene(
 	}
 	const base = (plan as ContinuousElement | undefined) ?? defaultElement('continuous', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
 	return { ...base, ...common, luxAt1m: light.luxAt1m, runsHot: light.runsHot ?? true };
+}
+
+/** The id the ambient light gets when the plan has none for it (the migration to version 2 uses it too). */
+export const AMBIENT_ID = 'ambient-1';
+
+/**
+ * The ambient light: the scene's EV and kelvin, drawn where the plan puts it; with no plan entry, as
+ * open sky behind the subject, light travelling toward the camera's side.
+ */
+function ambientFromScene(ambient: NonNullable<ExposureScene['ambient']>, plan: AmbientElement | undefined, subject: Vec3, nextZ: () => number): AmbientElement {
+	const base =
+		plan ??
+		({
+			...defaultElement('ambient', { id: AMBIENT_ID, label: KIND_LABELS.ambient, xM: subject[0], yM: subject[1] - 0.4, heightM: subject[2] + 0.3, rotationDeg: 90, zIndex: nextZ() }),
+			source: 'sky'
+		} satisfies AmbientElement);
+	return { ...base, ev100: ambient.ev100, kelvin: ambient.kelvin ?? null };
 }
 
 function reflectorFromScene(

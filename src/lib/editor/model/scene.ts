@@ -2,15 +2,16 @@
  * The editor model as the exposure scene of `POST /api/v1/exposure` (see /api/v1/openapi.json): the subject's position,
  * each light with its kelvin, its losses (modifier + other + every diffuser its straight path to the
  * subject crosses in plan), its beam aimed along its rotation and tilt, each reflector with its area
- * and (when its facing is set) its normal; each flag as its plan segment. Cameras, diffusers and
- * backgrounds are drawing and loss only: the scene has no place for them.
+ * and (when its facing is set) its normal; each flag as its plan segment; the ambient element as the
+ * scene's ambient (its EV at ISO 100 and kelvin; where it stands and the way it faces are the plan's).
+ * Cameras, diffusers and backgrounds are drawing and loss only: the scene has no place for them.
  */
 import { segmentsIntersect } from '$lib/light/geometry';
 import type { ExposureScene, Flag, SceneLight } from '$lib/light/schema';
 import { direction3, panelSegment } from './geometry';
 import type { DiffuserElement, EditorElement, EmitterElement, ReflectorElement } from './schema';
 import type { EditorModel, Vec2, Vec3 } from './types';
-import { elementsInOrder, subjectOf } from './types';
+import { ambientOf, elementsInOrder, subjectOf } from './types';
 
 /** The subject's position when a plan has none yet (the scene needs one). */
 export const ORIGIN: Vec3 = [0, 0, 0];
@@ -34,7 +35,7 @@ export function diffuserLossStops(diffusers: readonly DiffuserElement[], from: V
 
 /** Why a reflector cannot be in the scene (null: it can). */
 export function reflectorProblem(model: EditorModel, r: ReflectorElement): string | null {
-	if (r.source === 'ambient') return model.ambient ? null : 'bounces the ambient light, but the setup has no ambient';
+	if (r.source === 'ambient') return ambientOf(model) ? null : 'bounces the ambient light, but the setup has no ambient';
 	const source = model.elements[r.source];
 	if (!source) return `bounces “${r.source}”, which is not on the plan`;
 	if (source.kind !== 'flash' && source.kind !== 'continuous') return `bounces “${source.label}”, which is not a light`;
@@ -111,6 +112,7 @@ export function toExposureScene(model: EditorModel): ExposureScene {
 	const subject: Vec3 = subjectEl ? pos3(subjectEl) : ORIGIN;
 	const ordered = elementsInOrder(model);
 	const diffusers = ordered.filter((e): e is DiffuserElement => e.kind === 'diffuser');
+	const ambient = ambientOf(model);
 	const lights: SceneLight[] = [];
 	const flags: Flag[] = [];
 	for (const el of ordered) {
@@ -128,7 +130,7 @@ export function toExposureScene(model: EditorModel): ExposureScene {
 			...(subjectEl?.living ? { living: true } : {}),
 			...(subjectEl?.normal ? { normal: [...subjectEl.normal] as [number, number, number] } : {})
 		},
-		...(model.ambient ? { ambient: { ...model.ambient } } : {}),
+		...(ambient ? { ambient: { ev100: ambient.ev100, ...(ambient.kelvin !== null ? { kelvin: ambient.kelvin } : {}) } } : {}),
 		lights,
 		...(flags.length ? { flags } : {})
 	};

@@ -6,9 +6,12 @@
  * side, a camera's lens). Panels (reflectors, diffusers, flags) extend across their facing direction.
  */
 import { z } from 'zod';
+import { LOWEST_POWER } from '$lib/light/flash';
 import {
+	ev100Field,
 	exposureSceneSchema,
 	focalLengthMmField,
+	pupilMagnificationField,
 	gelMiredField,
 	guideNumberField,
 	kelvinField,
@@ -26,7 +29,7 @@ const sizeM = range(0.001, 100, 'm');
 const rotationDeg = range(-360, 360, '°');
 const tiltDeg = range(-90, 90, '°');
 
-export const ELEMENT_KINDS = ['subject', 'camera', 'flash', 'continuous', 'reflector', 'diffuser', 'flag', 'background'] as const;
+export const ELEMENT_KINDS = ['subject', 'camera', 'flash', 'continuous', 'reflector', 'diffuser', 'flag', 'ambient', 'background'] as const;
 export type ElementKind = (typeof ELEMENT_KINDS)[number];
 
 const base = {
@@ -54,6 +57,13 @@ export const modifierSchema = z.object({
 export type Modifier = z.infer<typeof modifierSchema>;
 
 const vec3 = z.tuple([coordinateM, coordinateM, coordinateM]);
+/** The gear-shelf item an element came from; the server copies that item into the revision's gear. */
+const gearId = z.uuid({ error: 'must be the id of an item on the gear shelf' }).optional();
+const gearName = z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(200, 'must be at most 200 characters');
+
+/** A lens taken from the gear shelf: its name and id (its figures go to the camera element and settings). */
+export const lensSchema = z.object({ name: gearName, gearId, pupilMagnification: pupilMagnificationField.optional() });
+export type Lens = z.infer<typeof lensSchema>;
 
 export const subjectElementSchema = z.object({
 	...base,
@@ -72,7 +82,11 @@ export const cameraElementSchema = z.object({
 	kind: z.literal('camera'),
 	focalLengthMm: focalLengthMmField,
 	sensorWidthMm: range(1, 200, 'mm'),
-	sensorHeightMm: range(1, 200, 'mm')
+	sensorHeightMm: range(1, 200, 'mm'),
+	/** The camera body from the gear shelf. */
+	gearId,
+	/** The lens from the gear shelf (null: typed by hand). */
+	lens: lensSchema.nullable()
 });
 
 const emitter = {
@@ -92,6 +106,12 @@ export const flashElementSchema = z.object({
 	kind: z.literal('flash'),
 	guideNumber: guideNumberField,
 	power: powerField,
+	/** The lowest step of this flash's power ladder (full power down in thirds); 1/256 unless the shelf says. */
+	lowestPower: z.number({ error: 'must be a number' }).min(LOWEST_POWER, 'must be at least 1/256').max(1, 'must be at most 1 (full power)'),
+	/** The zoom head's setting, when it has one (the beam angle is the modifier's). */
+	zoomMm: range(1, 1000, 'mm').nullable(),
+	/** The flash from the gear shelf: its guide number (with its measured calibration) and its ladder. */
+	gearId,
 	highSpeedSync: z.boolean({ error: 'must be true or false' }),
 	mainsPowered: z.boolean({ error: 'must be true or false' })
 });
@@ -111,6 +131,10 @@ const panel = {
 	panelHeightM: sizeM,
 	tiltDeg
 };
+
+/** A reflector's face: each is a surface and a reflectance (REFLECTOR_FINISHES in defaults.ts). */
+export const REFLECTOR_FINISH_NAMES = ['white', 'silver', 'gold', 'black'] as const;
+export type ReflectorFinish = (typeof REFLECTOR_FINISH_NAMES)[number];
 
 export const reflectorElementSchema = z.object({
 	...base,
@@ -137,6 +161,23 @@ export const diffuserElementSchema = z.object({
 
 export const flagElementSchema = z.object({ ...base, ...panel, kind: z.literal('flag') });
 
+export const AMBIENT_SOURCES = ['window', 'sky'] as const;
+
+/**
+ * The ambient light (one a plan: the engine takes one ambient): a window or the open sky, placed where
+ * the light comes in and turned the way it travels; its EV at ISO 100 typed or taken from a sky preset
+ * (`skyPresetOf` tells which preset an EV is).
+ */
+export const ambientElementSchema = z.object({
+	...base,
+	kind: z.literal('ambient'),
+	source: z.enum(AMBIENT_SOURCES, { error: 'must be "window" or "sky"' }),
+	ev100: ev100Field,
+	kelvin: kelvinField.nullable(),
+	/** Width of the window (or of the patch of sky drawn), across the direction the light travels. */
+	widthM: sizeM
+});
+
 export const backgroundElementSchema = z.object({
 	...base,
 	kind: z.literal('background'),
@@ -153,6 +194,7 @@ export const editorElementSchema = z.discriminatedUnion('kind', [
 	reflectorElementSchema,
 	diffuserElementSchema,
 	flagElementSchema,
+	ambientElementSchema,
 	backgroundElementSchema
 ]);
 
@@ -163,6 +205,7 @@ export type ContinuousElement = z.infer<typeof continuousElementSchema>;
 export type ReflectorElement = z.infer<typeof reflectorElementSchema>;
 export type DiffuserElement = z.infer<typeof diffuserElementSchema>;
 export type FlagElement = z.infer<typeof flagElementSchema>;
+export type AmbientElement = z.infer<typeof ambientElementSchema>;
 export type BackgroundElement = z.infer<typeof backgroundElementSchema>;
 export type EditorElement = z.infer<typeof editorElementSchema>;
 export type EmitterElement = FlashElement | ContinuousElement;
@@ -173,6 +216,7 @@ export type ElementOfKind<K extends ElementKind> = Extract<EditorElement, { kind
 export const cameraSettingsSchema = sceneCameraSchema;
 export type CameraSettings = z.infer<typeof sceneCameraSchema>;
 
+/** The scene's ambient: what the ambient element gives the engine. */
 export const ambientSettingsSchema = exposureSceneSchema.shape.ambient.unwrap();
 export type AmbientSettings = z.infer<typeof ambientSettingsSchema>;
 

@@ -3,6 +3,7 @@
  * its name, the width of its front for the drawing, and its id, so the server copies the item into the
  * revision's gear when the plan is saved (`referencedGearIds` in `$lib/scene/document`).
  */
+import type { GearSpec } from '$lib/scene/gear';
 import { modifierSchema, type Modifier } from './schema';
 
 /** A gear item as `GET /api/v1/gear` lists it (only what the editor reads). */
@@ -42,3 +43,24 @@ export function modifierFromShelf(item: ShelfItem): Modifier | null {
 export function shelfModifiers(items: readonly ShelfItem[]): Modifier[] {
 	return items.map(modifierFromShelf).filter((m): m is Modifier => m !== null);
 }
+
+/**
+ * Shelf items of one kind in use. Their specs were checked by the gear schemas when they were saved
+ * and come from the server as stored (`$lib/scene/gear`), so they are not parsed again here: the
+ * element's own schema still checks every figure a command takes from them.
+ */
+function shelfOf<K extends 'flash' | 'camera' | 'lens'>(items: readonly ShelfItem[], kind: K): ShelfGear<K>[] {
+	return items.filter((i) => i.kind === kind && !i.retiredAt).map((i) => ({ id: i.id, name: i.name, spec: i.spec as GearSpec<K> }));
+}
+
+export interface ShelfGear<K extends 'flash' | 'camera' | 'lens'> {
+	id: string;
+	name: string;
+	spec: GearSpec<K>;
+}
+
+/** The flashes, camera bodies and lenses of a shelf, for the inspector's "from the gear shelf" choices. */
+export function shelfGear(items: readonly ShelfItem[]) {
+	return { flashes: shelfOf(items, 'flash'), cameras: shelfOf(items, 'camera'), lenses: shelfOf(items, 'lens') };
+}
+export type ShelfGearLists = ReturnType<typeof shelfGear>;

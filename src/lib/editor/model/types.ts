@@ -1,5 +1,5 @@
-/** The editor's document model: the plan's elements by id plus the camera settings and the ambient. */
-import type { AmbientSettings, CameraSettings, EditorElement } from './schema';
+/** The editor's document model: the plan's elements by id (the ambient light among them) plus the camera settings. */
+import type { CameraSettings, EditorElement } from './schema';
 
 export type * from './schema';
 
@@ -18,7 +18,6 @@ export const EMPTY_KEPT_PLAN: KeptPlan = { entries: {}, rest: {} };
 export interface EditorModel {
 	readonly elements: Readonly<Record<string, EditorElement>>;
 	readonly camera: CameraSettings;
-	readonly ambient: AmbientSettings | null;
 	readonly kept: KeptPlan;
 }
 
@@ -38,6 +37,12 @@ export function topZIndex(model: EditorModel): number {
 
 export function subjectOf(model: EditorModel) {
 	for (const el of Object.values(model.elements)) if (el.kind === 'subject') return el;
+	return undefined;
+}
+
+/** The ambient light (a plan has at most one: the engine takes one ambient). */
+export function ambientOf(model: EditorModel) {
+	for (const el of Object.values(model.elements)) if (el.kind === 'ambient') return el;
 	return undefined;
 }
 

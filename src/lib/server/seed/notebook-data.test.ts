@@ -6,6 +6,8 @@ import { computeExposure } from '$lib/light/scene';
 import { referencedGearIds } from '$lib/scene/document';
 import { gearSpecSchemas } from '$lib/scene/gear';
 import { migrateDocument } from '$lib/scene/migrations';
+import { modelFromDocument } from '$lib/editor/model/document';
+import { toExposureScene } from '$lib/editor/model/scene';
 import { DEMO_GEAR, DEMO_SETUP_IDS, DEMO_SETUPS, type DemoGear } from './notebook-data';
 
 const read = (raw: unknown) => {
@@ -33,6 +35,26 @@ describe('demo notebook data', () => {
 			s.revisions.forEach((r, i) => {
 				const doc = read(r.document);
 				expect(doc.gear.map((g) => g.id).sort(), `${s.title} r${i + 1}`).toEqual(referencedGearIds(doc));
+			});
+		}
+	});
+
+	it('the editor reads every revision, also as stored at version 1, and keeps its numbers', () => {
+		for (const s of DEMO_SETUPS) {
+			s.revisions.forEach((r, i) => {
+				const stored = r.document as { scene: unknown; plan: { elements?: Record<string, { kind?: string }> } };
+				// A database seeded before version 2 holds the same revision without the ambient light's plan entry.
+				const elements = Object.fromEntries(Object.entries(stored.plan.elements ?? {}).filter(([, e]) => e.kind !== 'ambient'));
+				for (const raw of [r.document, { ...stored, schemaVersion: 1, plan: { ...stored.plan, elements } }]) {
+					const doc = read(structuredClone(raw));
+					const before = computeExposure(doc.scene);
+					const { model, notes } = modelFromDocument(doc);
+					expect(notes, `${s.title} r${i + 1}`).toEqual([]);
+					const after = computeExposure(toExposureScene(model));
+					expect(after.total.exposureOffsetStops!, `${s.title} r${i + 1}`).toBeCloseTo(before.total.exposureOffsetStops!, 9);
+					expect(after.lights.map((l) => [l.id, l.x.toPrecision(9)])).toEqual(before.lights.map((l) => [l.id, l.x.toPrecision(9)]));
+					expect(toExposureScene(model).ambient).toEqual(doc.scene.ambient);
+				}
 			});
 		}
 	});

@@ -6,6 +6,7 @@
 import type { GearSnapshot, Plan, SetupDocumentInput } from '$lib/scene/document';
 import type { ExposureSceneInput } from '$lib/light/schema';
 import { DEMO_GEAR, type DemoGear } from './demo-gear';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 export { DEMO_GEAR, type DemoGear };
 
@@ -43,7 +44,7 @@ function doc(scene: ExposureSceneInput, plan: Plan, notes: string, at: string): 
 	const all = Object.values(DEMO_GEAR) as DemoGear[];
 	const ids = new Set(Object.values(plan.elements ?? {}).map((e) => e.gearId).filter(Boolean));
 	return {
-		schemaVersion: 1,
+		schemaVersion: CURRENT_SCHEMA_VERSION,
 		scene,
 		plan,
 		notes,
@@ -275,6 +276,8 @@ const mossPlan = (withFill: boolean): Plan => ({
 		lens: { kind: 'label', label: 'Heron 100 mm macro', gearId: G.heron100.id, attachedTo: 'camera' },
 		window: { kind: 'background', label: 'Window (overcast sky)', position: [0, 0.35, 0.3], widthM: 0.9, depthM: 0.05, colour: '#dfe8f0', locked: true },
 		sill: { kind: 'table', label: 'Window sill', position: [0, 0.1, 0], widthM: 0.9, depthM: 0.3, colour: '#d8d2c4', locked: true },
+		// The daylight through that window (its EV and kelvin are the scene's ambient), travelling into the room.
+		daylight: { kind: 'ambient', label: 'North window, overcast', position: [0, 0.33, 0.3], rotationDeg: -90, widthM: 0.9, source: 'window' },
 		...(withFill
 			? {
 					fill: { kind: 'flash', label: 'Kestrel 40 with dome (fill)', rotationDeg: 135, gearId: G.kestrel40.id },

@@ -12,6 +12,7 @@ import { toSessionUser } from '$lib/server/db/queries/users';
 import { hashSecret } from '$lib/server/tokens';
 import type { SessionUser } from '$lib/server/session';
 import type { SetupDocumentInput } from '$lib/scene/document';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 export const ROLES = ['none', 'viewer', 'editor', 'owner', 'admin'] as const;
 export type TestRole = (typeof ROLES)[number];
@@ -86,7 +87,7 @@ export async function makeStudio(name = 'Notebook test studio'): Promise<TestStu
 /** A small valid setup document: one flash and a white card on a quartz-sized subject. */
 export function sampleDocument(overrides: { notes?: string; power?: number; plan?: SetupDocumentInput['plan'] } = {}): SetupDocumentInput {
 	return {
-		schemaVersion: 1,
+		schemaVersion: CURRENT_SCHEMA_VERSION,
 		scene: {
 			camera: { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.5 },
 			subject: { position: [0, 0, 0.04] },

@@ -10,8 +10,8 @@ import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/set
 export async function load({ params, url, locals }) {
 	const user = requireUser(locals.user, url);
 	const { setup, latest, exposure, exposureError, access } = await setupOverview(user, params.id);
-	// The studio's modifiers, offered in the editor beside the presets: only what the editor reads.
-	const shelf = (await shelfOf(access, { kind: 'modifier' })).map(({ id, kind, name, spec }) => ({ id, kind, name, spec }));
+	// The studio's gear (modifiers, flashes, cameras, lenses), offered in the editor: only what the editor reads.
+	const shelf = (await shelfOf(access)).map(({ id, kind, name, spec }) => ({ id, kind, name, spec }));
 	return {
 		setup: {
 			id: setup.id,

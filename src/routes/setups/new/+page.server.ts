@@ -11,7 +11,7 @@ export async function load({ locals, url }) {
 	const user = requireUser(locals.user, url);
 	const studios = (await myStudios(user)).filter((s) => s.role === 'owner' || s.role === 'editor');
 	// Each studio's modifiers, so the editor offers the shelf of the studio the setup will go to.
-	const shelves = await Promise.all(studios.map((s) => listGear(user, { studioId: s.id, kind: 'modifier' }).catch(() => ({ items: [] }))));
+	const shelves = await Promise.all(studios.map((s) => listGear(user, { studioId: s.id }).catch(() => ({ items: [] }))));
 	return {
 		studios: studios.map((s) => ({ id: s.id, name: s.name, personal: s.personal })),
 		shelfByStudio: Object.fromEntries(studios.map((s, i) => [s.id, shelves[i].items])),

@@ -23,6 +23,7 @@ import { setupCreateSchema } from '$lib/scene/inputs';
 import { DEFAULT_MAX_BODY_BYTES } from '$lib/server/http';
 import { computeExposure } from '$lib/light/scene';
 import { migrateDocument } from '$lib/scene/migrations';
+import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 
 /** A 1 × 1 PNG. */
 const PNG_BASE64 = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==';
@@ -140,7 +141,7 @@ const ROUTES: RouteCase[] = [
 		},
 		accepted: async ({ body, id, role }) => {
 			expect(body).toMatchObject({ id, revisionNumber: 2, studioId: studio.studioId, derivedFrom: null, canEdit: role !== 'viewer' });
-			expect(body.document.schemaVersion).toBe(1);
+			expect(body.document.schemaVersion).toBe(CURRENT_SCHEMA_VERSION);
 		}
 	},
 	{
