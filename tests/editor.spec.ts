@@ -274,8 +274,8 @@ test('the editor at phone width in dark mode: the inspector sits under the plan 
 	await page.emulateMedia({ colorScheme: 'dark' });
 	await page.addInitScript(() => document.documentElement.classList.add('dark'));
 	await openPlan(page, seeded);
-	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
 	await inspectorTab(page, 'Exposure');
+	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
 	const panelBox = (await page.getByTestId('exposure-panel').boundingBox())!;
 	expect(canvasBox.width).toBeLessThanOrEqual(390);
 	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height - 1);
