@@ -24,9 +24,12 @@ describe('label placement on the seeded plans', () => {
 				const { model } = modelFromDocument(setupDocumentSchema.parse(plan.document));
 				const view = fitBounds(expandBounds(fitTarget(model)!, 0.03), stage.widthPx, stage.heightPx);
 				const elements = elementsInOrder(model);
-				const placed = placeAnnotations({ elements, dimensions: dimensionLines(model, 'metric'), zoom: view.zoom });
+				// The stage inside its rulers, as PlanStage passes it.
+				const frame = { x0: 20 - view.panX, y0: 20 - view.panY, x1: stage.widthPx - 4 - view.panX, y1: stage.heightPx - 4 - view.panY };
+				const placed = placeAnnotations({ elements, dimensions: dimensionLines(model, 'metric'), zoom: view.zoom, frame });
 				expect(placed.labels.length).toBe(elements.filter((e) => e.kind !== 'background' && e.label).length);
 				expect(annotationClashes(placed, elements, view.zoom)).toEqual([]);
+				for (const l of placed.labels) expect(l.box.x0 >= frame.x0 && l.box.x1 <= frame.x1 && l.box.y0 >= frame.y0 && l.box.y1 <= frame.y1, `${l.id} on the stage`).toBe(true);
 			});
 		}
 	}

@@ -175,6 +175,8 @@ export interface AnnotationInput {
 	zoom: number;
 	/** What is being edited: placed after the rest, so the rest stays put while it moves. */
 	liveIds?: ReadonlySet<string>;
+	/** The part of the plan on screen (plan metres × zoom): words are kept inside it where they can be. */
+	frame?: Box;
 }
 
 export interface Annotations {
@@ -187,14 +189,15 @@ export interface Annotations {
  * against what is not being edited; then the words of the live part against everything, so a drag
  * moves only its own words.
  */
-export function placeAnnotations({ elements, dimensions, extras = [], zoom, liveIds = new Set() }: AnnotationInput): Annotations {
+export function placeAnnotations({ elements, dimensions, extras = [], zoom, liveIds = new Set(), frame }: AnnotationInput): Annotations {
+	const inside = (b: Box) => !frame || (b.x0 >= frame.x0 && b.x1 <= frame.x1 && b.y0 >= frame.y0 && b.y1 <= frame.y1);
 	const drawn = elements.filter((e) => e.kind !== 'background');
 	const boxes = new Map(drawn.map((e) => [e.id, elementBox(e, zoom)]));
 	const out: Annotations = { dimensions: [], labels: [] };
 	const taken: Box[] = [];
 	for (const live of [false, true]) {
 		const obstacles = [...taken, ...drawn.filter((e) => live || !liveIds.has(e.id)).map((e) => boxes.get(e.id)!)];
-		const free = (b: Box) => !obstacles.some((o) => overlaps(b, o, 1)) && !taken.some((o) => overlaps(b, o, 1));
+		const free = (b: Box) => inside(b) && !obstacles.some((o) => overlaps(b, o, 1)) && !taken.some((o) => overlaps(b, o, 1));
 		for (const line of dimensions) {
 			if (liveIds.has(line.id) !== live) continue;
 			let chosen: DimensionDrawing | null = null;

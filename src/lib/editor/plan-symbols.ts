@@ -113,7 +113,8 @@ function emitter(el: EditorElement, c: SymbolContext): SymbolPart[] {
 			for (let i = 0; i < ticks.length; i += 4) parts.push({ shape: segment(ticks[i], ticks[i + 1], ticks[i + 2], ticks[i + 3]), line: 'thin' });
 		}
 	}
-	parts.push({ shape: segment(0, -half, 0, half), line: 'outline', stroke: { colour: beamColours(drawnKelvin(el), c.dark).stroke } });
+	// The front face: ink for a modifier's face, the light's own colour for a bare head.
+	parts.push({ shape: segment(0, -half, 0, half), line: 'outline', stroke: el.modifier ? 'ink' : { colour: beamColours(drawnKelvin(el), c.dark).stroke } });
 	return parts;
 }
 
@@ -168,7 +169,7 @@ export const SYMBOLS: Record<string, SymbolOf> = {
 		const d = sizeField(el, ['depthM'], 0.3) / 2;
 		const w = sizeField(el, ['widthM'], 0.5) / 2;
 		const colour = (el as { colour?: string }).colour ?? '#808080';
-		return [{ shape: rect(-d, -w, d, w), line: 'thin', stroke: 'ink', fill: { colour, opacity: 0.35 } }];
+		return [{ shape: rect(-d, -w, d, w), line: 'thin', stroke: 'ink', fill: { colour, opacity: 0.25 } }];
 	},
 	/** A window or open sky placed on the plan: the opening thick with a broad arrow for the light's direction. */
 	ambient(el, c) {
