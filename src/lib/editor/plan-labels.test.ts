@@ -5,7 +5,7 @@ import { dimensionLines } from './model/dimensions';
 import { modelFromDocument } from './model/document';
 import { expandBounds } from './model/geometry';
 import { elementsInOrder } from './model/types';
-import { annotationClashes, dimensionDrawing, placeAnnotations } from './plan-labels';
+import { AnnotationPlacer, annotationClashes, dimensionDrawing, placeAnnotations } from './plan-labels';
 import { fitTarget } from './view.svelte';
 import { fitBounds } from './viewport';
 
@@ -13,7 +13,9 @@ import { fitBounds } from './viewport';
 const plans = DEMO_SETUPS.flatMap((s) => s.revisions.map((r, i) => ({ name: `${s.title}, revision ${i + 1}`, document: r.document })));
 const STAGES = [
 	{ name: 'desktop', widthPx: 1000, heightPx: 760 },
-	{ name: 'phone', widthPx: 380, heightPx: 500 }
+	{ name: 'phone', widthPx: 380, heightPx: 500 },
+	// The plan's size in the browser at 390 × 844 (60 % of the height, less the page's margins).
+	{ name: 'phone in the browser', widthPx: 356, heightPx: 506 }
 ];
 
 describe('label placement on the seeded plans', () => {
@@ -47,6 +49,13 @@ describe('placeAnnotations', () => {
 		// The leader runs from the element to the label's nearest edge.
 		expect(s.anchor).toEqual([0, 0]);
 		expect(s.leaderEnd[1] * 800).toBeCloseTo(s.box.y1, 6);
+	});
+	it('reuses the placement of what is not being edited while only the live part changes', () => {
+		const placer = new AnnotationPlacer();
+		const first = placer.place({ elements: [subject, card] as never, dimensions: [], zoom: 800, liveIds: new Set(['c']) });
+		const second = placer.place({ elements: [subject, { ...card, yM: 0.2 }] as never, dimensions: [], zoom: 800, liveIds: new Set(['c']) });
+		expect(second.labels.find((l) => l.id === 's')).toBe(first.labels.find((l) => l.id === 's'));
+		expect(second.labels.find((l) => l.id === 'c')).not.toEqual(first.labels.find((l) => l.id === 'c'));
 	});
 	it('keeps the words of what is not being edited where they were while the live element moves', () => {
 		const still = placeAnnotations({ elements: [subject, card] as never, dimensions: [], zoom: 800, liveIds: new Set(['c']) });

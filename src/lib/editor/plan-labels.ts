@@ -145,7 +145,7 @@ const DIRECTIONS: Vec2[] = [
 	[1, -1],
 	[-1, -1]
 ];
-const GAPS_PX = [6, 20, 40, 64];
+const GAPS_PX = [6, 20, 40, 64, 96];
 const LABEL_HEIGHT_PX = 14;
 
 function candidateBox(around: Box, dir: Vec2, gap: number, w: number): Box {
@@ -189,61 +189,96 @@ export interface Annotations {
  * against what is not being edited; then the words of the live part against everything, so a drag
  * moves only its own words.
  */
-export function placeAnnotations({ elements, dimensions, extras = [], zoom, liveIds = new Set(), frame }: AnnotationInput): Annotations {
+export function placeAnnotations(input: AnnotationInput): Annotations {
+	return new AnnotationPlacer().place(input);
+}
+
+/**
+ * `placeAnnotations` that remembers its last placement of what is not being edited: while only the
+ * live part changes (a drag), that half is reused as it was (same objects, so nothing redraws it) and
+ * only the live words are placed again.
+ */
+export class AnnotationPlacer {
+	#staticKey: unknown[] = [];
+	#static: { result: Annotations; taken: Box[] } | null = null;
+
+	place(input: AnnotationInput): Annotations {
+		const { elements, dimensions, extras = [], zoom, liveIds = new Set(), frame } = input;
+		const drawn = elements.filter((e) => e.kind !== 'background');
+		const still = drawn.filter((e) => !liveIds.has(e.id));
+		const stillDims = dimensions.filter((d) => !liveIds.has(d.id));
+		const stillExtras = extras.filter((x) => !liveIds.has(x.id));
+		const key = [zoom, frame?.x0, frame?.y0, frame?.x1, frame?.y1, JSON.stringify(stillExtras), ...still, '|', ...stillDims];
+		if (!this.#static || key.length !== this.#staticKey.length || key.some((k, i) => k !== this.#staticKey[i])) {
+			const taken: Box[] = [];
+			const result = placePass(still, still, stillDims, stillExtras, zoom, frame, taken);
+			this.#static = { result, taken };
+			this.#staticKey = key;
+		}
+		const taken = [...this.#static.taken];
+		const live = placePass(
+			drawn,
+			drawn.filter((e) => liveIds.has(e.id)),
+			dimensions.filter((d) => liveIds.has(d.id)),
+			extras.filter((x) => liveIds.has(x.id)),
+			zoom,
+			frame,
+			taken
+		);
+		return { dimensions: [...this.#static.result.dimensions, ...live.dimensions], labels: [...this.#static.result.labels, ...live.labels] };
+	}
+}
+
+/**
+ * One pass: places the words of `own` (and of `dimensions`, `extras`) clear of `taken` (which it
+ * extends) and of the outlines of `obstacles`, inside `frame` where it can, else anywhere free.
+ */
+function placePass(
+	obstacles: readonly EditorElement[],
+	own: readonly EditorElement[],
+	dimensions: readonly DimensionLine[],
+	extras: readonly ExtraLabel[],
+	zoom: number,
+	frame: Box | undefined,
+	taken: Box[]
+): Annotations {
+	const outlines = obstacles.map((e) => elementBox(e, zoom));
+	const clear = (b: Box) => !outlines.some((o) => overlaps(b, o, 1)) && !taken.some((o) => overlaps(b, o, 1));
 	const inside = (b: Box) => !frame || (b.x0 >= frame.x0 && b.x1 <= frame.x1 && b.y0 >= frame.y0 && b.y1 <= frame.y1);
-	const drawn = elements.filter((e) => e.kind !== 'background');
-	const boxes = new Map(drawn.map((e) => [e.id, elementBox(e, zoom)]));
+	/** The first candidate clear and on the stage, else the first clear one, else the first. */
+	function pick<T>(candidates: T[], boxOf: (c: T) => Box): T {
+		return candidates.find((c) => clear(boxOf(c)) && inside(boxOf(c))) ?? candidates.find((c) => clear(boxOf(c))) ?? candidates[0];
+	}
 	const out: Annotations = { dimensions: [], labels: [] };
-	const taken: Box[] = [];
-	for (const live of [false, true]) {
-		const obstacles = [...taken, ...drawn.filter((e) => live || !liveIds.has(e.id)).map((e) => boxes.get(e.id)!)];
-		const free = (b: Box) => inside(b) && !obstacles.some((o) => overlaps(b, o, 1)) && !taken.some((o) => overlaps(b, o, 1));
-		for (const line of dimensions) {
-			if (liveIds.has(line.id) !== live) continue;
-			let chosen: DimensionDrawing | null = null;
-			search: for (const t of dimensionPositions(line, zoom)) {
-				for (const side of [1, -1] as const) {
-					const d = dimensionDrawing(line, zoom, t, side);
-					if (!d) break search;
-					chosen ??= d;
-					if (free(d.box)) {
-						chosen = d;
-						break search;
-					}
-				}
+	for (const line of dimensions) {
+		const candidates: DimensionDrawing[] = [];
+		for (const t of dimensionPositions(line, zoom)) {
+			for (const side of [1, -1] as const) {
+				const d = dimensionDrawing(line, zoom, t, side);
+				if (d) candidates.push(d);
 			}
-			if (!chosen) continue;
-			out.dimensions.push(chosen);
-			taken.push(chosen.box);
 		}
-		const items: LabelItem[] = [];
-		for (const el of drawn) {
-			if (!el.label || liveIds.has(el.id) !== live) continue;
-			const around = boxes.get(el.id)!;
-			items.push({ id: el.id, text: el.label, around, anchorPx: [el.xM * zoom, el.yM * zoom] });
-		}
-		for (const x of extras) {
-			if (liveIds.has(x.id) !== live) continue;
-			const p: Vec2 = [x.anchor[0] * zoom, x.anchor[1] * zoom];
-			items.push({ id: x.id, text: x.text, around: { x0: p[0] - 2, y0: p[1] - 2, x1: p[0] + 2, y1: p[1] + 2 }, anchorPx: p });
-		}
-		for (const item of items) {
-			const w = textWidthPx(item.text, LABEL_FONT_PX);
-			let chosen: Box | null = null;
-			search: for (const gap of GAPS_PX) {
-				for (const dir of DIRECTIONS) {
-					const b = candidateBox(item.around, dir, gap, w);
-					if (free(b)) {
-						chosen = b;
-						break search;
-					}
-				}
-			}
-			chosen ??= candidateBox(item.around, DIRECTIONS[0], GAPS_PX[0], w);
-			taken.push(chosen);
-			const end = nearestOnBox(chosen, item.anchorPx);
-			out.labels.push({ id: item.id, text: item.text, box: chosen, anchor: [item.anchorPx[0] / zoom, item.anchorPx[1] / zoom], leaderEnd: [end[0] / zoom, end[1] / zoom] });
-		}
+		if (!candidates.length) continue;
+		const chosen = pick(candidates, (d) => d.box);
+		out.dimensions.push(chosen);
+		taken.push(chosen.box);
+	}
+	const items: LabelItem[] = [];
+	for (const el of own) {
+		if (el.kind === 'background' || !el.label) continue;
+		items.push({ id: el.id, text: el.label, around: elementBox(el, zoom), anchorPx: [el.xM * zoom, el.yM * zoom] });
+	}
+	for (const x of extras) {
+		const p: Vec2 = [x.anchor[0] * zoom, x.anchor[1] * zoom];
+		items.push({ id: x.id, text: x.text, around: { x0: p[0] - 2, y0: p[1] - 2, x1: p[0] + 2, y1: p[1] + 2 }, anchorPx: p });
+	}
+	for (const item of items) {
+		const w = textWidthPx(item.text, LABEL_FONT_PX);
+		const candidates = GAPS_PX.flatMap((gap) => DIRECTIONS.map((dir) => candidateBox(item.around, dir, gap, w)));
+		const chosen = pick(candidates, (b) => b);
+		taken.push(chosen);
+		const end = nearestOnBox(chosen, item.anchorPx);
+		out.labels.push({ id: item.id, text: item.text, box: chosen, anchor: [item.anchorPx[0] / zoom, item.anchorPx[1] / zoom], leaderEnd: [end[0] / zoom, end[1] / zoom] });
 	}
 	return out;
 }
