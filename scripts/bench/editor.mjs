@@ -1,7 +1,9 @@
 // Editor bench: does dragging a light stay smooth as the plan grows? Makes two setups through the API
 // (60 elements with the falloff map on, and 2 elements), opens each in Chromium, drags the same light
-// for three seconds with mouse moves and records the frame times (requestAnimationFrame deltas). The
-// goal: the 60-element plan's median frame time below 1.5× the 2-element plan's. Also reports the
+// for three seconds with mouse moves and records the frame times (requestAnimationFrame deltas) and
+// the time from each pointer move to the exposure strip's new total. The goals: the 60-element plan's
+// median frame time below 1.5× the 2-element plan's, its p95 within one frame (16.7 ms) and within 1.5×
+// the 2-element plan's p95, and pointer move → exposure text p95 within one frame. Also reports the
 // editor route's first-load JavaScript (gzip; goal at most 120 KiB): the scripts the server's page
 // names for preloading, which are the route's static imports; what the page loads later (the canvas,
 // the falloff worker, the unit parser, the revision comparison) is reported beside it, with konva's size.
