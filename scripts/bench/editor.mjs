@@ -267,8 +267,9 @@ export async function run({ baseUrl, databaseUrl, log }) {
 			for (const name of round_ % 2 === 0 ? ['large', 'small'] : ['small', 'large']) {
 				const { page: p, plan } = opened[name];
 				await p.bringToFront();
-				// SQUARELAW_BENCH_PROFILE=1: a CPU profile of the first large drag (not counted in the figures).
-				if (process.env.SQUARELAW_BENCH_PROFILE && name === 'large' && !hotspots) hotspots = await profileDrag(p, plan, log);
+				// SQUARELAW_BENCH_PROFILE=1 (or =small): a CPU profile of the first large (small) drag, not counted in the figures.
+				const profiled = process.env.SQUARELAW_BENCH_PROFILE === 'small' ? 'small' : 'large';
+				if (process.env.SQUARELAW_BENCH_PROFILE && name === profiled && !hotspots) hotspots = await profileDrag(p, plan, log);
 				const { frames, moves, longTasks, textMs } = await dragFrames(p, plan, DRAG_MS);
 				plans[name].frames.push(...frames);
 				plans[name].textMs.push(...textMs);
