@@ -7,6 +7,7 @@ import { randomUUID } from 'node:crypto';
 import type { Locator, Page } from '@playwright/test';
 import { extractText, getDocumentProxy } from 'unpdf';
 import { expect, signedInAs, test } from './fixtures';
+import { inspectorTab } from './workspace';
 
 const OWNER = 'mara.quill@fernhill.example';
 const AMMONITE = 'Ammonite section, raking light from the left';
@@ -41,8 +42,9 @@ async function waitLive(page: Page) {
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 }
 
-/** The exposure panel shows an answer (the browser computes it with every change). */
+/** The exposure panel (the inspector's Exposure tab) shows an answer (the browser computes it with every change). */
 async function upToDate(page: Page) {
+	await inspectorTab(page, 'Exposure');
 	await expect(page.getByTestId('exposure-panel').getByTestId('exposure-summary')).toBeVisible();
 }
 
@@ -61,6 +63,7 @@ async function stopsOf(page: Page, label: string): Promise<number> {
 
 /** Where an element is on the plan, in metres, read from its button in the element list. */
 async function listedAt(list: Locator, label: string): Promise<[number, number]> {
+	await inspectorTab(list.page(), 'Element');
 	const name = (await list.getByRole('button', { name: new RegExp(`^${label}, `) }).getAttribute('aria-label'))!;
 	const m = name.match(/at (-?[\d.]+) cm, (-?[\d.]+) cm/);
 	expect(m, `position in "${name}"`).toBeTruthy();
@@ -142,6 +145,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	await page.getByRole('button', { name: 'Aim at the subject' }).click();
 
 	// f/16 at 1:1.
+	await inspectorTab(page, 'Camera');
 	await setField(page, 'Aperture (f-number, marked)', '16');
 	await setField(page, 'Magnification', '1:1');
 	const panel = page.getByTestId('exposure-panel');
@@ -231,13 +235,16 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	await expect(page.getByText(/were restored/)).toHaveCount(0);
 	const namesAfter = await list.getByRole('listitem').getByRole('button', { name: /, at / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label')));
 	expect(namesAfter.sort()).toEqual(namesBefore.sort());
+	await inspectorTab(page, 'Exposure');
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/16\s*set$/);
 	expect(await stopsOf(page, 'Flash')).toBeCloseTo(before, 2);
 
 	// A change saved as revision 2 with a message, and the notebook's table shows that revision's thumbnail.
+	await inspectorTab(page, 'Element');
 	await list.getByRole('button', { name: /^White card, / }).click();
 	await page.getByLabel('x (across)').fill(`${(cardPlan[0] * 100 - 5).toFixed(1)} cm`);
 	await page.getByLabel('x (across)').press('Enter');
+	await inspectorTab(page, 'Save');
 	await page.getByLabel('What changed (optional)').fill('Card 5 cm closer');
 	await page.getByRole('button', { name: 'Save revision' }).click();
 	await expect(page.getByTestId('revision-number')).toHaveText('2');
@@ -278,6 +285,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	expect(copyId).not.toBe(id);
 	await waitLive(page);
 	await expect(page.getByTestId('lineage')).toContainText('Duplicated from');
+	await inspectorTab(page, 'Element');
 	await expect(list.getByRole('listitem')).toHaveCount(4);
 	await expect(list.getByRole('button', { name: /^White card, / })).toBeVisible();
 	expect(await stopsOf(page, 'Flash')).toBeCloseTo(before, 2);

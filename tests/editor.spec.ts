@@ -6,6 +6,7 @@ import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import type { Page } from '@playwright/test';
 import { expect, signedInAs, test } from './fixtures';
+import { inspectorTab } from './workspace';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
@@ -42,7 +43,7 @@ async function openPlan(page: Page, id: string) {
 	await page.goto(`/setups/${id}`);
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
-	await expect(page.getByTestId('exposure-panel').getByTestId('exposure-summary')).toBeVisible();
+	await expect(page.getByTestId('exposure-strip').getByTestId('strip-total')).toBeVisible();
 }
 
 test('the plan editor: canvas, live exposure, the element list by keyboard, f/16 and the flash power, save as a revision', async ({
@@ -63,6 +64,7 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 	const panel = page.getByTestId('exposure-panel');
+	await inspectorTab(page, 'Exposure');
 	await expect(panel.getByTestId('aperture-table')).toBeVisible();
 	// The seeded camera is at f/11: that row is marked as set.
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/11\s*set$/);
@@ -77,6 +79,7 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	});
 
 	// Add, move by typed coordinates and delete with the keyboard alone (focus moves by key presses).
+	await inspectorTab(page, 'Element');
 	const list = page.getByTestId('element-list');
 	const before = await list.getByRole('listitem').count();
 	await page.getByLabel('New element').focus();
@@ -113,10 +116,14 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	await expect(list.getByRole('button', { name: /^Diffuser,/ })).toHaveCount(0);
 
 	// f/16: the panel marks it in the aperture table and says what power the raking flash needs.
+	await inspectorTab(page, 'Camera');
 	const aperture = page.getByLabel('Aperture (f-number, marked)');
 	await aperture.fill('16');
 	await aperture.press('Enter');
 	await aperture.blur();
+	// The strip above the plan follows at once; the full panel is one tab away.
+	await expect(page.getByTestId('exposure-strip')).toContainText('At f/16');
+	await inspectorTab(page, 'Exposure');
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/16\s*set$/);
 	expect(exposureRequests).toEqual([]);
 	const rakeLine = panel.getByTestId('flash-power').locator('li[data-flash="rake"]');
@@ -147,6 +154,7 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	expect(Math.abs(exactShown - flash.requiredPower) / flash.requiredPower).toBeLessThan(0.01);
 
 	// Save with a message: the revision number goes up and the history holds the message.
+	await inspectorTab(page, 'Save');
 	const revisionShown = page.getByTestId('revision-number');
 	const startRevision = Number(await revisionShown.textContent());
 	await page.getByLabel('What changed (optional)').fill('Stopped down to f/16 for depth');
@@ -173,6 +181,7 @@ test("a light takes a modifier from the studio's gear shelf, and the saved revis
 		'Opal diffuser dome (−1 stop)'
 	]);
 	await modifier.selectOption({ label: 'Larkspur 30 cm softbox (−1.7 stops)' });
+	await inspectorTab(page, 'Save');
 	await page.getByLabel('What changed (optional)').fill('Softbox from the shelf');
 	await page.getByRole('button', { name: 'Save revision' }).click();
 	await expect(page.getByText(/Saved as revision 2\./)).toBeVisible();
@@ -197,9 +206,11 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	const id = await freshCopy(page, seeded, 'draft test');
 	await openPlan(page, id);
 
+	await inspectorTab(page, 'Camera');
 	const iso = page.getByLabel('ISO');
 	await iso.fill('200');
 	await iso.press('Tab');
+	await inspectorTab(page, 'Save');
 	await expect(page.getByTestId('revision-status')).toContainText('unsaved changes');
 	// The draft is written a moment after the last change.
 	await expect
@@ -209,6 +220,7 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	await page.reload();
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByText(/were restored from this browser/)).toBeVisible();
+	await inspectorTab(page, 'Camera');
 	await expect(page.getByLabel('ISO')).toHaveValue('200');
 
 	// Meanwhile someone else saves a revision on the same base.
@@ -219,6 +231,7 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	expect(other.status()).toBe(200);
 	const theirs = (await other.json()).revisionNumber as number;
 
+	await inspectorTab(page, 'Save');
 	await page.getByLabel('What changed (optional)').fill('ISO 200');
 	await page.getByRole('button', { name: 'Save revision' }).click();
 	// Inline: which revision came in, and what it changed in words (the notebook's comparison).
@@ -227,7 +240,9 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	await expect(conflict).toContainText(`Revision ${theirs} by`);
 	await expect(conflict).toContainText('Saved from another window');
 	await expect(conflict).toContainText(/notes/i);
+	await inspectorTab(page, 'Camera');
 	await expect(page.getByLabel('ISO')).toHaveValue('200');
+	await inspectorTab(page, 'Save');
 	await page.getByRole('button', { name: `Save on top of revision ${theirs}` }).click();
 	await expect(page.getByTestId('revision-number')).toHaveText(String(theirs + 1));
 
@@ -247,7 +262,7 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	await expect(page.getByText(/were restored/)).toHaveCount(0);
 });
 
-test('the editor at phone width in dark mode: the panels fold under the plan and nothing runs off the side', async ({
+test('the editor at phone width in dark mode: the inspector sits under the plan and nothing runs off the side', async ({
 	page,
 	context,
 	browser,
@@ -259,15 +274,16 @@ test('the editor at phone width in dark mode: the panels fold under the plan and
 	await page.emulateMedia({ colorScheme: 'dark' });
 	await page.addInitScript(() => document.documentElement.classList.add('dark'));
 	await openPlan(page, seeded);
+	await inspectorTab(page, 'Exposure');
 	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
 	const panelBox = (await page.getByTestId('exposure-panel').boundingBox())!;
 	expect(canvasBox.width).toBeLessThanOrEqual(390);
 	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height - 1);
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-	// A panel folds away with its summary.
-	const exposure = page.locator('details', { has: page.getByTestId('exposure-panel') });
-	await exposure.locator('summary').click();
+	// The inspector shows one tab at a time: another tab puts the exposure panel away.
+	await inspectorTab(page, 'Element');
 	await expect(page.getByTestId('exposure-panel')).toBeHidden();
+	await expect(page.getByTestId('element-list')).toBeVisible();
 	await expect(page.locator('html')).toHaveClass(/dark/);
 });
 

@@ -5,6 +5,7 @@
 import { randomUUID } from 'node:crypto';
 import { expect, signedInAs, test } from './fixtures';
 import type { Page } from '@playwright/test';
+import { inspectorTab } from './workspace';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
@@ -42,7 +43,8 @@ test('open a seeded setup, read its aperture table, duplicate it for a new subje
 	await signedInAs(context, browser, baseURL, OWNER);
 	const quartzId = await openSetup(page, QUARTZ);
 
-	// The aperture table: the set aperture is marked, and each figure is the server's.
+	// The aperture table (the editor inspector's Exposure tab): the set aperture is marked, and each figure is the server's.
+	await inspectorTab(page, 'Exposure');
 	const table = page.getByTestId('aperture-table');
 	const chosen = table.locator('tr[aria-current="true"]');
 	await expect(chosen).toHaveCount(1);
@@ -329,6 +331,7 @@ test('the notebook at phone width in dark mode: no sideways scroll, search as yo
 	// The setup page fits the phone too.
 	await visit(page, '/setups');
 	await page.getByRole('link', { name: QUARTZ }).click();
+	await inspectorTab(page, 'Exposure');
 	await expect(page.getByTestId('aperture-table')).toBeVisible();
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 });

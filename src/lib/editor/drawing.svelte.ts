@@ -8,7 +8,7 @@ import type { ExposureScene } from '$lib/light/schema';
 import { falloffGrid, type FalloffGrid } from './falloff';
 import { FalloffService } from './falloff-service.svelte';
 import { dimensionLines, type DimensionLine } from './model/dimensions';
-import { boundsOfElements, expandBounds } from './model/geometry';
+import { boundsOfElements, expandBounds, type Bounds } from './model/geometry';
 import { beams, bouncePaths, keepUnchanged, type Beam, type BouncePath } from './model/light-paths';
 import type { EditorModel } from './model/types';
 
@@ -17,6 +17,8 @@ export interface DrawingSource {
 	scene(): ExposureScene;
 	unitSystem(): UnitSystem;
 	falloffVisible(): boolean;
+	/** The part of the plan in view, or null before the stage has a size. */
+	visibleBounds(): Bounds | null;
 }
 
 export class PlanDrawing {
@@ -32,7 +34,7 @@ export class PlanDrawing {
 		if (this.#falloffService.usesWorker) {
 			this.#stopEffects = $effect.root(() => {
 				$effect(() => {
-					if (source.falloffVisible()) this.#falloffService.request(source.scene(), this.planBounds);
+					if (source.falloffVisible()) this.#falloffService.request(source.scene(), this.falloffBounds);
 					else this.#falloffService.clear();
 				});
 			});
@@ -63,8 +65,15 @@ export class PlanDrawing {
 		const margin = Math.max(0.1, 0.25 * Math.max(b.maxX - b.minX, b.maxY - b.minY));
 		return expandBounds(b, margin);
 	});
+	/** Where the falloff map is computed: the whole table in view, and the plan's extent. */
+	readonly falloffBounds = $derived.by<Bounds>(() => {
+		const plan = this.planBounds;
+		const seen = this.#source.visibleBounds();
+		if (!seen) return plan;
+		return { minX: Math.min(plan.minX, seen.minX), minY: Math.min(plan.minY, seen.minY), maxX: Math.max(plan.maxX, seen.maxX), maxY: Math.max(plan.maxY, seen.maxY) };
+	});
 	readonly #falloffHere = $derived.by<FalloffGrid | null>(() =>
-		this.#source.falloffVisible() && !this.#falloffService.usesWorker ? falloffGrid(this.#source.scene(), this.planBounds) : null
+		this.#source.falloffVisible() && !this.#falloffService.usesWorker ? falloffGrid(this.#source.scene(), this.falloffBounds) : null
 	);
 	/**
 	 * The falloff map (stops relative to the subject), while it is switched on. In a browser it is

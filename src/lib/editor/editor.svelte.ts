@@ -29,7 +29,7 @@ import { PointerInput } from './pointer-input.svelte';
 import type { SnapLine } from './tools/snap';
 import type { PlanKeyInput, PlanPointerInput, PlanWheelInput, ToolHost, ToolId } from './tools/types';
 import { EditorView, fitTarget, planFrame } from './view.svelte';
-import type { Viewport } from './viewport';
+import { visibleBounds, type Viewport } from './viewport';
 import { readLengthM, UnitParseError } from '$lib/light/number-text';
 
 /** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
@@ -90,7 +90,16 @@ export class Editor implements ToolHost {
 	constructor(options: EditorOptions = {}) {
 		if (options.unitSystem) this.unitSystem = options.unitSystem;
 		this.#view = new EditorView({ unitSystem: () => this.unitSystem, fitTarget: () => fitTarget(this.#model) });
-		this.#drawing = new PlanDrawing({ model: () => this.#model, scene: () => this.scene, unitSystem: () => this.unitSystem, falloffVisible: () => this.falloffVisible });
+		this.#drawing = new PlanDrawing({
+			model: () => this.#model,
+			scene: () => this.scene,
+			unitSystem: () => this.unitSystem,
+			falloffVisible: () => this.falloffVisible,
+			visibleBounds: () => {
+				const size = this.#view.stageSize;
+				return size ? visibleBounds(this.#view.viewport, size.widthPx, size.heightPx) : null;
+			}
+		});
 		this.#input = new PointerInput(this, this.#tool);
 		if (options.document) this.loadDocument(options.document);
 		else this.#savedSignature = this.#signature(this.#model);

@@ -75,10 +75,13 @@ export interface FalloffPalette {
 export const FALLOFF_PALETTE_LIGHT: FalloffPalette = { mode: 'shade', over: [242, 184, 114], under: [23, 27, 31] };
 export const FALLOFF_PALETTE_DARK: FalloffPalette = { mode: 'glow', over: [242, 184, 114], under: [242, 184, 114] };
 
-/** Bands of half a stop, so the map reads like contours; clamped at +3 and −6 stops. */
+/**
+ * A smooth scale (the image is also smoothed between cells when drawn), clamped at +3 and −6 stops;
+ * the hue changes at the subject's level (0 stops), so brighter and darker than the subject read apart.
+ */
 export function falloffColour(stops: number, palette: FalloffPalette): [number, number, number, number] {
 	const none = stops === -Infinity || Number.isNaN(stops);
-	const band = none ? -6 : Math.max(-6, Math.min(3, Math.floor(stops * 2) / 2));
+	const band = none ? -6 : Math.max(-6, Math.min(3, stops));
 	if (palette.mode === 'glow') return [...palette.over, none ? 0 : Math.round(10 + 150 * ((band + 6) / 9))];
 	if (none) return [...palette.under, 150];
 	if (band >= 0) return [...palette.over, Math.round(40 + 100 * (Math.min(3, band + 0.5) / 3))];

@@ -95,3 +95,24 @@ export function scaleBar(system: UnitSystem, zoomPxPerM: number, maxPx = 140): S
 	for (const l of lengths) if (l * zoomPxPerM <= maxPx) lengthM = l;
 	return { lengthM, lengthPx: lengthM * zoomPxPerM, label: formatDistance(lengthM, system) };
 }
+
+/** Ruler marks along one edge of the paper: short ticks, and a number on every `numberStepM`. */
+export interface RulerMarks {
+	ticksM: number[];
+	numberStepM: number;
+	/** The unit the numbers are in ("cm" or "in"), and how to turn metres into it. */
+	unit: 'cm' | 'in';
+	perM: number;
+}
+
+/**
+ * The paper's rulers: a tick every centimetre (every inch), coarser when they would crowd (at least
+ * 5 px apart), and a number every 10 cm (every 6 in), coarser when numbers would crowd (40 px).
+ */
+export function rulerMarks(system: UnitSystem, zoomPxPerM: number, fromM: number, toM: number): RulerMarks {
+	const tickM = Math.max(gridSteps(system, zoomPxPerM, 5).minorM, system === 'imperial' ? METRES_PER_INCH : 0.01);
+	const numberStepM = Math.max(gridSteps(system, zoomPxPerM, 40).minorM, system === 'imperial' ? 6 * METRES_PER_INCH : 0.1);
+	const ticksM: number[] = [];
+	for (let i = Math.ceil(fromM / tickM); i * tickM <= toM && ticksM.length < 2000; i++) ticksM.push(i * tickM);
+	return { ticksM, numberStepM, unit: system === 'imperial' ? 'in' : 'cm', perM: system === 'imperial' ? 1 / METRES_PER_INCH : 100 };
+}

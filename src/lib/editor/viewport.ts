@@ -59,3 +59,25 @@ export function fitBounds(b: Bounds, widthPx: number, heightPx: number, paddingP
 	const cy = (b.minY + b.maxY) / 2;
 	return { zoom, panX: widthPx / 2 - cx * zoom, panY: heightPx / 2 - cy * zoom };
 }
+
+/** How far an element may come to the stage's edge before the view follows it, in pixels. */
+const KEEP_IN_VIEW_MARGIN_PX = 32;
+
+/**
+ * The pan (in screen pixels) that brings bounds back into view with a margin, or null when they are
+ * in view: the view follows an element dragged, nudged or placed past the stage's edge. Bounds larger
+ * than the view show their left and top edges.
+ */
+export function keepInViewDelta(v: Viewport, widthPx: number, heightPx: number, b: Bounds): [number, number] | null {
+	const m = KEEP_IN_VIEW_MARGIN_PX;
+	const axis = (lo: number, hi: number, pan: number, size: number) => {
+		const a = lo * v.zoom + pan;
+		const z = hi * v.zoom + pan;
+		if (a < m) return m - a;
+		if (z > size - m) return Math.max(size - m - z, m - a);
+		return 0;
+	};
+	const dx = axis(b.minX, b.maxX, v.panX, widthPx);
+	const dy = axis(b.minY, b.maxY, v.panY, heightPx);
+	return dx || dy ? [dx, dy] : null;
+}

@@ -27,6 +27,12 @@ export const REFLECTOR_FINISHES: Record<ReflectorFinish, { label: string; surfac
 	black: { label: 'Black', surface: 'diffuse', reflectance: 0.05 }
 };
 
+/** The reflector finish a surface and reflectance are (null: neither, e.g. a measured figure). */
+export function finishOf(el: { surface: 'diffuse' | 'specular'; reflectance: number }): ReflectorFinish | null {
+	const names = Object.keys(REFLECTOR_FINISHES) as ReflectorFinish[];
+	return names.find((f) => REFLECTOR_FINISHES[f].surface === el.surface && REFLECTOR_FINISHES[f].reflectance === el.reflectance) ?? null;
+}
+
 export const MODIFIER_PRESETS: readonly Modifier[] = [
 	{ name: 'Bare head', beamAngleDeg: 60, lossStops: 0, sizeM: 0.075 },
 	{ name: 'Small softbox (30 cm)', beamAngleDeg: 100, lossStops: 1.5, sizeM: 0.3 },

@@ -7,15 +7,11 @@
 import { SKY_PRESET_NAMES, SKY_PRESETS, type SkyPreset } from '$lib/light/ambient';
 import { roundSig } from '$lib/light/format';
 import { plainNumber } from '$lib/light/number-text';
-import { REFLECTOR_FINISHES } from '../../model/defaults';
+import { finishOf, REFLECTOR_FINISHES } from '../../model/defaults';
 import { formatPower, parsePower } from '../../model/power-notation';
 import type { EditorElement, ReflectorFinish } from '../../model/schema';
 
-/** The reflector finish a surface and reflectance are (null: neither, e.g. a measured figure). */
-export function finishOf(el: { surface: 'diffuse' | 'specular'; reflectance: number }): ReflectorFinish | null {
-	const names = Object.keys(REFLECTOR_FINISHES) as ReflectorFinish[];
-	return names.find((f) => REFLECTOR_FINISHES[f].surface === el.surface && REFLECTOR_FINISHES[f].reflectance === el.reflectance) ?? null;
-}
+export { finishOf };
 
 /** The sky preset an EV is (null: metered or typed). */
 export function skyPresetOf(ev100: number): SkyPreset | null {
