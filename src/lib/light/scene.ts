@@ -228,10 +228,16 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	if (whiteBalance?.mixed) warnings.push(mixedLightWarning(whiteBalance));
 
 	const cautionDetails = sceneCautions(scene);
-	const keyLight = key && key.id !== 'ambient' ? field.lights.find((l) => l.light.id === key.id) : undefined;
-	const faces = keyLight
-		? subjectFaces(field, subject, keyLight.position, subjectNormal, (l) => crossingFlag(l.position, subject, field.flags) !== undefined)
-		: null;
+	// The faces' key is the strongest light as a surface turned to it would get it: a key at 90° to the
+	// camera gives the camera-facing side nothing, yet it is still the light that models the subject.
+	const isBlocked = (l: (typeof field.lights)[number]) => crossingFlag(l.position, subject, field.flags) !== undefined;
+	let faceKey: (typeof field.lights)[number] | undefined;
+	let faceKeyX = 0;
+	for (const l of field.lights) {
+		const x = isBlocked(l) ? 0 : l.xAt(subject);
+		if (x > faceKeyX) [faceKey, faceKeyX] = [l, x];
+	}
+	const faces = faceKey ? subjectFaces(field, subject, faceKey.position, subjectNormal, isBlocked) : null;
 	return {
 		workingAperture: wa,
 		lights: results,
