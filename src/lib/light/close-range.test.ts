@@ -210,18 +210,7 @@ describe('4. exposure per face', () => {
 		const high = fc.tuple(fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: -1, max: 1, noNaN: true }), fc.double({ min: 0.2, max: 1, noNaN: true }));
 		fc.assert(
 			fc.property(high, at, at, fc.boolean(), (k, f, c, withCamera) => {
-				const r = run({
-					camera: { ...camera, ...(withCamera ? { position: c as V3 } : {}) },
-					subject: { position: [0, 0, 0] },
-					ambient: { ev100: 8 },
-					lights: [
-						{ id: 'key', kind: 'flash', position: k as V3, guideNumber: 10, power: 1 },
-						{ id: 'fill', kind: 'continuous', position: f as V3, luxAt1m: 500 },
-						{ id: 'card', kind: 'reflector', position: [-k[0], -k[1], 0.1], areaM2: 0.04, reflectance: 0.8, surface: 'diffuse', source: 'key' }
-					]
-				});
-				// The sum of all lights, each as a surface turned square to it would get it (no cosine).
-				const facing = run({
+				const scene: ExposureSceneInput = {
 					camera,
 					subject: { position: [0, 0, 0] },
 					ambient: { ev100: 8 },
@@ -230,7 +219,10 @@ describe('4. exposure per face', () => {
 						{ id: 'fill', kind: 'continuous', position: f as V3, luxAt1m: 500 },
 						{ id: 'card', kind: 'reflector', position: [-k[0], -k[1], 0.1], areaM2: 0.04, reflectance: 0.8, surface: 'diffuse', source: 'key' }
 					]
-				}).total.x;
+				};
+				const r = run({ ...scene, camera: { ...camera, ...(withCamera ? { position: c as V3 } : {}) } });
+				// The sum of all lights, each as a surface turned square to it would get it (no cosine).
+				const facing = run(scene).total.x;
 				expect(r.total.x).toBeLessThanOrEqual(facing * (1 + 1e-12));
 				if (r.faces) {
 					expect(r.faces.lit.x).toBeLessThanOrEqual(facing * (1 + 1e-12));
