@@ -54,14 +54,22 @@ function doc(scene: ExposureSceneInput, plan: Plan, notes: string, at: string): 
 const G = DEMO_GEAR;
 
 // ---------- Quartz cluster on black velvet ----------
-const quartzCamera = { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.8, cocMm: 0.03, syncSpeed: 1 / 200, minAperture: 5.6, maxAperture: 32 };
+// The Corvid M2 (36 × 24 mm: d/1500 = 0.029 mm) with the Heron 100 mm macro (pupil magnification 0.6).
+const corvidM2 = { cocMm: 0.029, syncSpeed: 1 / 200 };
+const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32, position: [0, -0.42, 0.22] as [number, number, number] });
+/** The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom, a third of a stop under, down to 1/256. */
+const kestrelAt35 = { guideNumber: 28, zoomMm: 35, calibrationOffsetStops: -0.3, lowestPower: 1 / 256 };
+// The crystals' tips point up: the subject faces up, and the key's light falls on them from above.
+const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number], facing: 'up' as const, depthMm: 70 });
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
 	position: [-0.3, 0.2, 0.35] as [number, number, number],
-	guideNumber: 40,
+	...kestrelAt35,
 	power,
 	lossStops: 1.7,
+	emitterWidthM: 0.3,
+	emitterHeightM: 0.3,
 	aim: [0, 0, 0.04] as [number, number, number],
 	beamAngleDeg: 90,
 	kelvin: 5600
@@ -106,20 +114,20 @@ const quartz: DemoSetup = {
 			author: 'mara',
 			at: '2026-10-06T18:40:00Z',
 			message: 'Softbox high at the upper left, 1/8 power',
-			document: doc({ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 8)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
+			document: doc({ camera: quartzCamera(100), subject: quartzSubject(0.04), lights: [quartzKey(1 / 8)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-06T19:05:00Z',
-			message: 'Up to 1/4 power: the first frames were a stop dark',
-			document: doc({ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
+			message: 'Up to 1/2 power and ISO 200: the first frames were three stops dark',
+			document: doc({ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-13T19:20:00Z',
 			message: 'White card opposite to open up the shadow side',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4), quartzCard([0.22, -0.08, 0.1])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2), quartzCard([0.22, -0.08, 0.1])] },
 				quartzPlan(true),
 				quartzNotesCard,
 				'2026-10-06T18:40:00Z'
@@ -130,7 +138,7 @@ const quartz: DemoSetup = {
 			at: '2026-10-20T18:55:00Z',
 			message: 'Card 8 cm closer for a brighter fill; cleaning notes',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
 				quartzPlan(true),
 				quartzNotesFinal,
 				'2026-10-06T18:40:00Z'
@@ -156,9 +164,9 @@ const amethyst: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-27T19:35:00Z',
-			message: 'The geode is darker than the quartz: flash up to 1/2, a stop over the reading on purpose',
+			message: 'The geode is darker than the quartz: flash up to full power, a stop over the reading on purpose',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.05] }, lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: { ...quartzSubject(0.05), depthMm: 100 }, lights: [quartzKey(1), quartzCard([0.15, -0.05, 0.08])] },
 				{
 					...quartzPlan(true),
 					elements: {
@@ -174,12 +182,17 @@ const amethyst: DemoSetup = {
 };
 
 // ---------- Ammonite section, raking light from the left ----------
-const ammoniteCamera = { iso: 100, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.9, cocMm: 0.03, syncSpeed: 1 / 200, centreColumn: 'reversed' as const };
+// Overhead, with the Heron 60 mm macro (pupil magnification 0.8).
+const ammoniteCamera = (iso: number) => ({ iso, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.8, ...corvidM2, centreColumn: 'reversed' as const, position: [0, 0, 0.45] as [number, number, number] });
+/** The Marten 24 as the shelf holds it: GN 24 on its fixed head, down to 1/128. */
 const rake = (position: [number, number, number], power: number) => ({
 	id: 'rake',
 	kind: 'flash' as const,
 	position,
 	guideNumber: 24,
+	zoomMm: 35,
+	calibrationOffsetStops: 0,
+	lowestPower: 1 / 128,
 	power,
 	lossStops: 0.7,
 	aim: [0, 0, 0.015] as [number, number, number],
@@ -209,9 +222,10 @@ const ammonitePlan = (withSilver: boolean): Plan => ({
 	},
 	viewport: { center: [0, 0], widthM: 1, depthM: 0.8 }
 });
-const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean) => ({
-	camera: ammoniteCamera,
-	subject: { position: [0, 0, 0.015] as [number, number, number] },
+// A polished section lies face up: a raking light meets its face at a few degrees (Lambert's cosine law).
+const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean, iso: number) => ({
+	camera: ammoniteCamera(iso),
+	subject: { position: [0, 0, 0.015] as [number, number, number], facing: 'up' as const },
 	lights: withSilver ? [rake(flashPos, power), silver] : [rake(flashPos, power)],
 	flags: [{ id: 'shade', from: [-0.25, -0.12] as [number, number], to: [-0.1, -0.2] as [number, number] }]
 });
@@ -219,9 +233,11 @@ const ammoniteNotes = [
 	'# Ammonite section, polished face up',
 	'',
 	'Raking light from the left shows the sutures and the chamber walls. The lower the flash, the stronger the relief,',
-	'and the faster the light falls off across the section: keep the reflector on the far side.',
+	'and the less light reaches the face: at a rake of a few degrees only a tenth of it does (over three stops), so the',
+	'flash runs near full power. The light also falls off across the section: keep the reflector on the far side.',
 	'',
-	'Centre column reversed for the overhead view: hang the camera bag from the hook and keep a leg under the lens.'
+	'Centre column reversed for the overhead view: the camera hangs between the legs, off the centre. Keep its weight',
+	'over the middle, a leg under the lens, and turn it gently so it does not strike a leg.'
 ].join('\n');
 
 const ammonite: DemoSetup = {
@@ -234,20 +250,20 @@ const ammonite: DemoSetup = {
 			author: 'tobias',
 			at: '2026-10-08T18:30:00Z',
 			message: 'Raking flash from the left at 1/8',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, false), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, false, 100), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-08T19:00:00Z',
-			message: 'Silver reflector on the right lifts the shadows of the ribs',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, true), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
+			message: 'Three stops dark at 1/8: full power; silver reflector on the right lifts the shadows of the ribs',
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-15T19:15:00Z',
-			message: 'Flash lowered to 5 cm for a lower rake',
+			message: 'Flash lowered to 5 cm for a lower rake, ISO 200 for the light it costs',
 			document: doc(
-				ammoniteScene([-0.45, 0, 0.05], 1 / 8, true),
+				ammoniteScene([-0.45, 0, 0.05], 1, true, 200),
 				ammonitePlan(true),
 				`${ammoniteNotes}\n\nAt 5 cm the rake picks out the growth lines; check the far edge is not lost in shadow.`,
 				'2026-10-08T18:30:00Z'
@@ -257,15 +273,16 @@ const ammonite: DemoSetup = {
 };
 
 // ---------- Dew-covered moss on the window sill ----------
-const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.8, cocMm: 0.03, syncSpeed: 1 / 200, minAperture: 5.6, maxAperture: 22 });
+const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 22, position: [0, -0.3, 0.08] as [number, number, number] });
 const daylight = { ev100: 10, kelvin: 6500 };
 const fill = {
 	id: 'fill',
 	kind: 'flash' as const,
 	position: [0.25, -0.25, 0.2] as [number, number, number],
-	guideNumber: 40,
-	power: 1 / 128,
+	...kestrelAt35,
+	power: 1 / 64,
 	lossStops: 1,
+	emitterDiameterM: 0.08,
 	kelvin: 5600
 };
 const mossPlan = (withFill: boolean): Plan => ({
@@ -290,6 +307,8 @@ const mossNotes = [
 	'Overcast daylight through the north window; mist the moss with the plant sprayer a minute before shooting.',
 	'Tripod, cable release, mirror lock-up: at 1:1 any shake shows.'
 ].join('\n');
+const mossFillNote =
+	'The fill flash puts a sparkle in each drop. The daylight makes most of the exposure, so the flash does not freeze a drop that trembles: wait for still air (close the window, hold your breath).';
 
 const moss: DemoSetup = {
 	id: DEMO_SETUP_IDS.moss,
@@ -306,22 +325,22 @@ const moss: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-10T10:40:00Z',
-			message: 'Fill flash in the dome at 1/128, under the daylight',
+			message: 'Fill flash in the dome at 1/64, under the daylight',
 			document: doc(
 				{ camera: mossCamera(1 / 15), subject: { position: [0, 0, 0.03] }, ambient: daylight, lights: [fill] },
 				mossPlan(true),
-				`${mossNotes}\n\nThe fill flash puts a sparkle in each drop and freezes the ones that tremble.`,
+				`${mossNotes}\n\n${mossFillNote}`,
 				'2026-10-10T10:40:00Z'
 			)
 		},
 		{
 			author: 'mara',
 			at: '2026-10-17T10:05:00Z',
-			message: 'Shutter to 1/8 s: more of the daylight, the flash still freezes the drops',
+			message: 'Shutter to 1/8 s: more of the daylight; the drops must be still, the flash is only a sparkle',
 			document: doc(
 				{ camera: mossCamera(1 / 8), subject: { position: [0, 0, 0.03] }, ambient: daylight, lights: [fill] },
 				mossPlan(true),
-				`${mossNotes}\n\nThe fill flash puts a sparkle in each drop and freezes the ones that tremble.\nUsed for the workshop “Small Light, Big Detail”, exercise 2.`,
+				`${mossNotes}\n\n${mossFillNote}\nUsed for the workshop “Small Light, Big Detail”, exercise 2.`,
 				'2026-10-10T10:40:00Z'
 			)
 		}
