@@ -14,7 +14,7 @@
  * face, so the ratio is key : fill. `ratioConvention` says which of the two the scene gave.
  */
 import { length3, subtract3, dot3, type Vec3 } from './geometry';
-import type { FieldLight, LightField } from './light-field';
+import type { LightField } from './light-field';
 
 export interface FaceExposure {
 	x: number;
@@ -49,24 +49,22 @@ export function faceNormals(keyDirection: Vec3, view: Vec3 | undefined): { lit: 
 	return { lit: unit(add(v, a)), shadow: unit(add(v, a, -1)) };
 }
 
-export function subjectFaces(
-	field: LightField,
-	subject: Vec3,
-	keyPosition: Vec3,
-	view: Vec3 | undefined,
-	isBlocked: (light: FieldLight) => boolean
-): SubjectFaces {
-	const normals = faceNormals(subtract3(keyPosition, subject), view);
-	const xOn = (normal: Vec3) => {
-		let x = field.ambientX;
-		for (const l of field.lights) if (!isBlocked(l)) x += l.xAt(subject, normal);
-		return x;
-	};
-	const litX = xOn(normals.lit);
-	const shadowX = xOn(normals.shadow);
-	// The usual convention holds when some fill reaches the lit face too.
-	let fillOnLit = field.ambientX;
-	for (const l of field.lights) if (!isBlocked(l) && l.position !== keyPosition) fillOnLit += l.xAt(subject, normals.lit);
+/**
+ * The two faces at the subject, with `key` the index of the key in `field.lights` and `blocked[i]` whether
+ * a flag stops light i (worked out once by the caller).
+ */
+export function subjectFaces(field: LightField, subject: Vec3, key: number, view: Vec3 | undefined, blocked: readonly boolean[]): SubjectFaces {
+	const normals = faceNormals(subtract3(field.lights[key].position, subject), view);
+	let litX = field.ambientX;
+	let shadowX = field.ambientX;
+	let fillOnLit = field.ambientX; // the usual convention holds when some fill reaches the lit face too
+	field.lights.forEach((l, i) => {
+		if (blocked[i]) return;
+		const lit = l.xAt(subject, normals.lit);
+		litX += lit;
+		if (i !== key) fillOnLit += lit;
+		shadowX += l.xAt(subject, normals.shadow);
+	});
 	const face = (x: number, normal: Vec3): FaceExposure => ({ x, exposureOffsetStops: x > 0 ? Math.log2(x) : null, normal });
 	return {
 		lit: face(litX, normals.lit),

@@ -10,7 +10,7 @@ import { highSpeedSyncFactor, HSS_ENTRY_LOSS_STOPS } from './flash';
 import { formatFNumber, formatShutter, formatStops } from './format';
 import { sourceModelAt } from './extended-source';
 import { subjectFaces, type SubjectFaces } from './faces';
-import { distanceM, dot3, length3, subtract3, type Vec3 } from './geometry';
+import { distanceM, length3, subtract3, type Vec3 } from './geometry';
 import { crossingFlag, DEFAULT_SYNC_SPEED_S, emitterSize, lightField, mirrorLanding, subjectFacing, type LightGroup } from './light-field';
 import { lowestLadderStep, powerLadder } from './flash';
 import { airyDiskUm, apertureFactor, circleOfConfusion, depthOfFieldFromWorkingMm, diffractionLimitWorkingAperture, diffractionSoftensText, type CocSource } from './optics';
@@ -105,12 +105,14 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 
 	const results: SceneLightResult[] = [];
 	const unblocked: number[] = []; // each light's X had no flag been in the way (for the blocked-key warning)
+	const blockedLights: boolean[] = [];
 	const kelvins: (number | undefined)[] = [];
 	for (const fl of field.lights) {
 		const d = distanceM(fl.position, subject);
 		const blockedBy = crossingFlag(fl.position, subject, field.flags);
 		const x = fl.xAt(subject, subjectNormal);
 		unblocked.push(x);
+		blockedLights.push(blockedBy !== undefined);
 		const shown = blockedBy ? 0 : x;
 		const entry: SceneLightResult = { id: fl.light.id, kind: fl.light.kind, x: shown, stops: stopsOf(shown), blocked: blockedBy !== undefined, group: fl.group, distanceM: d };
 		if (blockedBy !== undefined) entry.blockedBy = blockedBy;
@@ -230,14 +232,13 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	const cautionDetails = sceneCautions(scene);
 	// The faces' key is the strongest light as a surface turned to it would get it: a key at 90° to the
 	// camera gives the camera-facing side nothing, yet it is still the light that models the subject.
-	const isBlocked = (l: (typeof field.lights)[number]) => crossingFlag(l.position, subject, field.flags) !== undefined;
-	let faceKey: (typeof field.lights)[number] | undefined;
+	let faceKey = -1;
 	let faceKeyX = 0;
-	for (const l of field.lights) {
-		const x = isBlocked(l) ? 0 : l.xAt(subject);
-		if (x > faceKeyX) [faceKey, faceKeyX] = [l, x];
-	}
-	const faces = faceKey ? subjectFaces(field, subject, faceKey.position, subjectNormal, isBlocked) : null;
+	field.lights.forEach((l, i) => {
+		const x = blockedLights[i] ? 0 : subjectNormal ? l.xAt(subject) : unblocked[i];
+		if (x > faceKeyX) [faceKey, faceKeyX] = [i, x];
+	});
+	const faces = faceKey >= 0 ? subjectFaces(field, subject, faceKey, subjectNormal, blockedLights) : null;
 	return {
 		workingAperture: wa,
 		lights: results,
@@ -272,5 +273,5 @@ function depthAxisOf(scene: ExposureScene): Vec3 | undefined {
 	if (!cam) return undefined;
 	const v = subtract3(cam, scene.subject.position as Vec3);
 	const l = length3(v);
-	return l > 0 && dot3(v, v) > 0 ? scale(v, 1 / l) : undefined;
+	return l > 0 ? scale(v, 1 / l) : undefined;
 }
