@@ -344,3 +344,12 @@ describe('10. the circle of confusion from the camera', () => {
 		expect(pixel.diffractionNote).toMatch(/^diffraction softens detail from f\/\d/);
 	});
 });
+
+describe('9. the subject has depth, in the flash question', () => {
+	it('an 18 mm deep specimen 10 cm from the flash: about half a stop front to back', () => {
+		// Source: the inverse-square law: front 9.1 cm, back 10.9 cm, 2·log2(10.9/9.1) = 0.52 stop.
+		const r = flashCalc(flashCalcSchema.parse({ guideNumber: 20, distance: 0.1, subjectDepthMm: 18 }));
+		expect(r.depthFalloffStops).toBeCloseTo(2 * Math.log2(0.109 / 0.091), 12);
+		expect(r.depthFalloffStops).toBeCloseTo(0.52, 2);
+	});
+});

@@ -156,6 +156,8 @@ export interface FlashCalcInput extends LensSetup {
 	teleconverterFactor?: number;
 	calibrationOffsetStops?: number;
 	lowestPower?: number;
+	/** The subject's depth along the flash's line, mm: the falloff from its front to its back. */
+	subjectDepthMm?: number;
 	/** The lens's marked range: a suggested aperture outside it is flagged. */
 	widestAperture?: number;
 	narrowestAperture?: number;
@@ -176,9 +178,20 @@ export interface FlashCalcResult {
 	nearestPowerStep?: NearestPowerStep;
 	/** The lowest step of this flash's ladder (1/256 unless `lowestPower` is given). */
 	lowestPowerStep: { fraction: number; label: string };
+	/** With `subjectDepthMm`: stops the front (at distance − depth/2) gets more than the back (+ depth/2). */
+	depthFalloffStops?: number;
 	/** `markedApertureForCorrect` is wider or narrower than the lens's marked range, when that is given. */
 	markedApertureOutsideLens?: 'wider' | 'narrower';
 	cautions: string[];
+}
+
+/**
+ * Inverse-square falloff across a subject's depth, along the light's line: the plane of focus at
+ * `distanceM`, the front half the depth nearer, the back half farther: 2·log2((d + D/2) / (d − D/2)).
+ * A front nearer than 1 mm counts as 1 mm (as the scene does).
+ */
+export function depthFalloffStops(distanceM: number, depthM: number): number {
+	return 2 * Math.log2((distanceM + depthM / 2) / Math.max(0.001, distanceM - depthM / 2));
 }
 
 /** `POST /api/v1/calc/flash` (see /api/v1/openapi.json). */
@@ -199,6 +212,7 @@ export function flashCalc(input: FlashCalcInput): FlashCalcResult {
 				? [flashNearLivingSubjectCaution('flash', input.distance).message]
 				: []
 	};
+	if (input.subjectDepthMm !== undefined) result.depthFalloffStops = depthFalloffStops(input.distance, input.subjectDepthMm / 1000);
 	if (input.widestAperture !== undefined && marked < input.widestAperture * (1 - 1e-9)) result.markedApertureOutsideLens = 'wider';
 	if (input.narrowestAperture !== undefined && marked > input.narrowestAperture * (1 + 1e-9)) result.markedApertureOutsideLens = 'narrower';
 	if (input.aperture !== undefined) {

@@ -97,6 +97,7 @@ export const flashCalcSchema = z.object({
 	lowestPower: lowestPowerField.optional(),
 	widestAperture: apertureField.optional(),
 	narrowestAperture: apertureField.optional(),
+	subjectDepthMm: above(0, 10_000, 'mm').optional(),
 	aperture: apertureField.optional(),
 	living: z.boolean({ error: 'must be true or false' }).optional()
 });

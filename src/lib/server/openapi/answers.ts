@@ -55,6 +55,7 @@ export const flashAnswer = z.object({
 		.optional()
 		.describe('the ladder step (2^(−k/3), k = 0…24, ending at `lowestPower` when given) nearest to requiredPower in stops, with the error left there (positive = over)'),
 	lowestPowerStep: z.object({ fraction: num, label: text }).describe('the last step of this flash’s ladder: 1/256, or `lowestPower` rounded to the ladder'),
+	depthFalloffStops: num.optional().describe('with subjectDepthMm: 2·log2((d + D/2) / (d − D/2)), the light the subject’s front gets over its back'),
 	markedApertureOutsideLens: z.enum(['wider', 'narrower']).optional().describe('markedApertureForCorrect lies outside widestAperture…narrowestAperture, when those are given'),
 	cautions: z.array(text)
 });

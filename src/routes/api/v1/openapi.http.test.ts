@@ -56,7 +56,7 @@ describe('the published API', () => {
 		}
 
 		await call('post', '/api/v1/calc/flash', {}, { guideNumber: 32, distance: 1, aperture: 16, magnification: 1 });
-		await call('post', '/api/v1/calc/flash', {}, { guideNumber: 32, distance: 0.3, magnification: 1, calibrationOffsetStops: -0.3, lowestPower: 1 / 128, narrowestAperture: 32 });
+		await call('post', '/api/v1/calc/flash', {}, { guideNumber: 32, distance: 0.3, magnification: 1, calibrationOffsetStops: -0.3, lowestPower: 1 / 128, narrowestAperture: 32, subjectDepthMm: 18 });
 		await call('post', '/api/v1/calc/optics', {}, { aperture: 16, magnification: 1, subjectDepthMm: 10, focalLengthMm: 100 });
 		await call('post', '/api/v1/calc/optics', {}, { aperture: 16, magnification: 0.4, magnificationBy: 'close-up-lens', pixelPitchUm: 4, cocBasis: 'pixel' });
 		await call('post', '/api/v1/calc/ambient', {}, { ev100: 12, aperture: 16, shutter: 0.01, balanceUnderStops: 1 });

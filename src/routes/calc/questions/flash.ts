@@ -33,6 +33,7 @@ export const flashQuestion: Question<FlashCalcBody, FlashCalcResult> = {
 		{ name: 'lowestPower', label: 'Lowest power step', kind: 'select', initial: () => '8', options: lowestPowerOptions },
 		{ name: 'widestAperture', label: 'Lens: widest aperture', kind: 'fNumber', initial: () => 'f/2.8' },
 		{ name: 'narrowestAperture', label: 'Lens: narrowest aperture', kind: 'fNumber', initial: () => 'f/32' },
+		{ name: 'subjectDepthMm', label: 'Subject depth', kind: 'smallLength', initial: () => '', optional: true, hint: () => 'Optional: front to back along the flash’s line, for the falloff across it' },
 		{ name: 'living', label: 'The subject is a person or an animal', kind: 'checkbox', initial: () => '' }
 	],
 	toBody: (p) => ({
@@ -46,6 +47,7 @@ export const flashQuestion: Question<FlashCalcBody, FlashCalcResult> = {
 		lowestPower: 2 ** -Number(p.lowestPower),
 		widestAperture: p.widestAperture as number,
 		narrowestAperture: p.narrowestAperture as number,
+		...(p.subjectDepthMm !== undefined ? { subjectDepthMm: p.subjectDepthMm as number } : {}),
 		living: p.living as boolean
 	}),
 	describe(body, r, units): Answer {
@@ -87,6 +89,12 @@ export const flashQuestion: Question<FlashCalcBody, FlashCalcResult> = {
 			headline = `Even ${lowest} is too strong: ${formatStopsOff(step.residualStops)}`;
 			working.push(
 				`Less than this flash’s lowest step is needed: at ${lowest} the exposure is ${formatStopsOff(step.residualStops)}. Move the flash back, add diffusion or an ND gel, or stop down.`
+			);
+		}
+		if (r.depthFalloffStops !== undefined && body.subjectDepthMm !== undefined) {
+			const half = body.subjectDepthMm / 2000;
+			working.push(
+				`Across the subject’s ${n(body.subjectDepthMm)} mm of depth the light falls off by the inverse-square law: front at ${formatDistance(body.distance - half, units)}, back at ${formatDistance(body.distance + half, units)}, 2 × log₂(${n(body.distance + half)} ÷ ${n(body.distance - half)}) = ${stopsWord(r.depthFalloffStops)} more on the front than on the back. Move the flash back to even it out.`
 			);
 		}
 		const warnings: string[] = [];

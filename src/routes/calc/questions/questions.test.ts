@@ -96,3 +96,10 @@ describe('the card fills the shadow face (issue 15, item 4)', () => {
 		expect(fact(a, 'Lighting ratio (key : fill)')).toMatch(/:1$/);
 	});
 });
+
+describe('the subject has depth (issue 15, item 9)', () => {
+	it('the flash question gives the falloff from front to back', async () => {
+		const a = await answer(flashQuestion, { distance: '10 cm', subjectDepthMm: '18 mm' });
+		expect(a.working.join(' ')).toContain('= 0.52 stops more on the front than on the back');
+	});
+});
