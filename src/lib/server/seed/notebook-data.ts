@@ -56,7 +56,7 @@ const G = DEMO_GEAR;
 // ---------- Quartz cluster on black velvet ----------
 // The Corvid M2 (36 × 24 mm: d/1500 = 0.029 mm) with the Heron 100 mm macro (pupil magnification 0.6).
 const corvidM2 = { cocMm: 0.029, syncSpeed: 1 / 200 };
-const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32, position: [0, -0.42, 0.22] as [number, number, number] });
+const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32 });
 /** The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom, a third of a stop under, down to 1/256. */
 const kestrelAt35 = { guideNumber: 28, zoomMm: 35, calibrationOffsetStops: -0.3, lowestPower: 1 / 256 };
 // The crystals' tips point up: the subject faces up, and the key's light falls on them from above.
@@ -183,7 +183,7 @@ const amethyst: DemoSetup = {
 
 // ---------- Ammonite section, raking light from the left ----------
 // Overhead, with the Heron 60 mm macro (pupil magnification 0.8).
-const ammoniteCamera = (iso: number) => ({ iso, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.8, ...corvidM2, centreColumn: 'reversed' as const, position: [0, 0, 0.45] as [number, number, number] });
+const ammoniteCamera = (iso: number) => ({ iso, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.8, ...corvidM2, centreColumn: 'reversed' as const });
 /** The Marten 24 as the shelf holds it: GN 24 on its fixed head, down to 1/128. */
 const rake = (position: [number, number, number], power: number) => ({
 	id: 'rake',
@@ -261,9 +261,9 @@ const ammonite: DemoSetup = {
 		{
 			author: 'mara',
 			at: '2026-10-15T19:15:00Z',
-			message: 'Flash lowered to 5 cm for a lower rake, ISO 200 for the light it costs',
+			message: 'Flash lowered to 5 cm for a lower rake: a third of a stop darker, kept for the relief',
 			document: doc(
-				ammoniteScene([-0.45, 0, 0.05], 1, true, 200),
+				ammoniteScene([-0.45, 0, 0.05], 1, true, 100),
 				ammonitePlan(true),
 				`${ammoniteNotes}\n\nAt 5 cm the rake picks out the growth lines; check the far edge is not lost in shadow.`,
 				'2026-10-08T18:30:00Z'
@@ -273,7 +273,7 @@ const ammonite: DemoSetup = {
 };
 
 // ---------- Dew-covered moss on the window sill ----------
-const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 22, position: [0, -0.3, 0.08] as [number, number, number] });
+const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 22 });
 const daylight = { ev100: 10, kelvin: 6500 };
 const fill = {
 	id: 'fill',
