@@ -57,10 +57,12 @@ const G = DEMO_GEAR;
 // The Corvid M2 (36 × 24 mm: d/1500 = 0.029 mm) with the Heron 100 mm macro (pupil magnification 0.6).
 const corvidM2 = { cocMm: 0.029, syncSpeed: 1 / 200 };
 const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32 });
-/** The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom, a third of a stop under, down to 1/256. */
-const kestrelAt35 = { guideNumber: 28, zoomMm: 35, calibrationOffsetStops: -0.3, lowestPower: 1 / 256 };
-// The crystals' tips point up: the subject faces up, and the key's light falls on them from above.
-const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number], facing: 'up' as const, depthMm: 70 });
+/**
+ * The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom. Its calibration (−0.3 stop), lowest step
+ * and zoom, the softbox's size and the subjects' facing join these scenes once the editor carries them.
+ */
+const kestrelAt35 = { guideNumber: 28 };
+const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number] });
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
@@ -68,8 +70,6 @@ const quartzKey = (power: number) => ({
 	...kestrelAt35,
 	power,
 	lossStops: 1.7,
-	emitterWidthM: 0.3,
-	emitterHeightM: 0.3,
 	aim: [0, 0, 0.04] as [number, number, number],
 	beamAngleDeg: 90,
 	kelvin: 5600
@@ -119,15 +119,15 @@ const quartz: DemoSetup = {
 		{
 			author: 'mara',
 			at: '2026-10-06T19:05:00Z',
-			message: 'Up to 1/2 power and ISO 200: the first frames were three stops dark',
-			document: doc({ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
+			message: 'Up to 1/4 power and ISO 200: the first frames were two stops dark',
+			document: doc({ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-13T19:20:00Z',
 			message: 'White card opposite to open up the shadow side',
 			document: doc(
-				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2), quartzCard([0.22, -0.08, 0.1])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.22, -0.08, 0.1])] },
 				quartzPlan(true),
 				quartzNotesCard,
 				'2026-10-06T18:40:00Z'
@@ -138,7 +138,7 @@ const quartz: DemoSetup = {
 			at: '2026-10-20T18:55:00Z',
 			message: 'Card 8 cm closer for a brighter fill; cleaning notes',
 			document: doc(
-				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])] },
 				quartzPlan(true),
 				quartzNotesFinal,
 				'2026-10-06T18:40:00Z'
@@ -164,9 +164,9 @@ const amethyst: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-27T19:35:00Z',
-			message: 'The geode is darker than the quartz: flash up to full power, a stop over the reading on purpose',
+			message: 'The geode is darker than the quartz: flash up to 1/2, a stop over the reading on purpose',
 			document: doc(
-				{ camera: quartzCamera(200), subject: { ...quartzSubject(0.05), depthMm: 100 }, lights: [quartzKey(1), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.05), lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
 				{
 					...quartzPlan(true),
 					elements: {
@@ -184,15 +184,12 @@ const amethyst: DemoSetup = {
 // ---------- Ammonite section, raking light from the left ----------
 // Overhead, with the Heron 60 mm macro (pupil magnification 0.8).
 const ammoniteCamera = (iso: number) => ({ iso, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.8, ...corvidM2, centreColumn: 'reversed' as const });
-/** The Marten 24 as the shelf holds it: GN 24 on its fixed head, down to 1/128. */
+/** The Marten 24 as the shelf holds it: GN 24 on its fixed head. */
 const rake = (position: [number, number, number], power: number) => ({
 	id: 'rake',
 	kind: 'flash' as const,
 	position,
 	guideNumber: 24,
-	zoomMm: 35,
-	calibrationOffsetStops: 0,
-	lowestPower: 1 / 128,
 	power,
 	lossStops: 0.7,
 	aim: [0, 0, 0.015] as [number, number, number],
@@ -222,10 +219,9 @@ const ammonitePlan = (withSilver: boolean): Plan => ({
 	},
 	viewport: { center: [0, 0], widthM: 1, depthM: 0.8 }
 });
-// A polished section lies face up: a raking light meets its face at a few degrees (Lambert's cosine law).
 const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean, iso: number) => ({
 	camera: ammoniteCamera(iso),
-	subject: { position: [0, 0, 0.015] as [number, number, number], facing: 'up' as const },
+	subject: { position: [0, 0, 0.015] as [number, number, number] },
 	lights: withSilver ? [rake(flashPos, power), silver] : [rake(flashPos, power)],
 	flags: [{ id: 'shade', from: [-0.25, -0.12] as [number, number], to: [-0.1, -0.2] as [number, number] }]
 });
@@ -233,8 +229,7 @@ const ammoniteNotes = [
 	'# Ammonite section, polished face up',
 	'',
 	'Raking light from the left shows the sutures and the chamber walls. The lower the flash, the stronger the relief,',
-	'and the less light reaches the face: at a rake of a few degrees only a tenth of it does (over three stops), so the',
-	'flash runs near full power. The light also falls off across the section: keep the reflector on the far side.',
+	'and the faster the light falls off across the section: keep the reflector on the far side.',
 	'',
 	'Centre column reversed for the overhead view: the camera hangs between the legs, off the centre. Keep its weight',
 	'over the middle, a leg under the lens, and turn it gently so it does not strike a leg.'
@@ -255,15 +250,15 @@ const ammonite: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-08T19:00:00Z',
-			message: 'Three stops dark at 1/8: full power; silver reflector on the right lifts the shadows of the ribs',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
+			message: 'Silver reflector on the right lifts the shadows of the ribs',
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-15T19:15:00Z',
-			message: 'Flash lowered to 5 cm for a lower rake: a third of a stop darker, kept for the relief',
+			message: 'Flash lowered to 5 cm for a lower rake',
 			document: doc(
-				ammoniteScene([-0.45, 0, 0.05], 1, true, 100),
+				ammoniteScene([-0.45, 0, 0.05], 1 / 8, true, 100),
 				ammonitePlan(true),
 				`${ammoniteNotes}\n\nAt 5 cm the rake picks out the growth lines; check the far edge is not lost in shadow.`,
 				'2026-10-08T18:30:00Z'
@@ -282,7 +277,6 @@ const fill = {
 	...kestrelAt35,
 	power: 1 / 64,
 	lossStops: 1,
-	emitterDiameterM: 0.08,
 	kelvin: 5600
 };
 const mossPlan = (withFill: boolean): Plan => ({
