@@ -14,6 +14,7 @@ import {
 	shutterForCorrect
 } from './ambient';
 import * as ambientModule from './ambient';
+import { ambientCalcSchema } from './schema';
 
 const base = { calibrationC: 250, calibrationK: 12.5, iso: 100, magnification: 0, pupilMagnification: 1, lossStops: 0, syncSpeed: 1 / 200 };
 
@@ -180,5 +181,17 @@ describe('marked shutter speeds', () => {
 		expect(nearestMarkedShutter(1 / 62).residualStops).toBeCloseTo(Math.log2(62 / 64), 12);
 		expect(nearestMarkedShutter(1e-5).label).toBe('1/8000 s');
 		expect(nearestMarkedShutter(100).label).toBe('30 s');
+	});
+});
+
+describe('flash and ambient add (issue 15, item 12)', () => {
+	it('both at correct is one stop over; keeping the ambient 1 stop under, the flash goes down 0.58 stop', () => {
+		// Source: exposures add linearly (common practice): 1 + 1 = 2 is one stop; 1 + ½ = 1.5 is log2(1.5) = 0.585.
+		const even = ambientCalc(ambientCalcSchema.parse({ ev100: 12, aperture: 16, balanceUnderStops: 0 }));
+		expect(even.balanceSumOffsetStops).toBeCloseTo(1, 12);
+		const under = ambientCalc(ambientCalcSchema.parse({ ev100: 12, aperture: 16, balanceUnderStops: 1 }));
+		expect(under.flashCompensationStops).toBeCloseTo(-Math.log2(1.5), 12);
+		// The shutter follows the flash down, so the ambient stays 1 stop under it.
+		expect(under.shutterForCompensatedBalance! / under.shutterForBalance!).toBeCloseTo(1 / 1.5, 12);
 	});
 });

@@ -9,7 +9,7 @@
  *                                 hemispherical one)
  * and EV = log2(N²/t), so EV at ISO 100 is log2(E·100/C) or log2(L·100/K).
  */
-import { workingAperture } from './optics';
+import { workingApertureOf, type MagnificationMethod } from './optics';
 
 export const CALIBRATION_C_FLAT = 250;
 export const CALIBRATION_K_REFLECTED = 12.5;
@@ -99,6 +99,16 @@ export function shutterForAmbientUnder(
 	return shutterForCorrect(ev100, iso, workingF, lossStops) * 2 ** (flashOffsetStops - stopsUnder);
 }
 
+/**
+ * Flash and ambient add: with the ambient u stops under the flash, the sum is log2(1 + 2^(−u)) stops
+ * above the flash alone (both at "correct", u = 0, is one stop over). The flash compensation that keeps
+ * the sum correct is minus that. Source: exposures add linearly (common practice: the fill-flash rule of
+ * pulling the flash down when the ambient is near correct).
+ */
+export function sumAboveFlashStops(stopsUnder: number): number {
+	return Math.log2(1 + 2 ** -stopsUnder);
+}
+
 export type AmbientSource =
 	| { ev100: number }
 	| { illuminanceLux: number; calibrationC?: number }
@@ -119,6 +129,8 @@ export interface AmbientCalcInput {
 	shutter?: number;
 	magnification: number;
 	pupilMagnification: number;
+	magnificationBy?: MagnificationMethod;
+	teleconverterFactor?: number;
 	lossStops: number;
 	balanceUnderStops?: number;
 	flashOffsetStops?: number;
@@ -138,6 +150,12 @@ export interface AmbientCalcResult {
 	markedShutterForBalance?: ReturnType<typeof nearestMarkedShutter>;
 	/** The balance shutter is faster than the sync speed: a flash cannot sync without high-speed sync. */
 	balanceFasterThanSync?: boolean;
+	/** Flash and ambient together at the balance shutter, stops against correct (flash at flashOffsetStops). */
+	balanceSumOffsetStops?: number;
+	/** The flash compensation (stops) that puts flash + ambient at correct, the ambient kept u stops under the flash. */
+	flashCompensationStops?: number;
+	/** The shutter that keeps the ambient u stops under the flash once that compensation is set. */
+	shutterForCompensatedBalance?: number;
 }
 
 /** Which of the accepted ambient inputs gives EV at ISO 100. */
@@ -156,7 +174,7 @@ export function resolveEv100(input: AmbientCalcInput): { ev100: number; from: Am
 /** `POST /api/v1/calc/ambient` (see /api/v1/openapi.json). */
 export function ambientCalc(input: AmbientCalcInput): AmbientCalcResult {
 	const { ev100, from } = resolveEv100(input);
-	const wa = workingAperture(input.aperture, input.magnification, input.pupilMagnification);
+	const wa = workingApertureOf(input.aperture, input);
 	const result: AmbientCalcResult = {
 		ev100,
 		ev100From: from,
@@ -173,6 +191,10 @@ export function ambientCalc(input: AmbientCalcInput): AmbientCalcResult {
 		result.shutterForBalance = t;
 		result.markedShutterForBalance = nearestMarkedShutter(t);
 		result.balanceFasterThanSync = t < input.syncSpeed;
+		const sumAbove = sumAboveFlashStops(input.balanceUnderStops);
+		result.balanceSumOffsetStops = (input.flashOffsetStops ?? 0) + sumAbove;
+		result.flashCompensationStops = -sumAbove;
+		result.shutterForCompensatedBalance = shutterForAmbientUnder(ev100, input.iso, wa, input.balanceUnderStops, input.lossStops, -sumAbove);
 	}
 	return result;
 }

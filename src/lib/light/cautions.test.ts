@@ -43,3 +43,32 @@ describe('cautions', () => {
 		for (const c of all) expect(c.message).toMatch(/manual|local/);
 	});
 });
+
+describe('cautions the trade expects (issue 15, item 11)', () => {
+	it('a hot lamp near a live insect, a small flash through a gel, a close-up lens in sun, a reversed column', () => {
+		// Common practice: each is a usual caution in close-up work; the thresholds are ours (cautions.ts).
+		const found = codes({
+			...base,
+			camera: { ...base.camera, centreColumn: 'reversed', magnificationBy: 'close-up-lens' },
+			subject: { position: [0, 0, 0], living: true },
+			ambient: { ev100: 15 },
+			lights: [
+				{ id: 'lamp', kind: 'continuous', position: [0.3, 0, 0.2], luxAt1m: 500 },
+				{ id: 'small', kind: 'flash', position: [-0.8, 0, 0.3], guideNumber: 20, power: 0.5, gelMired: 159 }
+			]
+		});
+		expect(found.sort()).toEqual(['close-up-lens-sun', 'flash-head-overheating', 'hot-light-living-subject', 'reversed-centre-column']);
+	});
+
+	it('the reversed column caution speaks of off-centre load and a leg, not a top-heavy tripod', () => {
+		const [c] = sceneCautions(exposureSceneSchema.parse({ ...base, camera: { ...base.camera, centreColumn: 'reversed' } }));
+		expect(c.message).toMatch(/between the legs/);
+		expect(c.message).not.toMatch(/top-heavy/);
+	});
+
+	it('a mains strobe’s caution names its modelling lamp and a licensed electrician', () => {
+		const [c] = sceneCautions(exposureSceneSchema.parse({ ...base, lights: [{ id: 's', kind: 'flash', position: [1, 0, 0], guideNumber: 40, power: 1, mainsPowered: true }] }));
+		expect(c.message).toMatch(/modelling lamp/);
+		expect(c.message).toMatch(/licensed electrician/);
+	});
+});

@@ -81,3 +81,24 @@ describe('white balance for a mix', () => {
 		expect(r.warnings).toHaveLength(1);
 	});
 });
+
+describe('the gel the trade would use (issue 15, item 12)', () => {
+	it('+131 mired (5500 K to 3200 K) is not answered with ½ CTO: ½ + ⅛ CTO, with its light loss', () => {
+		// Source: nominal gel shifts (from memory: full CTO +159, ½ CTO +109, ⅛ CTO +26 mired); ½ CTO alone
+		// leaves 22 mired, the stack ½ + ⅛ = 135 leaves −4.3 (the shift is 312.5 − 181.8 = 130.7). Losses add (from memory, the data sheet wins).
+		const r = colourCalc({ fromKelvin: 5500, toKelvin: 3200 });
+		expect(r.suggestedGel).toMatchObject({ gels: ['half-cto', 'eighth-cto'], mired: 135, lossStops: 0.6 });
+		expect(r.suggestedGel!.residualMired).toBeCloseTo(130.68 - 135, 2);
+	});
+
+	it('a shift close to one gel gets that gel alone; a tiny shift gets none', () => {
+		expect(colourCalc({ fromKelvin: 6500, toKelvin: 3200 }).suggestedGel!.gels).toEqual(['full-cto']); // +159 mired
+		expect(colourCalc({ fromKelvin: 5500, toKelvin: 5600 }).suggestedGel!.gels).toEqual([]);
+	});
+
+	it('a named gel shows its loss and raises the gel caution', () => {
+		const r = colourCalc({ kelvin: 5500, gel: 'full-cto' });
+		expect(r.gelLossStops).toBe(0.7);
+		expect(r.cautions).toHaveLength(1);
+	});
+});

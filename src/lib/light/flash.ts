@@ -8,7 +8,7 @@
  * GN by 2^(L/2).
  */
 import { flashNearLivingSubjectCaution, LIVING_SUBJECT_FLASH_DISTANCE_M } from './cautions';
-import { workingAperture } from './optics';
+import { apertureFactor, type LensSetup, type MagnificationMethod } from './optics';
 
 export const LADDER_STEPS = 24; // full power down to 1/256 in thirds: 2^(−k/3), k = 0…24
 export const LOWEST_POWER = 2 ** (-LADDER_STEPS / 3);
@@ -18,11 +18,16 @@ export interface GuideNumberInput {
 	iso?: number;
 	power?: number;
 	lossStops?: number;
+	/** Measured against a meter or a test shot (the gear shelf): + = the flash gives more than its GN says. */
+	calibrationOffsetStops?: number;
 }
 
-/** GN × √(ISO/100) × √power × 2^(−lossStops/2) (API: /api/v1/openapi.json). */
-export function effectiveGuideNumber({ guideNumber, iso = 100, power = 1, lossStops = 0 }: GuideNumberInput): number {
-	return guideNumber * Math.sqrt(iso / 100) * Math.sqrt(power) * 2 ** (-lossStops / 2);
+/**
+ * GN × √(ISO/100) × √power × 2^(−lossStops/2) (API: /api/v1/openapi.json), times 2^(calibration/2) for a
+ * flash whose measured output differs from its guide number (0 unless given).
+ */
+export function effectiveGuideNumber({ guideNumber, iso = 100, power = 1, lossStops = 0, calibrationOffsetStops = 0 }: GuideNumberInput): number {
+	return guideNumber * Math.sqrt(iso / 100) * Math.sqrt(power) * 2 ** ((calibrationOffsetStops - lossStops) / 2);
 }
 
 /** The working f-number that gives a correct exposure at `distanceM`: GN_eff / d. */
@@ -79,19 +84,28 @@ export interface NearestPowerStep {
 }
 
 /**
- * The ladder step nearest to `required` in stops: full power when more is needed, the lowest step when
- * less is. Ties go to the stronger step.
+ * The last ladder step a flash has: its lowest power (from the gear shelf) rounded to the third-stop
+ * ladder, never below 1/256. A flash that stops at 1/128 ends at k = 21.
  */
-export function nearestPowerStep(required: number): NearestPowerStep {
+export function lowestLadderStep(lowestPower = LOWEST_POWER): number {
+	return Math.min(LADDER_STEPS, Math.max(0, Math.round(-3 * Math.log2(lowestPower) - 1e-9)));
+}
+
+/**
+ * The ladder step nearest to `required` in stops: full power when more is needed, the flash's lowest
+ * step (1/256 unless given) when less is. Ties go to the stronger step.
+ */
+export function nearestPowerStep(required: number, lowestPower = LOWEST_POWER): NearestPowerStep {
 	const stopsDown = -Math.log2(required) * 3; // in thirds below full power
-	const k = Math.min(LADDER_STEPS, Math.max(0, Math.round(stopsDown - 1e-9)));
+	const k = Math.min(lowestLadderStep(lowestPower), Math.max(0, Math.round(stopsDown - 1e-9)));
 	const step = powerLadder[k];
 	return { fraction: step.fraction, label: step.label, residualStops: Math.log2(step.fraction / required) };
 }
 
-/** Whether the flash can give exactly `required`: within full power and the lowest step. */
-export function powerWithinRange(required: number): boolean {
-	return required <= 1 + 1e-12 && required >= LOWEST_POWER * (1 - 1e-12);
+/** Whether the flash can give exactly `required`: within full power and its lowest step. */
+export function powerWithinRange(required: number, lowestPower = LOWEST_POWER): boolean {
+	const lowest = powerLadder[lowestLadderStep(lowestPower)].fraction;
+	return required <= 1 + 1e-12 && required >= lowest * (1 - 1e-12);
 }
 
 /**
@@ -130,7 +144,7 @@ export function highSpeedSyncGuideNumber(
 	return guideNumber * Math.sqrt(highSpeedSyncFactor(shutterS, syncSpeedS, entryLossStops));
 }
 
-export interface FlashCalcInput {
+export interface FlashCalcInput extends LensSetup {
 	guideNumber: number;
 	distance: number;
 	iso: number;
@@ -138,6 +152,15 @@ export interface FlashCalcInput {
 	lossStops: number;
 	magnification: number;
 	pupilMagnification: number;
+	magnificationBy?: MagnificationMethod;
+	teleconverterFactor?: number;
+	calibrationOffsetStops?: number;
+	lowestPower?: number;
+	/** The subject's depth along the flash's line, mm: the falloff from its front to its back. */
+	subjectDepthMm?: number;
+	/** The lens's marked range: a suggested aperture outside it is flagged. */
+	widestAperture?: number;
+	narrowestAperture?: number;
 	aperture?: number;
 	/** Extra: the subject is a person or an animal (short-range flash caution). */
 	living?: boolean;
@@ -153,32 +176,53 @@ export interface FlashCalcResult {
 	requiredPower?: number;
 	withinRange?: boolean;
 	nearestPowerStep?: NearestPowerStep;
+	/** The lowest step of this flash's ladder (1/256 unless `lowestPower` is given). */
+	lowestPowerStep: { fraction: number; label: string };
+	/** With `subjectDepthMm`: stops the front (at distance − depth/2) gets more than the back (+ depth/2). */
+	depthFalloffStops?: number;
+	/** `markedApertureForCorrect` is wider or narrower than the lens's marked range, when that is given. */
+	markedApertureOutsideLens?: 'wider' | 'narrower';
 	cautions: string[];
+}
+
+/**
+ * Inverse-square falloff across a subject's depth, along the light's line: the plane of focus at
+ * `distanceM`, the front half the depth nearer, the back half farther: 2·log2((d + D/2) / (d − D/2)).
+ * A front nearer than 1 mm counts as 1 mm (as the scene does).
+ */
+export function depthFalloffStops(distanceM: number, depthM: number): number {
+	return 2 * Math.log2((distanceM + depthM / 2) / Math.max(0.001, distanceM - depthM / 2));
 }
 
 /** `POST /api/v1/calc/flash` (see /api/v1/openapi.json). */
 export function flashCalc(input: FlashCalcInput): FlashCalcResult {
 	const gn = effectiveGuideNumber(input);
 	const correctWorking = workingApertureForCorrect(gn, input.distance);
-	const factor = 1 + input.magnification / input.pupilMagnification;
+	const factor = apertureFactor(input);
+	const marked = correctWorking / factor;
+	const lowest = powerLadder[lowestLadderStep(input.lowestPower)];
 	const result: FlashCalcResult = {
 		effectiveGuideNumber: gn,
 		workingApertureForCorrect: correctWorking,
-		markedApertureForCorrect: correctWorking / factor,
+		markedApertureForCorrect: marked,
 		bellowsFactor: factor * factor,
+		lowestPowerStep: { fraction: lowest.fraction, label: lowest.label },
 		cautions:
 			input.living && input.distance < LIVING_SUBJECT_FLASH_DISTANCE_M
 				? [flashNearLivingSubjectCaution('flash', input.distance).message]
 				: []
 	};
+	if (input.subjectDepthMm !== undefined) result.depthFalloffStops = depthFalloffStops(input.distance, input.subjectDepthMm / 1000);
+	if (input.widestAperture !== undefined && marked < input.widestAperture * (1 - 1e-9)) result.markedApertureOutsideLens = 'wider';
+	if (input.narrowestAperture !== undefined && marked > input.narrowestAperture * (1 + 1e-9)) result.markedApertureOutsideLens = 'narrower';
 	if (input.aperture !== undefined) {
-		const wa = workingAperture(input.aperture, input.magnification, input.pupilMagnification);
+		const wa = input.aperture * factor;
 		const required = requiredPower(input, input.distance, wa);
 		result.workingAperture = wa;
 		result.exposureOffsetStops = flashExposureOffsetStops(correctWorking, wa);
 		result.requiredPower = required;
-		result.withinRange = powerWithinRange(required);
-		result.nearestPowerStep = nearestPowerStep(required);
+		result.withinRange = powerWithinRange(required, input.lowestPower);
+		result.nearestPowerStep = nearestPowerStep(required, input.lowestPower);
 	}
 	return result;
 }

@@ -69,3 +69,13 @@ export function formatStops(stops: number | null, digits = 1): string {
 	const word = Math.abs(r) === 1 ? 'stop' : 'stops';
 	return `${sign}${Math.abs(r)} ${word}`;
 }
+
+/**
+ * A stop figure in words, with no sign to contradict the word: `0.3 stop over`, `1 stop under`,
+ * `1.7 stops under`, `on the mark` when it rounds to 0. `under` can be given another word (`short`).
+ */
+export function formatStopsOff(stops: number, digits = 1, underWord = 'under', overWord = 'over'): string {
+	const r = Number(Math.abs(stops).toFixed(digits));
+	if (r === 0) return 'on the mark';
+	return `${r} ${r === 1 ? 'stop' : 'stops'} ${stops > 0 ? overWord : underWord}`;
+}

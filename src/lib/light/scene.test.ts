@@ -206,7 +206,8 @@ describe('aperture table, warnings, cautions', () => {
 			]
 		});
 		expect(res.cautionDetails.map((c) => c.code).sort()).toEqual(
-			['flash-near-living-subject', 'hot-light-gel', 'hot-light-near-material', 'mains-strobe', 'top-heavy-tripod'].sort()
+			// A reversed column hangs the camera between the legs: off-centre, not top-heavy (issue 15, item 11).
+			['flash-near-living-subject', 'hot-light-gel', 'hot-light-near-material', 'mains-strobe', 'reversed-centre-column'].sort()
 		);
 		expect(res.cautions.every((c) => c.length > 40)).toBe(true);
 	});

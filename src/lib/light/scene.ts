@@ -8,9 +8,12 @@ import { sceneCautions } from './cautions';
 import { mixedLightWarning, mixedWhiteBalance, type WhiteBalanceMix } from './colour';
 import { highSpeedSyncFactor, HSS_ENTRY_LOSS_STOPS } from './flash';
 import { formatFNumber, formatShutter, formatStops } from './format';
-import { distanceM, type Vec3 } from './geometry';
-import { crossingFlag, DEFAULT_SYNC_SPEED_S, lightField, type LightGroup } from './light-field';
-import { airyDiskUm, closeUpDepthOfFieldMm, workingAperture } from './optics';
+import { sourceModelAt } from './extended-source';
+import { subjectFaces, type SubjectFaces } from './faces';
+import { distanceM, length3, subtract3, type Vec3 } from './geometry';
+import { crossingFlag, DEFAULT_SYNC_SPEED_S, emitterSize, lightField, mirrorLanding, subjectFacing, type LightGroup } from './light-field';
+import { lowestLadderStep, powerLadder } from './flash';
+import { airyDiskUm, apertureFactor, circleOfConfusion, depthOfFieldFromWorkingMm, diffractionLimitWorkingAperture, diffractionSoftensText, type CocSource } from './optics';
 import type { ExposureScene, FlashLight, SceneLight } from './schema';
 
 export type { LightGroup } from './light-field';
@@ -44,6 +47,12 @@ export interface SceneLightResult {
 	/** Flash-timed light (flashes and their reflectors) or shutter-timed light (ambient, continuous). */
 	group: LightGroup;
 	distanceM?: number;
+	/** How the light was modelled at the subject: a point, or a sized source nearer than five sizes. */
+	sourceModel?: 'point' | 'disc' | 'rectangle';
+	/** With `subject.depthMm`: stops this light gives the subject's front more than its back. */
+	depthFalloffStops?: number;
+	/** A mirror-like card whose reflection of its source lands off the subject: why it gives nothing. */
+	reflectionMissesBy?: number;
 }
 
 export interface ApertureRow {
@@ -66,6 +75,11 @@ export interface ExposureResult {
 	lightingRatio: number | null;
 	apertureTable: ApertureRow[];
 	whiteBalance: WhiteBalanceMix | null;
+	/** The face toward the key and the shadow face, what each gets, and their ratio (faces.ts). */
+	faces: SubjectFaces | null;
+	/** The circle of confusion used and where it came from (given, the sensor, or 0.03 mm). */
+	cocMm: number;
+	cocFrom: CocSource;
 	warnings: string[];
 	cautions: string[];
 	cautionDetails: ReturnType<typeof sceneCautions>;
@@ -77,28 +91,46 @@ const finiteOrNull = (v: number | null) => (v !== null && Number.isFinite(v) ? v
 
 export function computeExposure(scene: ExposureScene): ExposureResult {
 	const cam = scene.camera;
-	const pupilMagnification = cam.pupilMagnification ?? 1;
-	const cocMm = cam.cocMm ?? DEFAULT_COC_MM;
+	const { cocMm, from: cocFrom } = circleOfConfusion(cam, DEFAULT_COC_MM);
+	const factor = apertureFactor(cam);
 	const wavelengthNm = cam.wavelengthNm ?? DEFAULT_WAVELENGTH_NM;
 	const sync = cam.syncSpeed ?? DEFAULT_SYNC_SPEED_S;
 	const fasterThanSync = cam.shutter < sync;
 	const subject = scene.subject.position as Vec3;
-	const subjectNormal = scene.subject.normal as Vec3 | undefined;
+	const subjectNormal = subjectFacing(scene);
 	const field = lightField(scene);
 	const wa = field.workingAperture;
+	const depthAxis = depthAxisOf(scene);
+	const halfDepthM = (scene.subject.depthMm ?? 0) / 2000;
 
 	const results: SceneLightResult[] = [];
 	const unblocked: number[] = []; // each light's X had no flag been in the way (for the blocked-key warning)
+	const blockedLights: boolean[] = [];
 	const kelvins: (number | undefined)[] = [];
 	for (const fl of field.lights) {
 		const d = distanceM(fl.position, subject);
 		const blockedBy = crossingFlag(fl.position, subject, field.flags);
 		const x = fl.xAt(subject, subjectNormal);
 		unblocked.push(x);
+		blockedLights.push(blockedBy !== undefined);
 		const shown = blockedBy ? 0 : x;
 		const entry: SceneLightResult = { id: fl.light.id, kind: fl.light.kind, x: shown, stops: stopsOf(shown), blocked: blockedBy !== undefined, group: fl.group, distanceM: d };
 		if (blockedBy !== undefined) entry.blockedBy = blockedBy;
 		if (fl.sourceBlocked !== undefined) entry.sourceBlocked = fl.sourceBlocked;
+		const light = fl.light;
+		if (light.kind !== 'reflector') entry.sourceModel = sourceModelAt(emitterSize(light), d);
+		if (halfDepthM > 0) {
+			const axis = depthAxis ?? towards(subject, fl.position);
+			const front = fl.xAt(along(subject, axis, halfDepthM));
+			const back = fl.xAt(along(subject, axis, -halfDepthM));
+			if (front > 0 && back > 0) entry.depthFalloffStops = Math.log2(front / back);
+		}
+		if (light.kind === 'reflector' && light.surface === 'specular' && light.normal && light.source !== 'ambient' && x === 0 && !fl.sourceBlocked) {
+			const source = scene.lights.find((l) => l.id === light.source)!;
+			const n = light.normal as Vec3;
+			const landing = mirrorLanding(source.position as Vec3, fl.position, scale(n, 1 / length3(n)), subject);
+			entry.reflectionMissesBy = landing ? landing.offsetM - Math.sqrt(light.areaM2 / Math.PI) : -1;
+		}
 		results.push(entry);
 		kelvins.push(fl.kelvin);
 	}
@@ -129,7 +161,7 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	const apertureTable = THIRD_STOP_APERTURES.filter(
 		(a) => a.nominal >= minAperture * (1 - tol) - 0.001 && a.nominal <= maxAperture * (1 + tol) + 0.001
 	).map((a): ApertureRow => {
-		const rowWa = workingAperture(a.exact, cam.magnification, pupilMagnification);
+		const rowWa = a.exact * factor;
 		const shiftStops = 2 * Math.log2(wa / rowWa);
 		const shifted = (stops: number | null) => (stops === null ? null : stops + shiftStops);
 		const airy = airyDiskUm(rowWa, wavelengthNm);
@@ -140,7 +172,7 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 			exposureOffsetStops: shifted(totalStops),
 			flashOffsetStops: shifted(flashStops),
 			ambientOffsetStops: shifted(shutterStops),
-			dofMm: finiteOrNull(cam.magnification > 0 ? closeUpDepthOfFieldMm(a.exact, cam.magnification, cocMm, pupilMagnification) : null),
+			dofMm: finiteOrNull(cam.magnification > 0 ? depthOfFieldFromWorkingMm(rowWa, cam.magnification, cocMm) : null),
 			airyDiskUm: airy,
 			diffractionLimited: airy > cocMm * 1000
 		};
@@ -173,7 +205,23 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	}
 	const airyHere = airyDiskUm(wa, wavelengthNm);
 	if (airyHere > cocMm * 1000) {
-		warnings.push(`Diffraction: at ${formatFNumber(wa)} working the Airy disk is ${airyHere.toFixed(0)} µm, larger than the ${(cocMm * 1000).toFixed(0)} µm circle of confusion. Open up or accept softer detail.`);
+		const from = diffractionLimitWorkingAperture(cocMm, wavelengthNm) / factor;
+		warnings.push(`Diffraction: ${diffractionSoftensText(from, cocMm)}; at ${formatFNumber(wa)} working the Airy disk is ${airyHere.toFixed(0)} µm. Open up, or stack frames at a wider aperture.`);
+	}
+	for (const f of flashes) {
+		if (f.lowestPower === undefined) continue;
+		const lowest = powerLadder[lowestLadderStep(f.lowestPower)];
+		if (f.power < lowest.fraction * (1 - 1e-9)) {
+			warnings.push(`Flash “${f.id}” is set below its lowest step (${lowest.label}): it cannot give that little. Move it back, add diffusion or stop down.`);
+		}
+	}
+	for (const r of results) {
+		if (r.reflectionMissesBy === undefined) continue;
+		warnings.push(
+			r.reflectionMissesBy < 0
+				? `Mirror-like reflector “${r.id}” faces away from its source or the subject: it returns nothing here.`
+				: `Mirror-like reflector “${r.id}”: the reflection of its source lands ${formatDistanceM(r.reflectionMissesBy)} beyond its edge, so it misses the subject and adds nothing. Turn it until the reflection falls on the subject.`
+		);
 	}
 	const shareByKelvin = results
 		.map((r, i) => ({ kelvin: kelvins[i], share: r.x }))
@@ -182,6 +230,15 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 	if (whiteBalance?.mixed) warnings.push(mixedLightWarning(whiteBalance));
 
 	const cautionDetails = sceneCautions(scene);
+	// The faces' key is the strongest light as a surface turned to it would get it: a key at 90° to the
+	// camera gives the camera-facing side nothing, yet it is still the light that models the subject.
+	let faceKey = -1;
+	let faceKeyX = 0;
+	field.lights.forEach((l, i) => {
+		const x = blockedLights[i] ? 0 : subjectNormal ? l.xAt(subject) : unblocked[i];
+		if (x > faceKeyX) [faceKey, faceKeyX] = [i, x];
+	});
+	const faces = faceKey >= 0 ? subjectFaces(field, subject, faceKey, subjectNormal, blockedLights) : null;
 	return {
 		workingAperture: wa,
 		lights: results,
@@ -190,8 +247,31 @@ export function computeExposure(scene: ExposureScene): ExposureResult {
 		lightingRatio,
 		apertureTable,
 		whiteBalance,
+		faces,
+		cocMm,
+		cocFrom,
 		warnings,
 		cautions: cautionDetails.map((c) => c.message),
 		cautionDetails
 	};
+}
+
+const scale = (v: Vec3, k: number): Vec3 => [v[0] * k, v[1] * k, v[2] * k];
+const along = (p: Vec3, axis: Vec3, m: number): Vec3 => [p[0] + axis[0] * m, p[1] + axis[1] * m, p[2] + axis[2] * m];
+const towards = (from: Vec3, to: Vec3): Vec3 => {
+	const v = subtract3(to, from);
+	return scale(v, 1 / length3(v));
+};
+const formatDistanceM = (m: number) => (m < 1 ? `${Math.round(m * 100)} cm` : `${m.toFixed(2)} m`);
+
+/**
+ * The axis the subject's depth lies along: from its back toward the camera (its front), when the camera
+ * has a position; else undefined, and each light measures along its own direction (the most it can lose).
+ */
+function depthAxisOf(scene: ExposureScene): Vec3 | undefined {
+	const cam = scene.camera.position as Vec3 | undefined;
+	if (!cam) return undefined;
+	const v = subtract3(cam, scene.subject.position as Vec3);
+	const l = length3(v);
+	return l > 0 ? scale(v, 1 / l) : undefined;
 }

@@ -10,6 +10,7 @@ import { z } from 'zod';
 import { SKY_PRESET_NAMES, type SkyPreset } from './ambient';
 import { GEL_NAMES, type GelName } from './colour';
 import { distanceM } from './geometry';
+import { MAGNIFICATION_METHODS } from './optics';
 
 export const MAX_LIGHTS = 100;
 export const MAX_FLAGS = 100;
@@ -53,6 +54,30 @@ export const illuminanceLuxField = range(0.000001, 10_000_000, 'lux');
 export const kelvinField = range(500, 100_000, 'K');
 export const gelMiredField = range(-1000, 1000, 'mired');
 
+/** How the magnification is made (optics.ts, `apertureFactor`); absent means extension, the API's rule. */
+export const magnificationByField = z.enum(MAGNIFICATION_METHODS, { error: `must be one of ${MAGNIFICATION_METHODS.join(', ')}` });
+export const teleconverterFactorField = range(1, 4);
+export const calibrationOffsetStopsField = range(-5, 5, 'stops');
+/** The lowest power a flash offers (the gear shelf's `lowestPower`): its ladder ends there. */
+export const lowestPowerField = powerField;
+const sensorSideMmField = above(0, 200, 'mm');
+const pixelPitchUmField = above(0, 100, 'µm');
+const cocBasisField = z.enum(['sensor', 'pixel'], { error: 'must be "sensor" or "pixel"' });
+
+/** The fields that say how the magnification is made, shared by every question that takes one. */
+const lensSetupFields = {
+	magnificationBy: magnificationByField.optional(),
+	teleconverterFactor: teleconverterFactorField.optional()
+};
+
+/** The fields a circle of confusion can come from instead of `cocMm` (optics.ts, `circleOfConfusion`). */
+const cocSourceFields = {
+	sensorWidthMm: sensorSideMmField.optional(),
+	sensorHeightMm: sensorSideMmField.optional(),
+	pixelPitchUm: pixelPitchUmField.optional(),
+	cocBasis: cocBasisField.optional()
+};
+
 const coordinate = range(-10_000, 10_000, 'm');
 export const vec3Schema = z.tuple([coordinate, coordinate, coordinate], { error: 'must be [x, y, z] in metres' });
 export const vec2Schema = z.tuple([coordinate, coordinate], { error: 'must be [x, y] in metres' });
@@ -67,6 +92,12 @@ export const flashCalcSchema = z.object({
 	lossStops: lossStopsField.default(0),
 	magnification: magnificationField.default(0),
 	pupilMagnification: pupilMagnificationField.default(1),
+	...lensSetupFields,
+	calibrationOffsetStops: calibrationOffsetStopsField.optional(),
+	lowestPower: lowestPowerField.optional(),
+	widestAperture: apertureField.optional(),
+	narrowestAperture: apertureField.optional(),
+	subjectDepthMm: above(0, 10_000, 'mm').optional(),
 	aperture: apertureField.optional(),
 	living: z.boolean({ error: 'must be true or false' }).optional()
 });
@@ -78,7 +109,10 @@ export const opticsCalcSchema = z.object({
 	// Above 0 (/api/v1/openapi.json); from 1:10 000 up, so the close-up depth of field stays finite.
 	magnification: range(0.0001, 100),
 	pupilMagnification: pupilMagnificationField.default(1),
-	cocMm: cocMmField.default(0.03),
+	...lensSetupFields,
+	/** 0.03 mm unless given or worked out from the sensor fields. */
+	cocMm: cocMmField.optional(),
+	...cocSourceFields,
 	wavelengthNm: wavelengthNmField.default(550),
 	focalLengthMm: focalLengthMmField.optional(),
 	subjectDepthMm: above(0, 100_000, 'mm').optional(),
@@ -107,6 +141,7 @@ export const ambientCalcSchema = z
 		shutter: shutterField.optional(),
 		magnification: magnificationField.default(0),
 		pupilMagnification: pupilMagnificationField.default(1),
+		...lensSetupFields,
 		lossStops: lossStopsField.default(0),
 		balanceUnderStops: range(-10, 10, 'stops').optional(),
 		flashOffsetStops: range(-10, 10, 'stops').optional(),
@@ -160,6 +195,17 @@ export type ColourCalcBody = z.input<typeof colourCalcSchema>;
 
 // ---------- POST /api/v1/exposure: the scene ----------
 const beamAngleDeg = range(1, 180, '°');
+const emitterSideM = above(0, 20, 'm');
+/**
+ * Extra: the light's face when it has a size (a softbox's front, a dome): a rectangle `emitterWidthM` ×
+ * `emitterHeightM` or a disc `emitterDiameterM`. Nearer than five sizes it is an extended source
+ * (extended-source.ts); without them it is a point.
+ */
+const emitterSizeFields = {
+	emitterWidthM: emitterSideM.optional(),
+	emitterHeightM: emitterSideM.optional(),
+	emitterDiameterM: emitterSideM.optional()
+};
 
 export const flashLightSchema = z.object({
 	id: idField,
@@ -168,8 +214,15 @@ export const flashLightSchema = z.object({
 	guideNumber: guideNumberField,
 	power: powerField,
 	lossStops: lossStopsField.optional(),
+	/** Extra, from the gear shelf: measured output against the guide number, stops (+ = brighter). */
+	calibrationOffsetStops: calibrationOffsetStopsField.optional(),
+	/** Extra, from the gear shelf: the flash's lowest power step (a power below it is warned about). */
+	lowestPower: lowestPowerField.optional(),
+	/** Extra: the zoom head position the guide number belongs to (the shelf's guide number at that zoom). */
+	zoomMm: range(1, 1000, 'mm').optional(),
 	/** Extra: the point the head is aimed at (default: the subject). */
 	aim: vec3Schema.optional(),
+	...emitterSizeFields,
 	/** Extra: full beam angle at half intensity; with `aim`, off-axis falloff (see geometry.ts). */
 	beamAngleDeg: beamAngleDeg.optional(),
 	highSpeedSync: z.boolean().optional(),
@@ -185,6 +238,7 @@ export const continuousLightSchema = z.object({
 	luxAt1m: range(0.000001, 10_000_000, 'lux'),
 	lossStops: lossStopsField.optional(),
 	aim: vec3Schema.optional(),
+	...emitterSizeFields,
 	beamAngleDeg: beamAngleDeg.optional(),
 	kelvin: kelvinField.optional(),
 	gelMired: gelMiredField.optional(),
@@ -215,7 +269,12 @@ export const sceneCameraSchema = z.object({
 	shutter: shutterField,
 	magnification: magnificationField,
 	pupilMagnification: pupilMagnificationField.optional(),
+	...lensSetupFields,
+	/** Extra: where the camera is; the subject faces it unless told otherwise (Lambert's cosine law). */
+	position: vec3Schema.optional(),
+	focalLengthMm: focalLengthMmField.optional(),
 	cocMm: cocMmField.optional(),
+	...cocSourceFields,
 	wavelengthNm: wavelengthNmField.optional(),
 	lossStops: lossStopsField.optional(),
 	syncSpeed: range(0.00001, 10, 's').optional(),
@@ -233,7 +292,14 @@ const exposureSceneShape = z.object({
 		/** Extra: a person or an animal, for the short-range flash caution. */
 		living: z.boolean().optional(),
 		/** Extra: the subject's surface normal; when given, Lambert's cosine law applies to each light. */
-		normal: vec3Schema.optional()
+		normal: vec3Schema.optional(),
+		/**
+		 * Extra: which way the subject's face looks when no `normal` is given: `camera` (toward
+		 * `camera.position`, the default when that is given) or `up` (a face-up flat specimen, a section).
+		 */
+		facing: z.enum(['camera', 'up'], { error: 'must be "camera" or "up"' }).optional(),
+		/** Extra: the subject's depth along the camera axis, mm, for each light's front-to-back falloff. */
+		depthMm: above(0, 10_000, 'mm').optional()
 	}),
 	ambient: z.object({ ev100: ev100Field, kelvin: kelvinField.optional() }).optional(),
 	lights: z.array(sceneLightSchema).max(MAX_LIGHTS, `at most ${MAX_LIGHTS} lights`),
@@ -265,6 +331,17 @@ function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): SceneRuleI
 			issues.push({ path: ['lights', i, 'id'], message: `duplicate id "${light.id}"` });
 		}
 		byId.set(light.id, light);
+	});
+	if (scene.subject.facing === 'camera' && !camera.position && !scene.subject.normal) {
+		issues.push({ path: ['subject', 'facing'], message: 'is "camera" but the camera has no position' });
+	}
+	scene.lights.forEach((light, i) => {
+		if (light.kind === 'reflector') return;
+		if ((light.emitterWidthM === undefined) !== (light.emitterHeightM === undefined)) {
+			issues.push({ path: ['lights', i, light.emitterWidthM === undefined ? 'emitterWidthM' : 'emitterHeightM'], message: 'emitterWidthM and emitterHeightM go together' });
+		} else if (light.emitterWidthM !== undefined && light.emitterDiameterM !== undefined) {
+			issues.push({ path: ['lights', i, 'emitterDiameterM'], message: 'give a rectangle (emitterWidthM, emitterHeightM) or a disc (emitterDiameterM), not both' });
+		}
 	});
 	scene.lights.forEach((light, i) => {
 		const d = distanceM(light.position, scene.subject.position);

@@ -1,5 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { gearCreateSchema, gearSpecSchemas, gearUpdateSchema, parseGearSpec } from './gear';
+import { computeExposure } from '$lib/light/scene';
+import { exposureSceneSchema } from '$lib/light/schema';
+import { flashSpecSchema, gearCreateSchema, gearSpecSchemas, gearUpdateSchema, guideNumberAtZoom, parseGearSpec, sceneFlashFromShelf } from './gear';
 
 const valid = {
 	flash: { guideNumberM: 40, lowestPower: 1 / 256, syncSpeedS: 1 / 250, calibrationOffsetStops: -0.3 },
@@ -50,5 +52,30 @@ describe('gearCreateSchema', () => {
 	it('wants a change in an update', () => {
 		expect(gearUpdateSchema.safeParse({}).success).toBe(false);
 		expect(gearUpdateSchema.safeParse({ retired: true }).success).toBe(true);
+	});
+});
+
+describe('a shelf flash in the scene (issue 15, item 7)', () => {
+	const zoomHead = { ...valid.flash, guideNumberM: 40, guideNumbersByZoom: [{ zoomMm: 24, guideNumberM: 26 }, { zoomMm: 50, guideNumberM: 36 }, { zoomMm: 105, guideNumberM: 48 }] };
+
+	it('an old stored spec, without zoom positions, stays valid', () => {
+		expect(parseGearSpec('flash', { guideNumberM: 24, lowestPower: 1 / 128, syncSpeedS: 1 / 200 }).ok).toBe(true);
+	});
+
+	it('holds guide numbers per zoom position; the plan’s position picks one, between two the wider one', () => {
+		// Common practice: a zoom head's guide number rises with its zoom setting; never promise the longer one.
+		const spec = flashSpecSchema.parse(zoomHead);
+		expect(guideNumberAtZoom(spec, 50)).toBe(36);
+		expect(guideNumberAtZoom(spec, 70)).toBe(36);
+		expect(guideNumberAtZoom(spec, 14)).toBe(40);
+		expect(guideNumberAtZoom(spec)).toBe(40);
+	});
+
+	it('carries its calibration and lowest step into the scene’s flash, which the engine uses', () => {
+		const light = { id: 'k', kind: 'flash' as const, position: [0.5, 0, 0] as [number, number, number], power: 1, ...sceneFlashFromShelf(flashSpecSchema.parse(zoomHead), 24) };
+		expect(light).toMatchObject({ guideNumber: 26, calibrationOffsetStops: -0.3, lowestPower: 1 / 256, zoomMm: 24 });
+		const r = computeExposure(exposureSceneSchema.parse({ camera: { iso: 100, aperture: 16, shutter: 1 / 125, magnification: 0 }, subject: { position: [0, 0, 0] }, lights: [light] }));
+		// GN 26 at 0.5 m and f/16: (26 / 8)² = 10.6, less 0.3 stop of calibration.
+		expect(r.lights[0].stops).toBeCloseTo(2 * Math.log2(26 / 8) - 0.3, 10);
 	});
 });

@@ -44,10 +44,45 @@ export const flashSpecSchema = z.object({
 	calibrationOffsetStops: num(-5, 5, 'stops').default(0),
 	/** Zoom head position the guide number was measured at, when it has one. */
 	zoomMm: num(1, 1000, 'mm').optional(),
+	/**
+	 * Guide numbers at each zoom head position (metres, ISO 100, full power), when the flash has a zoom
+	 * head: the plan chooses one. Specs stored before this field keep `guideNumberM` alone.
+	 */
+	guideNumbersByZoom: z
+		.array(z.object({ zoomMm: num(1, 1000, 'mm'), guideNumberM: guideNumberField }), { error: 'must be a list of { zoomMm, guideNumberM }' })
+		.max(20, 'at most 20 zoom positions')
+		.optional(),
 	kelvin: kelvinField.optional(),
 	/** Runs from the mains (a studio strobe): shown with the usual caution. */
 	mainsPowered: z.boolean({ error: 'must be true or false' }).default(false)
 });
+
+export type FlashSpec = z.output<typeof flashSpecSchema>;
+
+/**
+ * A shelf flash's guide number at a zoom position: the one listed for it; for a position between two
+ * listed ones, the wider one's (the lower guide number: never promise light the head may not give);
+ * without a list, or wider than any listed, `guideNumberM`.
+ */
+export function guideNumberAtZoom(spec: Pick<FlashSpec, 'guideNumberM' | 'guideNumbersByZoom'>, zoomMm?: number): number {
+	if (zoomMm === undefined || !spec.guideNumbersByZoom?.length) return spec.guideNumberM;
+	const atOrWider = spec.guideNumbersByZoom.filter((z) => z.zoomMm <= zoomMm).sort((a, b) => b.zoomMm - a.zoomMm);
+	return atOrWider[0]?.guideNumberM ?? spec.guideNumberM;
+}
+
+/**
+ * What a shelf flash puts into the scene's flash light (`flashLightSchema`): its guide number at the
+ * plan's zoom position, its measured calibration and its lowest power step. The editor copies these
+ * onto the light when a shelf flash is chosen.
+ */
+export function sceneFlashFromShelf(spec: FlashSpec, zoomMm?: number) {
+	return {
+		guideNumber: guideNumberAtZoom(spec, zoomMm),
+		calibrationOffsetStops: spec.calibrationOffsetStops,
+		lowestPower: spec.lowestPower,
+		...(zoomMm !== undefined ? { zoomMm } : {})
+	};
+}
 
 export const MODIFIER_SHAPES = ['softbox', 'umbrella', 'dome', 'diffusion panel', 'snoot', 'grid', 'other'] as const;
 
@@ -93,6 +128,8 @@ export const cameraSpecSchema = z.object({
 	sensorHeightMm: positive(200, 'mm'),
 	/** Circle of confusion used for depth of field, mm. */
 	cocMm: cocMmField,
+	/** Pixel pitch, µm: for a pixel-level circle of confusion when stacking. */
+	pixelPitchUm: positive(100, 'µm').optional(),
 	syncSpeedS
 });
 

@@ -48,3 +48,17 @@ export const hints = {
 	magnification: () => 'As 1:1, 1:2, 2:1 or 0.5',
 	smallLength: () => 'A bare number is in mm; or type 0.5 in'
 };
+
+/** How the magnification is made, as the calculator offers it (the engine's `magnificationBy`). */
+export const magnificationByOptions = [
+	{ value: 'extension', label: 'Extension, bellows or the macro lens’s own focusing' },
+	{ value: 'close-up-lens', label: 'A close-up lens (dioptre) on a lens at infinity' },
+	{ value: 'reversed-lens', label: 'A reversed lens' },
+	{ value: 'camera-shows-working', label: 'The camera already shows the working aperture' }
+];
+
+/** The fields every question with a magnification asks: how it is made and the lens's pupil magnification. */
+export const lensFields: FieldDef[] = [
+	{ name: 'magnificationBy', label: 'Magnification made by', kind: 'select', initial: () => 'extension', options: magnificationByOptions },
+	{ name: 'pupilMagnification', label: 'Pupil magnification', kind: 'number', initial: () => '1', hint: () => '1 for a symmetric lens; about 0.5–0.7 for many internal-focusing macro lenses; see the lens data' }
+];

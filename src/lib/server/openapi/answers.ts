@@ -44,27 +44,48 @@ export const staleSaveAnswer = errorAnswer.extend({
 export const flashAnswer = z.object({
 	effectiveGuideNumber: num.describe('GN × √(ISO/100) × √power × 2^(−lossStops/2), metres'),
 	workingApertureForCorrect: num.describe('effectiveGuideNumber / distance'),
-	markedApertureForCorrect: num.describe('workingApertureForCorrect / (1 + m/P)'),
-	bellowsFactor: num.describe('1 + m/P'),
-	workingAperture: num.optional().describe('N × (1 + m/P), N the marked aperture'),
+	markedApertureForCorrect: num.describe('workingApertureForCorrect / (1 + m/P); with `magnificationBy`, divided by that method’s factor instead'),
+	bellowsFactor: num.describe('(N_w / N)²: (1 + m/P)² by extension, 1 with a close-up lens'),
+	workingAperture: num.optional().describe('N × (1 + m/P), N the marked aperture; `magnificationBy` and `teleconverterFactor` change the factor (close-up lens: N; reversed lens: N × (1/P + m); camera shows working: N)'),
 	exposureOffsetStops: num.optional().describe('2·log2(workingApertureForCorrect / workingAperture); positive = over'),
 	requiredPower: num.optional().describe('the exact fraction of full power for a correct exposure; may exceed 1'),
 	withinRange: z.boolean().optional(),
 	nearestPowerStep: z
 		.object({ fraction: num, label: text, residualStops: num })
 		.optional()
-		.describe('the ladder step (2^(−k/3), k = 0…24) nearest to requiredPower in stops, with the error left there (positive = over)'),
+		.describe('the ladder step (2^(−k/3), k = 0…24, ending at `lowestPower` when given) nearest to requiredPower in stops, with the error left there (positive = over)'),
+	lowestPowerStep: z.object({ fraction: num, label: text }).describe('the last step of this flash’s ladder: 1/256, or `lowestPower` rounded to the ladder'),
+	depthFalloffStops: num.optional().describe('with subjectDepthMm: 2·log2((d + D/2) / (d − D/2)), the light the subject’s front gets over its back'),
+	markedApertureOutsideLens: z.enum(['wider', 'narrower']).optional().describe('markedApertureForCorrect lies outside widestAperture…narrowestAperture, when those are given'),
 	cautions: z.array(text)
 });
+
+const depthOfField = z
+	.object({
+		totalMm: num.nullable().describe('null when the far limit is at infinity'),
+		inFrontMm: num,
+		behindMm: num.nullable(),
+		nearMm: num.optional().describe('thin lens: distance of the near limit from the lens'),
+		farMm: num.nullable().optional().describe('thin lens: distance of the far limit; null at infinity'),
+		subjectDistanceMm: num.optional().describe('thin lens: f(1 + 1/m)'),
+		formula: z.enum(['thin-lens', 'close-up']).describe('thin-lens when focalLengthMm is given (H = f²/(Nc) + f, near s(H − f)/(H + s − 2f), far s(H − f)/(H − s)); else close-up, split evenly')
+	})
+	.describe('the depth of field with its near and far parts, and which formula answered');
+
+const cocFrom = z.enum(['given', 'sensor-diagonal', 'pixel-pitch', 'default']).describe('given cocMm; the sensor diagonal / 1500; two pixel pitches (cocBasis "pixel"); or 0.03 mm');
 
 export const opticsAnswer = z.object({
 	workingAperture: num.describe('N × (1 + m/P)'),
 	lightLossStops: num.describe('2·log2(1 + m/P)'),
 	bellowsFactor: num,
-	dofMm: num.describe('total depth of field, 2·N·c·(1 + m/P) / m²'),
+	dofMm: num.describe('total depth of field, close-up approximation: 2·N·c·(1 + m/P) / m² (2·N_w·c / m² for any magnificationBy)'),
+	depthOfField,
 	airyDiskUm: num.describe('2.44 · λ · working aperture'),
-	diffractionLimited: z.boolean(),
+	diffractionLimited: z.boolean().describe('the Airy disk is larger than the circle of confusion: diffraction softens detail at this sensor'),
 	diffractionLimitAperture: num.describe('the marked aperture where the Airy disk reaches the circle of confusion'),
+	cocMm: num.describe('the circle of confusion used'),
+	cocFrom,
+	diffractionNote: text.describe('what diffractionLimited means, in words'),
 	extensionMm: num.optional(),
 	subjectDistanceMm: num.optional(),
 	stack: z
@@ -86,7 +107,10 @@ export const ambientAnswer = z.object({
 	shutterForBalance: num.optional(),
 	markedShutterForCorrect: markedShutter.optional(),
 	markedShutterForBalance: markedShutter.optional(),
-	balanceFasterThanSync: z.boolean().optional()
+	balanceFasterThanSync: z.boolean().optional(),
+	balanceSumOffsetStops: num.optional().describe('flash + ambient at the balance shutter, stops against correct: flashOffsetStops + log2(1 + 2^(−balanceUnderStops))'),
+	flashCompensationStops: num.optional().describe('−log2(1 + 2^(−balanceUnderStops)): the flash compensation that makes the sum correct'),
+	shutterForCompensatedBalance: num.optional().describe('seconds: keeps the ambient balanceUnderStops under the flash once that compensation is set')
 });
 
 const whiteBalance = z.object({ kelvin: num, spreadMired: num, mixed: z.boolean() });
@@ -94,6 +118,12 @@ const whiteBalance = z.object({ kelvin: num, spreadMired: num, mixed: z.boolean(
 export const colourAnswer = z.object({
 	miredShift: num.optional().describe('10⁶/toKelvin − 10⁶/fromKelvin'),
 	nearestGel: z.object({ name: text, label: text, mired: num, residualMired: num }).optional(),
+	suggestedGel: z
+		.object({ gels: z.array(text), label: text, mired: num, residualMired: num, lossStops: num })
+		.optional()
+		.describe('the gel, or two different gels stacked, the trade would use for miredShift, with the light it costs (nominal figures)'),
+	gelLossStops: num.optional().describe('the light a named `gel` costs, stops (nominal)'),
+	cautions: z.array(text).describe('a gel on a hot lamp or a small flash’s head'),
 	resultKelvin: num.optional().describe('10⁶ / (10⁶/kelvin + gelMired)'),
 	gelMired: num.optional(),
 	whiteBalance: whiteBalance.nullable().optional(),
@@ -101,6 +131,7 @@ export const colourAnswer = z.object({
 });
 
 const stopsOrNull = num.nullable();
+const faceExposure = z.object({ x: num, exposureOffsetStops: stopsOrNull, normal: z.tuple([num, num, num]) });
 
 export const exposureAnswer = z.object({
 	workingAperture: num,
@@ -114,7 +145,13 @@ export const exposureAnswer = z.object({
 			blockedBy: text.optional(),
 			sourceBlocked: z.boolean().optional(),
 			group: z.enum(['flash', 'ambient']),
-			distanceM: num.optional()
+			distanceM: num.optional(),
+			sourceModel: z
+				.enum(['point', 'disc', 'rectangle'])
+				.optional()
+				.describe('a flash or continuous light: the point law, or a sized source (emitterWidthM × emitterHeightM, emitterDiameterM) nearer than five sizes'),
+			depthFalloffStops: num.optional().describe('with subject.depthMm: stops this light gives the subject’s front more than its back'),
+			reflectionMissesBy: num.optional().describe('a mirror-like reflector with a normal that returns nothing: metres by which the reflection of its source lands beyond its edge (−1: it faces away)')
 		})
 	),
 	total: z.object({ x: num, exposureOffsetStops: stopsOrNull }),
@@ -134,6 +171,17 @@ export const exposureAnswer = z.object({
 		})
 	),
 	whiteBalance: whiteBalance.nullable(),
+	faces: z
+		.object({
+			lit: faceExposure,
+			shadow: faceExposure,
+			ratio: num.nullable().describe('lit.x / shadow.x; null when nothing reaches the shadow face'),
+			ratioConvention: z.enum(['key+fill : fill', 'key : fill']).describe('key+fill : fill when some fill reaches the lit face (a fill near the camera axis), key : fill when none does (a card opposite the key)')
+		})
+		.nullable()
+		.describe('the face toward the key and the shadow face, each 45° to the camera axis (or straight at and away from the key without a camera position), Lambert’s cosine law for each light; null without a key'),
+	cocMm: num.describe('the circle of confusion of the aperture table and warnings'),
+	cocFrom,
 	warnings: z.array(text),
 	cautions: z.array(text),
 	cautionDetails: z.array(z.object({ code: text, message: text, elementIds: z.array(text) }))

@@ -75,13 +75,14 @@ export const API_ROUTES: ApiRoute[] = [
 		'Flash: effective guide number, the aperture for a correct exposure, and the power for a given aperture',
 		flashCalcSchema,
 		answers.flashAnswer,
-		'Distances in metres; guide numbers in metres at ISO 100 and full power; `aperture` is the marked f-number. With `aperture`, also the exposure offset, the required power and the nearest step of the third-stop power ladder (1/1 to 1/256).'
+		'Distances in metres; guide numbers in metres at ISO 100 and full power; `aperture` is the marked f-number. With `aperture`, also the exposure offset, the required power and the nearest step of the third-stop power ladder (1/1 to 1/256, or to `lowestPower`). `calibrationOffsetStops` (the gear shelf’s measured offset, + = brighter) scales the guide number by 2^(offset/2). `magnificationBy` says how the magnification is made: `extension` (default, N × (1 + m/P)), `close-up-lens` (no loss), `reversed-lens` (N × (1/P + m)), `camera-shows-working` (no correction); `teleconverterFactor` multiplies the f-number.'
 	),
 	calc(
 		'/api/v1/calc/optics',
 		'Optics: working aperture, light loss, close-up depth of field, diffraction and focus-stack frames',
 		opticsCalcSchema,
-		answers.opticsAnswer
+		answers.opticsAnswer,
+		'`magnificationBy` and `teleconverterFactor` as for the flash route. With `focalLengthMm` the depth of field also comes from the thin-lens formulae, with its near and far limits. Without `cocMm` the circle of confusion is the sensor diagonal / 1500 (`sensorWidthMm`, `sensorHeightMm`), two pixel pitches (`pixelPitchUm` with `cocBasis: "pixel"`), or 0.03 mm.'
 	),
 	calc(
 		'/api/v1/calc/ambient',
@@ -102,7 +103,7 @@ export const API_ROUTES: ApiRoute[] = [
 		'A whole scene: every light at the subject, the total, key light, lighting ratio and the aperture table',
 		exposureSceneSchema,
 		answers.exposureAnswer,
-		'Exposure units: X = 1 is a correct exposure at the working aperture N_w; stops = log2(X). Direct flash: X = (effectiveGuideNumber / (d · N_w))². Continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250. Ambient: X = 2^ev100 × (ISO/100) × t / N_w². A diffuse reflector is a Lambertian disc of its area lit by its `source` (a light id or "ambient"); a specular one returns reflectance × the source’s X over the whole path. A light whose straight path to the subject crosses a flag, in plan, gives 0. The aperture table runs in third stops (exact values 2^(k/6)) from minAperture (default 2.8) to maxAperture (default 32).'
+		'Exposure units: X = 1 is a correct exposure at the working aperture N_w; stops = log2(X). Direct flash: X = (effectiveGuideNumber / (d · N_w))². Continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250. Ambient: X = 2^ev100 × (ISO/100) × t / N_w². A diffuse reflector is a Lambertian disc of its area lit by its `source` (a light id or "ambient"); a specular one returns reflectance × the source’s X over the whole path. With a `normal`, a specular one lights the subject only where the mirror reflection of its source lands within its extent, over the reflected path. A light whose straight path to the subject crosses a flag, in plan, gives 0. Lambert’s cosine law applies at the subject when it has a `normal`, `facing: "up"`, or a `camera.position` (it then faces the camera); `faces` gives the lit and shadow faces. A flash’s `calibrationOffsetStops` scales its guide number; a light with a size (`emitterWidthM` × `emitterHeightM` or `emitterDiameterM`) nearer than five sizes is an extended Lambertian source (configuration factors of a rectangle or a disc). The aperture table runs in third stops (exact values 2^(k/6)) from minAperture (default 2.8) to maxAperture (default 32).'
 	),
 	{
 		method: 'get',

@@ -55,12 +55,20 @@ function doc(scene: ExposureSceneInput, plan: Plan, notes: string, at: string): 
 const G = DEMO_GEAR;
 
 // ---------- Quartz cluster on black velvet ----------
-const quartzCamera = { iso: 100, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.8, cocMm: 0.03, syncSpeed: 1 / 200, minAperture: 5.6, maxAperture: 32 };
+// The Corvid M2 (36 × 24 mm: d/1500 = 0.029 mm) with the Heron 100 mm macro (pupil magnification 0.6).
+const corvidM2 = { cocMm: 0.029, syncSpeed: 1 / 200 };
+const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32 });
+/**
+ * The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom. Its calibration (−0.3 stop), lowest step
+ * and zoom, the softbox's size and the subjects' facing join these scenes once the editor carries them.
+ */
+const kestrelAt35 = { guideNumber: 28 };
+const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number] });
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
 	position: [-0.3, 0.2, 0.35] as [number, number, number],
-	guideNumber: 40,
+	...kestrelAt35,
 	power,
 	lossStops: 1.7,
 	aim: [0, 0, 0.04] as [number, number, number],
@@ -107,20 +115,20 @@ const quartz: DemoSetup = {
 			author: 'mara',
 			at: '2026-10-06T18:40:00Z',
 			message: 'Softbox high at the upper left, 1/8 power',
-			document: doc({ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 8)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
+			document: doc({ camera: quartzCamera(100), subject: quartzSubject(0.04), lights: [quartzKey(1 / 8)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-06T19:05:00Z',
-			message: 'Up to 1/4 power: the first frames were a stop dark',
-			document: doc({ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
+			message: 'Up to 1/4 power and ISO 200: the first frames were two stops dark',
+			document: doc({ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4)] }, quartzPlan(false), quartzNotes, '2026-10-06T18:40:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-13T19:20:00Z',
 			message: 'White card opposite to open up the shadow side',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4), quartzCard([0.22, -0.08, 0.1])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.22, -0.08, 0.1])] },
 				quartzPlan(true),
 				quartzNotesCard,
 				'2026-10-06T18:40:00Z'
@@ -131,7 +139,7 @@ const quartz: DemoSetup = {
 			at: '2026-10-20T18:55:00Z',
 			message: 'Card 8 cm closer for a brighter fill; cleaning notes',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.04] }, lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])] },
 				quartzPlan(true),
 				quartzNotesFinal,
 				'2026-10-06T18:40:00Z'
@@ -159,7 +167,7 @@ const amethyst: DemoSetup = {
 			at: '2026-10-27T19:35:00Z',
 			message: 'The geode is darker than the quartz: flash up to 1/2, a stop over the reading on purpose',
 			document: doc(
-				{ camera: quartzCamera, subject: { position: [0, 0, 0.05] }, lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
+				{ camera: quartzCamera(200), subject: quartzSubject(0.05), lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
 				{
 					...quartzPlan(true),
 					elements: {
@@ -175,7 +183,9 @@ const amethyst: DemoSetup = {
 };
 
 // ---------- Ammonite section, raking light from the left ----------
-const ammoniteCamera = { iso: 100, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.9, cocMm: 0.03, syncSpeed: 1 / 200, centreColumn: 'reversed' as const };
+// Overhead, with the Heron 60 mm macro (pupil magnification 0.8).
+const ammoniteCamera = (iso: number) => ({ iso, aperture: 11, shutter: 1 / 200, magnification: 0.25, pupilMagnification: 0.8, ...corvidM2, centreColumn: 'reversed' as const });
+/** The Marten 24 as the shelf holds it: GN 24 on its fixed head. */
 const rake = (position: [number, number, number], power: number) => ({
 	id: 'rake',
 	kind: 'flash' as const,
@@ -210,8 +220,8 @@ const ammonitePlan = (withSilver: boolean): Plan => ({
 	},
 	viewport: { center: [0, 0], widthM: 1, depthM: 0.8 }
 });
-const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean) => ({
-	camera: ammoniteCamera,
+const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean, iso: number) => ({
+	camera: ammoniteCamera(iso),
 	subject: { position: [0, 0, 0.015] as [number, number, number] },
 	lights: withSilver ? [rake(flashPos, power), silver] : [rake(flashPos, power)],
 	flags: [{ id: 'shade', from: [-0.25, -0.12] as [number, number], to: [-0.1, -0.2] as [number, number] }]
@@ -222,7 +232,8 @@ const ammoniteNotes = [
 	'Raking light from the left shows the sutures and the chamber walls. The lower the flash, the stronger the relief,',
 	'and the faster the light falls off across the section: keep the reflector on the far side.',
 	'',
-	'Centre column reversed for the overhead view: hang the camera bag from the hook and keep a leg under the lens.'
+	'Centre column reversed for the overhead view: the camera hangs between the legs, off the centre. Keep its weight',
+	'over the middle, a leg under the lens, and turn it gently so it does not strike a leg.'
 ].join('\n');
 
 const ammonite: DemoSetup = {
@@ -235,20 +246,20 @@ const ammonite: DemoSetup = {
 			author: 'tobias',
 			at: '2026-10-08T18:30:00Z',
 			message: 'Raking flash from the left at 1/8',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, false), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, false, 100), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-08T19:00:00Z',
 			message: 'Silver reflector on the right lifts the shadows of the ribs',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, true), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-15T19:15:00Z',
 			message: 'Flash lowered to 5 cm for a lower rake',
 			document: doc(
-				ammoniteScene([-0.45, 0, 0.05], 1 / 8, true),
+				ammoniteScene([-0.45, 0, 0.05], 1 / 8, true, 100),
 				ammonitePlan(true),
 				`${ammoniteNotes}\n\nAt 5 cm the rake picks out the growth lines; check the far edge is not lost in shadow.`,
 				'2026-10-08T18:30:00Z'
@@ -258,14 +269,14 @@ const ammonite: DemoSetup = {
 };
 
 // ---------- Dew-covered moss on the window sill ----------
-const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.8, cocMm: 0.03, syncSpeed: 1 / 200, minAperture: 5.6, maxAperture: 22 });
+const mossCamera = (shutter: number) => ({ iso: 400, aperture: 11, shutter, magnification: 1, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 22 });
 const daylight = { ev100: 10, kelvin: 6500 };
 const fill = {
 	id: 'fill',
 	kind: 'flash' as const,
 	position: [0.25, -0.25, 0.2] as [number, number, number],
-	guideNumber: 40,
-	power: 1 / 128,
+	...kestrelAt35,
+	power: 1 / 64,
 	lossStops: 1,
 	kelvin: 5600
 };
@@ -293,6 +304,8 @@ const mossNotes = [
 	'Overcast daylight through the north window; mist the moss with the plant sprayer a minute before shooting.',
 	'Tripod, cable release, mirror lock-up: at 1:1 any shake shows.'
 ].join('\n');
+const mossFillNote =
+	'The fill flash puts a sparkle in each drop. The daylight makes most of the exposure, so the flash does not freeze a drop that trembles: wait for still air (close the window, hold your breath).';
 
 const moss: DemoSetup = {
 	id: DEMO_SETUP_IDS.moss,
@@ -309,22 +322,22 @@ const moss: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-10T10:40:00Z',
-			message: 'Fill flash in the dome at 1/128, under the daylight',
+			message: 'Fill flash in the dome at 1/64, under the daylight',
 			document: doc(
 				{ camera: mossCamera(1 / 15), subject: { position: [0, 0, 0.03] }, ambient: daylight, lights: [fill] },
 				mossPlan(true),
-				`${mossNotes}\n\nThe fill flash puts a sparkle in each drop and freezes the ones that tremble.`,
+				`${mossNotes}\n\n${mossFillNote}`,
 				'2026-10-10T10:40:00Z'
 			)
 		},
 		{
 			author: 'mara',
 			at: '2026-10-17T10:05:00Z',
-			message: 'Shutter to 1/8 s: more of the daylight, the flash still freezes the drops',
+			message: 'Shutter to 1/8 s: more of the daylight; the drops must be still, the flash is only a sparkle',
 			document: doc(
 				{ camera: mossCamera(1 / 8), subject: { position: [0, 0, 0.03] }, ambient: daylight, lights: [fill] },
 				mossPlan(true),
-				`${mossNotes}\n\nThe fill flash puts a sparkle in each drop and freezes the ones that tremble.\nUsed for the workshop “Small Light, Big Detail”, exercise 2.`,
+				`${mossNotes}\n\n${mossFillNote}\nUsed for the workshop “Small Light, Big Detail”, exercise 2.`,
 				'2026-10-10T10:40:00Z'
 			)
 		}

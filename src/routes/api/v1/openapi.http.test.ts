@@ -56,10 +56,20 @@ describe('the published API', () => {
 		}
 
 		await call('post', '/api/v1/calc/flash', {}, { guideNumber: 32, distance: 1, aperture: 16, magnification: 1 });
+		await call('post', '/api/v1/calc/flash', {}, { guideNumber: 32, distance: 0.3, magnification: 1, calibrationOffsetStops: -0.3, lowestPower: 1 / 128, narrowestAperture: 32, subjectDepthMm: 18 });
 		await call('post', '/api/v1/calc/optics', {}, { aperture: 16, magnification: 1, subjectDepthMm: 10, focalLengthMm: 100 });
+		await call('post', '/api/v1/calc/optics', {}, { aperture: 16, magnification: 0.4, magnificationBy: 'close-up-lens', pixelPitchUm: 4, cocBasis: 'pixel' });
 		await call('post', '/api/v1/calc/ambient', {}, { ev100: 12, aperture: 16, shutter: 0.01, balanceUnderStops: 1 });
 		await call('post', '/api/v1/calc/colour', {}, { fromKelvin: 3200, toKelvin: 5600 });
 		await call('post', '/api/v1/exposure', {}, { ...sampleDocument().scene, ambient: { ev100: 8 } });
+		await call('post', '/api/v1/exposure', {}, {
+			camera: { iso: 100, aperture: 16, shutter: 1 / 125, magnification: 0.5, position: [0, -0.4, 0.1] },
+			subject: { position: [0, 0, 0], depthMm: 18 },
+			lights: [
+				{ id: 'box', kind: 'flash', position: [-0.3, 0, 0.2], guideNumber: 24, power: 0.5, emitterWidthM: 0.3, emitterHeightM: 0.3, calibrationOffsetStops: -0.3 },
+				{ id: 'silver', kind: 'reflector', position: [0.3, 0, 0], areaM2: 0.01, reflectance: 0.9, surface: 'specular', source: 'box', normal: [-1, 0, 0] }
+			]
+		});
 		await call('get', '/api/v1/health');
 		await call('get', '/api/v1/openapi.json');
 		await call('get', '/api/dev/mail');

@@ -1,14 +1,21 @@
 import { SKY_PRESETS, SKY_PRESET_NAMES, type AmbientCalcResult } from '$lib/light/ambient';
 import type { AmbientCalcBody } from '$lib/light/schema';
-import { formatFNumber, formatShutter, formatStops, type UnitSystem } from '$lib/light/format';
-import { hints } from '../fields';
-import { n, type Answer, type Question } from './types';
+import { formatFNumber, formatShutter, formatStopsOff, type UnitSystem } from '$lib/light/format';
+import { hints, lensFields } from '../fields';
+import { lensBody, n, workingApertureLine, type Answer, type Question } from './types';
 
 const readingOptions = [
 	...SKY_PRESET_NAMES.map((p) => ({ value: p, label: `${SKY_PRESETS[p].label} (EV ${SKY_PRESETS[p].ev100})` })),
 	{ value: 'ev', label: 'A meter reading in EV at ISO 100' },
 	{ value: 'lux', label: 'An incident reading in lux' }
 ];
+
+const stopWord = (stops: number) => `${n(stops)} ${Math.abs(stops) === 1 ? 'stop' : 'stops'}`;
+/** A marked speed's error in words: more or less ambient than the exact figure. */
+const marked = (stops: number) => {
+	const off = formatStopsOff(stops, 2, 'less ambient', 'more ambient');
+	return off === 'on the mark' ? 'on the exact figure' : `${off} than the exact figure`;
+};
 
 export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 	id: 'balance',
@@ -21,6 +28,7 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 		{ name: 'illuminanceLux', label: 'Illuminance (lux)', kind: 'number', initial: () => '2000', shownWhen: (v) => v.reading === 'lux' },
 		{ name: 'aperture', label: 'Aperture (marked)', kind: 'fNumber', initial: () => 'f/16' },
 		{ name: 'magnification', label: 'Magnification', kind: 'magnification', initial: () => '1:2', hint: hints.magnification },
+		...lensFields,
 		{ name: 'iso', label: 'ISO', kind: 'number', initial: () => '200' },
 		{ name: 'balanceUnderStops', label: 'Ambient under the flash (stops)', kind: 'number', initial: () => '1', hint: () => '1 to 2 keeps a natural background; 0 matches them' },
 		{ name: 'syncSpeed', label: 'Flash sync speed', kind: 'shutter', initial: () => '1/200' }
@@ -36,7 +44,7 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 		return {
 			...source,
 			aperture: p.aperture as number,
-			magnification: p.magnification as number,
+			...lensBody(p),
 			iso: p.iso as number,
 			balanceUnderStops: p.balanceUnderStops as number,
 			syncSpeed: p.syncSpeed as number
@@ -45,6 +53,7 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 	describe(body, r, _units: UnitSystem): Answer {
 		const N = body.aperture;
 		const m = body.magnification ?? 0;
+		const P = body.pupilMagnification ?? 1;
 		const iso = body.iso ?? 100;
 		const under = body.balanceUnderStops ?? 0;
 		const working: string[] = [];
@@ -56,10 +65,11 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 			working.push(`The meter reads EV ${n(r.ev100)} at ISO 100.`);
 		}
 		working.push(
-			`Working aperture = ${n(N)} × (1 + ${n(m)}) = ${formatFNumber(r.workingAperture)}.`,
+			workingApertureLine(N, m, P, body.magnificationBy, r.workingAperture),
 			`Shutter for a correct ambient exposure = N_w² ÷ (2^EV × ISO / 100) = ${n(r.workingAperture)}² ÷ (2^${n(r.ev100)} × ${n(iso)} / 100) = ${formatShutter(r.shutterForCorrect)}.`,
-			`For the ambient ${n(under)} ${Math.abs(under) === 1 ? 'stop' : 'stops'} under the flash, shorten it by 2^${n(under)}: ${formatShutter(r.shutterForCorrect)} ÷ ${n(2 ** under)} = ${formatShutter(r.shutterForBalance!)}. The flash exposure does not change with the shutter, only the ambient does.`,
-			`Nearest marked speed: ${r.markedShutterForBalance!.label}, ${formatStops(r.markedShutterForBalance!.residualStops, 2)} of ambient against the exact figure.`
+			`For the ambient ${stopWord(under)} under the flash, shorten it by 2^${n(under)}: ${formatShutter(r.shutterForCorrect)} ÷ ${n(2 ** under)} = ${formatShutter(r.shutterForBalance!)}. The flash exposure does not change with the shutter, only the ambient does.`,
+			`Nearest marked speed: ${r.markedShutterForBalance!.label}, ${marked(r.markedShutterForBalance!.residualStops)}.`,
+			`Flash and ambient add: with the flash at correct and the ambient ${stopWord(under)} under it, the two together are ${formatStopsOff(r.balanceSumOffsetStops!, 2)} (log₂(1 + 2^−${n(under)})). For a correct sum, set the flash compensation to ${n(r.flashCompensationStops!, 2)} EV and the shutter to ${formatShutter(r.shutterForCompensatedBalance!)}, which keeps the ambient ${stopWord(under)} under the flash.`
 		);
 		const warnings: string[] = [];
 		if (r.balanceFasterThanSync) {
@@ -68,12 +78,13 @@ export const balanceQuestion: Question<AmbientCalcBody, AmbientCalcResult> = {
 			);
 		}
 		return {
-			headline: `Set ${r.markedShutterForBalance!.label}: the ambient sits ${n(under)} ${Math.abs(under) === 1 ? 'stop' : 'stops'} under the flash`,
+			headline: `Set ${r.markedShutterForBalance!.label}: the ambient sits ${stopWord(under)} under the flash`,
 			facts: [
 				{ label: 'Ambient EV (ISO 100)', value: n(r.ev100) },
 				{ label: 'Shutter for correct ambient', value: formatShutter(r.shutterForCorrect) },
 				{ label: 'Shutter for the balance', value: `${formatShutter(r.shutterForBalance!)} (marked ${r.markedShutterForBalance!.label})` },
-				{ label: 'Working aperture', value: formatFNumber(r.workingAperture) }
+				{ label: 'Working aperture', value: formatFNumber(r.workingAperture) },
+				{ label: 'Flash compensation for a correct sum', value: `${n(r.flashCompensationStops!, 2)} EV` }
 			],
 			working,
 			warnings,

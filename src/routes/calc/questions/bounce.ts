@@ -1,8 +1,8 @@
 import type { ExposureSceneInput } from '$lib/light/schema';
 import type { ExposureResult } from '$lib/light/scene';
-import { formatDistance, formatFNumber, formatStops, type UnitSystem } from '$lib/light/format';
-import { hints } from '../fields';
-import { lengthNumber as L, lengthUnitLabel, n, type Answer, type Question } from './types';
+import { formatDistance, formatFNumber, formatStops, formatStopsOff, type UnitSystem } from '$lib/light/format';
+import { hints, lensFields } from '../fields';
+import { lengthNumber as L, lengthUnitLabel, lensBody, n, type Answer, type Question } from './types';
 
 /** Card surfaces with their usual reflectance (common practice; a measured figure from the gear shelf wins). */
 export const CARD_SURFACES = {
@@ -20,7 +20,7 @@ type CardKind = keyof typeof CARD_SURFACES;
 export const bounceQuestion: Question<ExposureSceneInput, ExposureResult> = {
 	id: 'bounce',
 	title: 'What a bounce card adds',
-	intro: 'A card opposite the flash, facing the subject: how much fill does it give, and what does it add to the exposure?',
+	intro: 'A card opposite the flash, facing the subject: how much does it fill the shadow side, and what lighting ratio does that give?',
 	route: '/api/v1/exposure',
 	fields: [
 		{ name: 'guideNumber', label: 'Guide number', kind: 'guideNumber', initial: (u) => (u === 'imperial' ? '105 ft' : '32 m'), hint: hints.guideNumber },
@@ -38,6 +38,7 @@ export const bounceQuestion: Question<ExposureSceneInput, ExposureResult> = {
 		},
 		{ name: 'aperture', label: 'Aperture (marked)', kind: 'fNumber', initial: () => 'f/16' },
 		{ name: 'magnification', label: 'Magnification', kind: 'magnification', initial: () => '1:2', hint: hints.magnification },
+		...lensFields,
 		{ name: 'iso', label: 'ISO', kind: 'number', initial: () => '100' }
 	],
 	toBody(p) {
@@ -45,7 +46,7 @@ export const bounceQuestion: Question<ExposureSceneInput, ExposureResult> = {
 		const width = p.cardWidth as number;
 		const height = p.cardHeight as number;
 		return {
-			camera: { iso: p.iso as number, aperture: p.aperture as number, shutter: 1 / 125, magnification: p.magnification as number },
+			camera: { iso: p.iso as number, aperture: p.aperture as number, shutter: 1 / 125, ...lensBody(p) },
 			subject: { position: [0, 0, 0] },
 			lights: [
 				{ id: 'flash', kind: 'flash', position: [-(p.flashDistance as number), 0, 0], guideNumber: p.guideNumber as number, power: p.power as number },
@@ -81,7 +82,6 @@ export const bounceQuestion: Question<ExposureSceneInput, ExposureResult> = {
 		const rad = Math.sqrt(card.areaM2 / Math.PI);
 		const disc = (rad * rad) / (rad * rad + d2 * d2);
 		const fillRatio = fill.x / key.x;
-		const addsStops = Math.log2((key.x + fill.x) / key.x);
 		const working = [
 			`The flash is ${formatDistance(d, units)} from the subject and ${formatDistance(d, units)} + ${formatDistance(d2, units)} = ${formatDistance(d1, units)} from the card, so by the inverse-square law the card gets (${n(L(d, units))} ÷ ${n(L(d1, units))})² = ${n(share)} of the light the subject gets.`
 		];
@@ -96,16 +96,20 @@ export const bounceQuestion: Question<ExposureSceneInput, ExposureResult> = {
 				`A mirror-like card returns the flash as if from ${formatDistance(d1, units)} + ${formatDistance(d2, units)} = ${formatDistance(d1 + d2, units)} away: ${n(card.reflectance)} × (${n(L(d, units))} ÷ ${n(L(d1 + d2, units))})² = ${n(fillRatio)} of the key (${formatStops(Math.log2(fillRatio))}). In practice a silver card returns a hard spot only where its reflection lines up.`
 			);
 		}
+		const faces = r.faces!;
+		const shadowStops = faces.shadow.exposureOffsetStops;
 		working.push(
-			`Key + fill = 1 + ${n(fillRatio)} = ${n(1 + fillRatio)} × the key alone: the card adds ${formatStops(addsStops, 2)} to the exposure, and the lighting ratio is ${n(1 / fillRatio)}:1.`,
-			`Exposure at ${formatFNumber(body.camera.aperture)} (working ${formatFNumber(r.workingAperture)}): key ${formatStops(key.stops)}, with the card ${formatStops(r.total.exposureOffsetStops)}.`
+			`The card faces the subject from the side opposite the flash, so it lights the shadow face, not the face the flash lights: the lit face stays at the key’s ${formatStops(key.stops)}, and the aperture is set for it.`,
+			`Shadow face: ${shadowStops === null ? 'no light' : formatStops(shadowStops)}. Lighting ratio, lit face : shadow face = key : fill = 1 : ${n(fillRatio)} = ${n(1 / fillRatio)}:1 (with a card opposite the key, nothing of the fill reaches the lit face; a fill near the camera would give key + fill : fill).`,
+			`Exposure at ${formatFNumber(body.camera.aperture)} (working ${formatFNumber(r.workingAperture)}): lit face ${formatStopsOff(faces.lit.exposureOffsetStops!)}, shadow face ${shadowStops === null ? 'unlit' : formatStopsOff(shadowStops)}.`
 		);
 		return {
-			headline: `The card fills at ${formatStops(Math.log2(fillRatio))} and adds ${formatStops(addsStops, 2)}`,
+			headline: `The card fills the shadow side at ${formatStops(Math.log2(fillRatio))}: a ${n(1 / fillRatio)}:1 lighting ratio`,
 			facts: [
-				{ label: 'Lighting ratio', value: `${n(1 / fillRatio)}:1` },
+				{ label: 'Lighting ratio (key : fill)', value: `${n(1 / fillRatio)}:1` },
 				{ label: 'Fill', value: `${Math.round(fillRatio * 1000) / 10} % of the key` },
-				{ label: 'Exposure with the card', value: formatStops(r.total.exposureOffsetStops) },
+				{ label: 'Lit face', value: formatStopsOff(faces.lit.exposureOffsetStops!) },
+				{ label: 'Shadow face', value: shadowStops === null ? 'unlit' : formatStopsOff(shadowStops) },
 				{ label: 'Card reflectance', value: `${pct} %` }
 			],
 			working,

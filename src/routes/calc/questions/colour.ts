@@ -1,6 +1,7 @@
 import { GELS, GEL_NAMES, type ColourCalcResult, type GelName } from '$lib/light/colour';
 import type { ColourCalcBody } from '$lib/light/schema';
 import { type UnitSystem } from '$lib/light/format';
+import { gelOnLightCaution } from '$lib/light/cautions';
 import { n, type Answer, type Question } from './types';
 
 const signed = (v: number) => `${v > 0 ? '+' : v < 0 ? '−' : ''}${n(Math.abs(v))}`;
@@ -19,23 +20,33 @@ export const shiftQuestion: Question<ColourCalcBody, ColourCalcResult> = {
 		const from = body.fromKelvin as number;
 		const to = body.toKelvin as number;
 		const shift = r.miredShift as number;
-		const gel = r.nearestGel!;
+		const gel = r.suggestedGel!;
+		const single = r.nearestGel!;
 		const working = [
 			`Mired = 1 000 000 ÷ kelvin: ${n(from)} K is ${n(1e6 / from)} mired, ${n(to)} K is ${n(1e6 / to)} mired.`,
-			`Shift = mired of the target − mired of the source = ${n(1e6 / to)} − ${n(1e6 / from)} = ${signed(shift)} mired (${shift > 0 ? 'warmer: an orange gel' : shift < 0 ? 'cooler: a blue gel' : 'no gel'}).`,
-			gel.name === 'none'
-				? 'The shift is smaller than the weakest common gel: leave it to the white balance.'
-				: `Nearest common gel: ${gel.label}, nominally ${signed(gel.mired)} mired (from memory; the gel’s data sheet wins), leaving ${signed(gel.residualMired)} mired.`
+			`Shift = mired of the target − mired of the source = ${n(1e6 / to)} − ${n(1e6 / from)} = ${signed(shift)} mired (${shift > 0 ? 'warmer: an orange gel' : shift < 0 ? 'cooler: a blue gel' : 'no gel'}).`
 		];
+		if (!gel.gels.length) {
+			working.push('The shift is smaller than the weakest common gel: leave it to the white balance.');
+		} else {
+			working.push(
+				`Gel: ${gel.label}, nominally ${signed(gel.mired)} mired (from memory; the gel’s data sheet wins), leaving ${signed(gel.residualMired)} mired to the white balance.`,
+				gel.gels.length > 1
+					? `Stacked gels add their mired and their losses. One gel alone: ${single.label} (${signed(single.mired)} mired) leaves ${signed(single.residualMired)} mired; the trade’s everyday daylight-to-tungsten choice is a full CTO, with the rest left to the white balance.`
+					: `One gel is enough: it lands within ${n(Math.abs(gel.residualMired))} mired.`,
+				`Light lost through the gel: about ${n(gel.lossStops, 2)} ${gel.lossStops === 1 ? 'stop' : 'stops'} (from memory; the data sheet gives its transmission). Raise the flash power or open up to match.`
+			);
+		}
 		return {
-			headline: `${signed(shift)} mired: ${gel.name === 'none' ? 'no gel needed' : gel.label} is nearest`,
+			headline: `${signed(shift)} mired: ${gel.gels.length ? gel.label : 'no gel needed'}`,
 			facts: [
 				{ label: 'Shift', value: `${signed(shift)} mired` },
-				{ label: 'Nearest gel', value: gel.label }
+				{ label: 'Gel', value: gel.label },
+				{ label: 'Light lost', value: `about ${n(gel.lossStops, 2)} ${gel.lossStops === 1 ? 'stop' : 'stops'}` }
 			],
 			working,
 			warnings: [],
-			cautions: []
+			cautions: gel.gels.length ? [gelOnLightCaution()] : []
 		};
 	}
 };
@@ -68,15 +79,17 @@ export const gelQuestion: Question<ColourCalcBody, ColourCalcResult> = {
 			headline: `${n(k)} K through ${body.gel ? GELS[body.gel].label : `${signed(g)} mired`} becomes about ${Math.round(out / 10) * 10} K`,
 			facts: [
 				{ label: 'Result', value: `${Math.round(out)} K` },
-				{ label: 'White balance to neutralise it', value: `about ${Math.round(out / 50) * 50} K` }
+				{ label: 'White balance to neutralise it', value: `about ${Math.round(out / 50) * 50} K` },
+				...(r.gelLossStops !== undefined ? [{ label: 'Light lost through the gel', value: `about ${n(r.gelLossStops)} ${r.gelLossStops === 1 ? 'stop' : 'stops'}` }] : [])
 			],
 			working: [
 				`${n(k)} K is 1 000 000 ÷ ${n(k)} = ${n(1e6 / k)} mired.`,
 				`${label} adds ${signed(g)} mired${body.gel ? ' (nominal, from memory; the gel’s data sheet wins)' : ''}: ${n(1e6 / k)} ${g >= 0 ? '+' : '−'} ${n(Math.abs(g))} = ${n(1e6 / k + g)} mired.`,
-				`Back to kelvin: 1 000 000 ÷ ${n(1e6 / k + g)} = ${n(out, 4)} K.`
+				`Back to kelvin: 1 000 000 ÷ ${n(1e6 / k + g)} = ${n(out, 4)} K.`,
+				...(r.gelLossStops !== undefined ? [`${label} costs about ${n(r.gelLossStops)} ${r.gelLossStops === 1 ? 'stop' : 'stops'} of light (from memory; the data sheet gives its transmission).`] : [])
 			],
 			warnings: [],
-			cautions: []
+			cautions: r.cautions
 		};
 	}
 };

@@ -1,8 +1,9 @@
 import type { OpticsCalcBody } from '$lib/light/schema';
 import type { OpticsCalcResult } from '$lib/light/optics';
 import { formatFNumber, formatSmallLength, type UnitSystem } from '$lib/light/format';
-import { hints } from '../fields';
-import { n, type Answer, type Question } from './types';
+import { hints, lensFields } from '../fields';
+import { cocBody, cocFields, cocLine } from './optics';
+import { lensBody, n, type Answer, type Question } from './types';
 
 export const stackQuestion: Question<OpticsCalcBody, OpticsCalcResult> = {
 	id: 'stack',
@@ -14,28 +15,27 @@ export const stackQuestion: Question<OpticsCalcBody, OpticsCalcResult> = {
 		{ name: 'aperture', label: 'Aperture (marked)', kind: 'fNumber', initial: () => 'f/8' },
 		{ name: 'magnification', label: 'Magnification', kind: 'magnification', initial: () => '1:1', hint: hints.magnification },
 		{ name: 'overlap', label: 'Overlap between frames', kind: 'percent', initial: () => '20 %', hint: () => 'Share of each depth of field the next frame repeats' },
-		{ name: 'cocMm', label: 'Circle of confusion', kind: 'smallLength', initial: () => '0.03 mm' },
-		{ name: 'pupilMagnification', label: 'Pupil magnification', kind: 'number', initial: () => '1' }
+		...lensFields,
+		...cocFields
 	],
 	toBody: (p) => ({
 		subjectDepthMm: p.subjectDepthMm as number,
 		aperture: p.aperture as number,
-		magnification: p.magnification as number,
+		...lensBody(p),
 		overlap: p.overlap as number,
-		cocMm: p.cocMm as number,
-		pupilMagnification: p.pupilMagnification as number
+		...cocBody(p)
 	}),
 	describe(body, r, units: UnitSystem): Answer {
 		const N = body.aperture;
 		const m = body.magnification;
-		const P = body.pupilMagnification ?? 1;
-		const c = body.cocMm ?? 0.03;
+		const c = r.cocMm;
 		const o = body.overlap ?? 0.2;
 		const depth = body.subjectDepthMm as number;
 		const stack = r.stack!;
 		const rawSteps = (depth - r.dofMm) / stack.stepMm;
 		const working = [
-			`Depth of field per frame = 2 × N × c × (1 + m / P) ÷ m² = 2 × ${n(N)} × ${n(c)} mm × ${n(1 + m / P)} ÷ ${n(m)}² = ${formatSmallLength(r.dofMm, units)}.`,
+			cocLine(r, body),
+			`Depth of field per frame = 2 × working aperture × c ÷ m² = 2 × ${n(r.workingAperture)} × ${n(c)} mm ÷ ${n(m)}² = ${formatSmallLength(r.dofMm, units)} (working aperture ${formatFNumber(r.workingAperture)} from ${formatFNumber(N)} marked).`,
 			`Rail step = depth of field × (1 − overlap) = ${n(r.dofMm)} mm × (1 − ${n(o)}) = ${formatSmallLength(stack.stepMm, units)}.`,
 			depth <= r.dofMm
 				? `The subject (${formatSmallLength(depth, units)}) fits inside one depth of field: one frame is enough.`
@@ -56,7 +56,7 @@ export const stackQuestion: Question<OpticsCalcBody, OpticsCalcResult> = {
 				{ label: 'Working aperture', value: formatFNumber(r.workingAperture) }
 			],
 			working,
-			warnings: r.diffractionLimited ? [`At ${formatFNumber(r.workingAperture)} working, diffraction softens each frame (Airy disk ${n(r.airyDiskUm)} µm); a wider aperture with more frames keeps more detail.`] : [],
+			warnings: r.diffractionLimited ? [`At ${formatFNumber(r.workingAperture)} working, ${r.diffractionNote} (Airy disk ${n(r.airyDiskUm)} µm); a wider aperture with more frames keeps more detail.`] : [],
 			cautions: []
 		};
 	}

@@ -1,4 +1,5 @@
-import type { UnitSystem } from '$lib/light/format';
+import { formatFNumber, type UnitSystem } from '$lib/light/format';
+import type { MagnificationMethod } from '$lib/light/optics';
 import type { FieldDef } from '../fields';
 
 /** What the page shows for an answer: the headline, a few facts, and the working in plain words. */
@@ -23,6 +24,32 @@ export interface Question<Body = Record<string, unknown>, Result = unknown> {
 	/** The form field an API issue path belongs to, when it is not simply the first key. */
 	fieldFor?(path: string[]): string | undefined;
 	describe(body: Body, result: Result, units: UnitSystem): Answer;
+}
+
+/** The lens part of a body: magnification, how it is made, pupil magnification (shared by every question). */
+export function lensBody(p: Parsed) {
+	return {
+		magnification: p.magnification as number,
+		magnificationBy: p.magnificationBy as MagnificationMethod,
+		pupilMagnification: p.pupilMagnification as number
+	};
+}
+
+/**
+ * The working aperture's line of the working, in the words of how the magnification is made: the same
+ * rule (optics.ts, `apertureFactor`) that the API applies.
+ */
+export function workingApertureLine(N: number, m: number, P: number, by: MagnificationMethod | undefined, wa: number): string {
+	switch (by) {
+		case 'close-up-lens':
+			return `A close-up lens on a lens focused at infinity costs no light: at ${ratio(m)} the working aperture is the marked one, ${formatFNumber(wa)}.`;
+		case 'reversed-lens':
+			return `Working aperture of a reversed lens = marked aperture × (1 / P + m) = ${n(N)} × (1 / ${n(P)} + ${n(m)}) = ${formatFNumber(wa)}: turned round, its pupils swap.`;
+		case 'camera-shows-working':
+			return `The camera already shows the working aperture: ${formatFNumber(wa)}, with no correction on top.`;
+		default:
+			return `Working aperture = marked aperture × (1 + m / P) = ${n(N)} × (1 + ${n(m)} / ${n(P)}) = ${formatFNumber(wa)}. At ${ratio(m)} the lens passes light as if it were set to ${formatFNumber(wa)}.`;
+	}
 }
 
 /** Numbers for the working: three significant figures, no trailing zeros. */
