@@ -63,6 +63,11 @@ CREATE TABLE "shots" (
 	"deleted_at" timestamp with time zone
 );
 --> statement-breakpoint
+CREATE TABLE "storage_leftovers" (
+	"key" text PRIMARY KEY NOT NULL,
+	"created_at" timestamp with time zone DEFAULT now() NOT NULL
+);
+--> statement-breakpoint
 CREATE TABLE "studio_checklists" (
 	"studio_id" uuid PRIMARY KEY NOT NULL,
 	"items" text[] NOT NULL,

@@ -151,7 +151,7 @@ export function build() {
 	run('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
 }
 
-export function appEnv(profile, { url, secrets, mail, storage }) {
+export function appEnv(profile, { url, secrets, mail, storage = null }) {
 	const origin = `http://${profile.host}:${profile.port}`;
 	return {
 		NODE_ENV: 'production',

@@ -86,12 +86,17 @@ export class ObjectStore {
 		}
 	}
 
-	/** Deletes what it can; a failure is left for the next clean-up (an orphan object costs space, never a wrong answer). */
+	/** Deletes the objects (missing ones are fine); throws StorageUnavailable when storage cannot be reached. */
 	async remove(keys: string[]): Promise<void> {
 		if (!keys.length) return;
-		await this.client
-			.send(new DeleteObjectsCommand({ Bucket: this.config.bucket, Delete: { Objects: keys.map((Key) => ({ Key })), Quiet: true } }))
-			.catch(() => {});
+		try {
+			const out = await this.client.send(
+				new DeleteObjectsCommand({ Bucket: this.config.bucket, Delete: { Objects: keys.map((Key) => ({ Key })), Quiet: true } })
+			);
+			if (out.Errors?.length) throw new Error(out.Errors[0].Message ?? 'delete refused');
+		} catch (e) {
+			throw new StorageUnavailable(`storage could not delete ${keys[0]}: ${(e as Error).message}`);
+		}
 	}
 }
 

@@ -39,14 +39,11 @@ export interface MeterReading {
 	aperture: number;
 }
 
-export interface CalibrationReading {
-	/** Flash-meter reading: the f-number read at distanceM, at iso and power, through lossStops. */
-	aperture: number;
-	distanceM: number;
-	iso: number;
-	power: number;
-	lossStops: number;
-}
+/** Where a calibration came from: a flash-meter reading (the f-number read at distanceM, at iso and
+ * power, through lossStops), or a test shot (its actual − predicted and the flash's share of the plan). */
+export type CalibrationReading =
+	| { aperture: number; distanceM: number; iso: number; power: number; lossStops: number }
+	| { differenceStops: number; flashShare: number };
 
 const fraction = z.number({ error: 'must be a number' }).min(0, 'must be at least 0').max(1, 'must be at most 1');
 
@@ -131,3 +128,13 @@ export const calibrationSchema = z.union(
 	{ error: 'method must be "shot" (with gearId, shotId) or "meter" (with gearId, aperture, distanceM, iso, power)' }
 );
 export type CalibrationInput = z.output<typeof calibrationSchema>;
+
+export const shotListQuerySchema = z.object({
+	trashed: z.enum(['0', '1', 'true', 'false'], { error: 'must be 1 or 0' }).optional()
+});
+
+/** The form fields sent beside the files of an upload. */
+export const shotUploadFieldsSchema = z.object({
+	sessionId: z.uuid({ error: 'must be a session id' }).optional(),
+	revisionNumber: z.coerce.number({ error: 'must be a whole number' }).int('must be a whole number').min(1, 'must be at least 1').optional()
+});

@@ -138,3 +138,13 @@ export type ShotMeasure = typeof shotMeasures.$inferSelect;
 export type FlashCalibration = typeof flashCalibrations.$inferSelect;
 export type StudioChecklist = typeof studioChecklists.$inferSelect;
 export type SessionTick = typeof sessionTicks.$inferSelect;
+
+/**
+ * Object keys to delete: written for an upload that then failed while storage was unreachable, so they
+ * could not be removed at once. The next upload removes them first (sweepStorageLeftovers), so no
+ * object outlives its failed upload for long and none is ever shown without its row.
+ */
+export const storageLeftovers = pgTable('storage_leftovers', {
+	key: text().primaryKey(),
+	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+});
