@@ -291,7 +291,7 @@ export const API_ROUTES: ApiRoute[] = [
 	}),
 	shot('post', '', 'Upload shots: one or more files in `files` (JPEG, PNG, TIFF, WebP)', {
 		description:
-			'A multipart form: `files` (repeat it for several), optionally `sessionId` and `revisionNumber` (the latest by default). 201 when all went in, 207 when some did not, 400 when none did; each failure names its file and what is wrong, and a file is stored whole or not at all. The size limit per file is `SQUARELAW_SHOT_MAX_BYTES` (50 MB).',
+			'A multipart form: `files` (repeat it for several), optionally `sessionId` and `revisionNumber` (the latest by default). 201 when all went in, 207 when some did not, 400 when none did; each failure names its file and what is wrong, and a file is stored whole or not at all. The size limit per file is `SQUARELAW_SHOT_MAX_BYTES` (50 MB). As for every form post, send `Origin` with the app’s own address (a browser does; a script must), or SvelteKit refuses it with 403.',
 		body: { schema: shotUploadFieldsSchema.extend({ files: z.array(z.string().describe('a file')) }), mediaTypes: ['multipart/form-data'] },
 		answer: { status: 201, description: 'Stored', schema: answers.shotUploadAnswer },
 		refusals: [415]
