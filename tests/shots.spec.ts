@@ -60,6 +60,7 @@ test('upload, measure, calibrate and the checklist', async ({ page, context, bro
 	await card.getByRole('button', { name: /Open grey-card.png/ }).click();
 
 	const box = page.getByTestId('measure-box');
+	await box.scrollIntoViewIfNeeded();
 	const r = (await box.boundingBox())!;
 	await page.mouse.move(r.x + r.width * 0.3, r.y + r.height * 0.3);
 	await page.mouse.down();
