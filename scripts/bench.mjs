@@ -14,7 +14,7 @@ const stop = stopper();
 stop.exitOnSignals(130);
 let exitCode = 0;
 try {
-	const { db, env, origin } = await startStack(profile, stop, { fresh: true, quiet: true, build: !process.env.SQUARELAW_BENCH_NO_BUILD });
+	const { db, env, origin, child } = await startStack(profile, stop, { fresh: true, quiet: true, build: !process.env.SQUARELAW_BENCH_NO_BUILD });
 	const benchDir = path.join(root, 'scripts', 'bench');
 	const files = fs.readdirSync(benchDir).filter((f) => f.endsWith('.mjs')).sort();
 	const report = {};
@@ -24,7 +24,7 @@ try {
 		log(`── bench: ${name} ──`);
 		const mod = await import(pathToFileURL(path.join(benchDir, file)).href);
 		try {
-			report[name] = await mod.run({ baseUrl: origin, databaseUrl: db.url, env, log: (m) => log(`  ${m}`) });
+			report[name] = await mod.run({ baseUrl: origin, databaseUrl: db.url, env, appPid: child.pid, log: (m) => log(`  ${m}`) });
 		} catch (e) {
 			exitCode = 1;
 			report[name] = { error: e instanceof Error ? e.message : String(e) };

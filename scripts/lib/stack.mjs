@@ -9,21 +9,27 @@ export const profiles = {
 		host: process.env.HOST ?? '127.0.0.1',
 		port: Number(process.env.PORT ?? 3000),
 		smtpPort: Number(process.env.SQUARELAW_SMTP_PORT ?? 2525),
-		mailHttpPort: Number(process.env.SQUARELAW_MAIL_HTTP_PORT ?? 2580)
+		mailHttpPort: Number(process.env.SQUARELAW_MAIL_HTTP_PORT ?? 2580),
+		s3Port: Number(process.env.SQUARELAW_S3_PORT ?? 2600),
+		name: 'dev'
 	},
 	test: {
 		database: process.env.SQUARELAW_TEST_DB ?? 'squarelaw_test',
 		host: '127.0.0.1',
 		port: Number(process.env.SQUARELAW_TEST_PORT ?? 3100),
 		smtpPort: Number(process.env.SQUARELAW_TEST_SMTP_PORT ?? 2535),
-		mailHttpPort: Number(process.env.SQUARELAW_TEST_MAIL_HTTP_PORT ?? 2590)
+		mailHttpPort: Number(process.env.SQUARELAW_TEST_MAIL_HTTP_PORT ?? 2590),
+		s3Port: Number(process.env.SQUARELAW_TEST_S3_PORT ?? 2610),
+		name: 'test'
 	},
 	bench: {
 		database: 'squarelaw_bench',
 		host: '127.0.0.1',
 		port: Number(process.env.SQUARELAW_BENCH_PORT ?? 3200),
 		smtpPort: Number(process.env.SQUARELAW_BENCH_SMTP_PORT ?? 2545),
-		mailHttpPort: Number(process.env.SQUARELAW_BENCH_MAIL_HTTP_PORT ?? 2595)
+		mailHttpPort: Number(process.env.SQUARELAW_BENCH_MAIL_HTTP_PORT ?? 2595),
+		s3Port: Number(process.env.SQUARELAW_BENCH_S3_PORT ?? 2620),
+		name: 'bench'
 	}
 };
 
@@ -129,6 +135,15 @@ export async function startMail(profile) {
 	return fake;
 }
 
+/** The storage fake, unless S3_ENDPOINT names a real service (README, "Past one machine"). */
+export async function startStorage(profile) {
+	if (process.env.S3_ENDPOINT || process.env.S3_BUCKET) return null;
+	const { startStorageFake } = await import('./storage-fake.mjs');
+	const fake = await startStorageFake({ port: profile.s3Port, name: profile.name });
+	log(`storage fake: ${fake.endpoint} (objects under .data/s3-${profile.name})`);
+	return fake;
+}
+
 export function build() {
 	log('building (vite build)…');
 	// The seed's Vite server sets NODE_ENV=development in this process; inherited, the build would ship
@@ -136,7 +151,7 @@ export function build() {
 	run('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
 }
 
-export function appEnv(profile, { url, secrets, mail }) {
+export function appEnv(profile, { url, secrets, mail, storage = null }) {
 	const origin = `http://${profile.host}:${profile.port}`;
 	return {
 		NODE_ENV: 'production',
@@ -148,7 +163,8 @@ export function appEnv(profile, { url, secrets, mail }) {
 		EMAIL_SERVER: mail ? mail.smtpUrl : process.env.EMAIL_SERVER,
 		EMAIL_FROM: process.env.EMAIL_FROM ?? 'Squarelaw <no-reply@squarelaw.localhost>',
 		DEV_MAIL_URL: mail ? mail.httpUrl : '',
-		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '8M'
+		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '64M',
+		...(storage ? storage.env : {})
 	};
 }
 
@@ -208,9 +224,11 @@ export async function startStack(profile, stop, { fresh = false, mail = true, bu
 	const seeded = await seed(db.url);
 	const mailFake = mail ? await startMail(profile) : null;
 	if (mailFake) stop.add(() => mailFake.stop());
+	const storage = await startStorage(profile);
+	if (storage) stop.add(() => storage.stop());
 	if (buildFirst) build();
-	const env = appEnv(profile, { ...db, mail: mailFake });
+	const env = appEnv(profile, { ...db, mail: mailFake, storage });
 	const { child, origin } = await serve(profile, env, { quiet });
 	stop.add(() => stopChild(child));
-	return { db, seeded, env, child, origin, mail: mailFake };
+	return { db, seeded, env, child, origin, mail: mailFake, storage };
 }

@@ -198,3 +198,23 @@ export function parseGearSpec(kind: GearKind, spec: unknown) {
 		issues: r.error.issues.map((i) => ({ path: ['spec', ...i.path.map(String)], message: i.message }))
 	};
 }
+
+/**
+ * A flash's calibration as copied into a setup's gear copy on save (flash_calibrations holds the
+ * history on the shelf): the guide number measured and the shelf's guide number it was measured
+ * against. Plans scale their light's guide number by measured / rated.
+ */
+export const flashCalibrationCopySchema = z.object({
+	id: z.uuid(),
+	guideNumberM: guideNumberField,
+	ratedGuideNumberM: guideNumberField,
+	method: z.enum(['shot', 'meter']),
+	calibratedAt: z.iso.datetime({ offset: true })
+});
+export type FlashCalibrationCopy = z.output<typeof flashCalibrationCopySchema>;
+
+/** The calibration a flash spec carries (`spec.calibration`), or null: read-side only. */
+export function calibrationOf(spec: Record<string, unknown>): FlashCalibrationCopy | null {
+	const parsed = flashCalibrationCopySchema.safeParse(spec.calibration);
+	return parsed.success ? parsed.data : null;
+}

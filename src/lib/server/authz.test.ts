@@ -190,8 +190,8 @@ describe('authorization matrix: role × studio action', () => {
 });
 
 describe('capabilities through authz.can', () => {
-	const viewer: Capability[] = ['studio.view', 'members.view', 'setups.view', 'setups.duplicateFrom', 'gear.view'];
-	const editor: Capability[] = [...viewer, 'setups.edit', 'gear.edit'];
+	const viewer: Capability[] = ['studio.view', 'members.view', 'setups.view', 'setups.duplicateFrom', 'gear.view', 'shots.view'];
+	const editor: Capability[] = [...viewer, 'setups.edit', 'gear.edit', 'shots.edit'];
 	const all: Capability[] = [
 		'studio.view',
 		'studio.rename',
@@ -203,7 +203,9 @@ describe('capabilities through authz.can', () => {
 		'setups.edit',
 		'setups.duplicateFrom',
 		'gear.view',
-		'gear.edit'
+		'gear.edit',
+		'shots.view',
+		'shots.edit'
 	];
 	const allowed: Record<Role, Capability[]> = { none: [], viewer, editor, owner: all, admin: all };
 

@@ -5,6 +5,7 @@ import { db } from '$lib/server/db';
 import { memberships, setups, studios, type Setup, type StudioRole, type TokenScope } from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
 import type { StudioFilter } from '$lib/server/db/queries/visibility';
+import { findShotRow } from '$lib/server/db/queries/shots';
 import type { SessionUser } from '$lib/server/session';
 import { isUuid } from '$lib/uuid';
 
@@ -21,12 +22,15 @@ export const CAPABILITIES = [
 	'setups.edit',
 	'setups.duplicateFrom',
 	'gear.view',
-	'gear.edit'
+	'gear.edit',
+	'shots.view',
+	'shots.edit'
 ] as const;
 export type Capability = (typeof CAPABILITIES)[number];
 
-const viewer: Capability[] = ['studio.view', 'members.view', 'setups.view', 'setups.duplicateFrom', 'gear.view'];
-const editor: Capability[] = [...viewer, 'setups.edit', 'gear.edit'];
+const viewer: Capability[] = ['studio.view', 'members.view', 'setups.view', 'setups.duplicateFrom', 'gear.view', 'shots.view'];
+// Shots: viewers see shots and measures; editors upload, measure, calibrate and delete.
+const editor: Capability[] = [...viewer, 'setups.edit', 'gear.edit', 'shots.edit'];
 
 /**
  * What each role may do. Workshop roles (instructor, student) are added as new keys here with
@@ -166,6 +170,28 @@ export async function authorizeSetup(
 		canEdit: can(access, 'setups.edit'),
 		canDuplicate: can(access, 'setups.duplicateFrom')
 	};
+}
+
+export const SHOT_NOT_FOUND = 'No such shot.';
+
+/**
+ * One shot of a setup: the setup's own answers first (401, 404 for a setup the caller may not see, so
+ * its shots and their images are 404 too), then 404 for a shot that is not this setup's, or is in the
+ * trash unless asked for, and 403 when the role lacks `capability`.
+ */
+export async function authorizeShot(
+	user: SessionUser | null,
+	setupId: string,
+	shotId: string,
+	capability: 'shots.view' | 'shots.edit',
+	{ includeTrashed = false } = {}
+) {
+	const setupAccess = await authorizeSetup(user, setupId, 'shots.view');
+	if (!isUuid(shotId)) error(404, SHOT_NOT_FOUND);
+	const shot = await findShotRow(setupId, shotId);
+	if (!shot || (shot.deletedAt && !includeTrashed)) error(404, SHOT_NOT_FOUND);
+	if (!can(setupAccess.access, capability)) refused(capability);
+	return { ...setupAccess, shot, canEditShots: can(setupAccess.access, 'shots.edit') };
 }
 
 export const GEAR_NOT_FOUND = 'No such gear.';

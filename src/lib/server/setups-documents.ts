@@ -1,6 +1,7 @@
 // What the notebook keeps true of a setup's documents: stored documents are read through the migrations,
 // gear used by a plan is copied into the document on save, and the errors a save can end in.
 import { RuleViolation } from '$lib/server/errors';
+import { stampCalibrations } from '$lib/server/calibrations';
 import { gearRowsByIds } from '$lib/server/db/queries/gear';
 import { elementUsingGear, referencedGearIds, type GearSnapshot, type SetupDocument } from '$lib/scene/document';
 import { migrateDocument, type DocumentIssue } from '$lib/scene/migrations';
@@ -94,5 +95,5 @@ export async function snapshotGear(
 		}
 	}
 	if (issues.length) throw new InputError(`Invalid input. ${issues[0].path.join('.')}: ${issues[0].message}`, issues);
-	return { ...document, gear };
+	return { ...document, gear: await stampCalibrations(gear) };
 }

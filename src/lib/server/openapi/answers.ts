@@ -295,3 +295,88 @@ export const gearItemAnswer = z.object({
 export const gearShelfAnswer = z.object({ studioId: id, canEdit: z.boolean(), items: z.array(gearItemAnswer) });
 
 export const gearDetailAnswer = gearItemAnswer.extend({ canEdit: z.boolean() });
+
+// ---------- shots ----------
+
+const nullableNum = num.nullable();
+const settingSource = z.enum(['exif', 'typed', 'not recorded']);
+
+export const shotAnswer = z.object({
+	id,
+	setupId: id,
+	sessionId: id.nullable(),
+	revisionNumber,
+	fileName: text,
+	contentType: text,
+	byteSize: z.int(),
+	widthPx: z.int(),
+	heightPx: z.int(),
+	exif: z
+		.object({
+			fNumber: nullableNum,
+			exposureTimeS: nullableNum,
+			iso: nullableNum,
+			focalLengthMm: nullableNum,
+			flashFired: z.boolean().nullable(),
+			flashMode: text.nullable(),
+			takenAt: text.nullable(),
+			cameraModel: text.nullable(),
+			lensModel: text.nullable(),
+			rejected: z.array(z.object({ field: text, value: text, reason: text }))
+		})
+		.describe('what the file’s EXIF recorded; null: not recorded'),
+	typed: z.record(text, num).describe('values typed by hand'),
+	settings: z.object({
+		fNumber: nullableNum,
+		exposureTimeS: nullableNum,
+		iso: nullableNum,
+		focalLengthMm: nullableNum,
+		sources: z.record(text, settingSource)
+	}),
+	createdAt: dateTime,
+	deletedAt: dateTime.nullable(),
+	images: z.object({ original: text, preview: text, thumbnail: text }),
+	predicted: z.object({ offsetStops: nullableNum, reason: text.optional() }),
+	actual: z
+		.object({ offsetStops: num, method: z.enum(['region', 'meter']), meanLuminance: nullableNum, measuredAt: dateTime })
+		.nullable(),
+	differenceStops: nullableNum.describe('actual − predicted, stops')
+});
+
+const sessionTick = z.object({ item: text, tickedAt: dateTime });
+
+export const shotSessionAnswer = z.object({ id, shotOn: text, note: text, ticks: z.array(sessionTick) });
+
+export const shotListAnswer = z.object({
+	setupId: id,
+	studioId: id,
+	latestRevision: revisionNumber,
+	canEdit: z.boolean(),
+	shots: z.array(shotAnswer),
+	sessions: z.array(shotSessionAnswer.extend({ shotCount: z.int(), meanDifferenceStops: nullableNum })),
+	meanDifferenceStops: nullableNum
+});
+
+export const shotUploadAnswer = z.object({
+	created: z.array(shotAnswer),
+	failed: z.array(z.object({ fileName: text, message: text.describe('names the file and what is wrong') }))
+});
+
+export const checklistAnswer = z.object({ studioId: id, items: z.array(text), canEdit: z.boolean() });
+
+export const calibrationAnswer = z.object({
+	id,
+	gearId: id,
+	method: z.enum(['shot', 'meter']),
+	guideNumberM: num,
+	ratedGuideNumberM: num,
+	offsetStops: num,
+	shotId: id.nullable(),
+	createdAt: dateTime,
+	undoneAt: dateTime.nullable(),
+	active: z.boolean()
+});
+
+export const calibrateAnswer = z.object({ calibration: calibrationAnswer, warnings: z.array(text) });
+
+export const calibrationsAnswer = z.object({ gearId: id, calibrations: z.array(calibrationAnswer) });

@@ -32,7 +32,11 @@ export function jsonSchemaOf(schema: z.ZodType): JsonSchema {
 
 const PATH_PARAMETERS: Record<string, { description: string; schema: z.ZodType }> = {
 	id: { description: 'the id of the setup or gear item', schema: z.uuid() },
-	n: { description: 'a revision number', schema: z.int().min(1) }
+	n: { description: 'a revision number', schema: z.int().min(1) },
+	shotId: { description: 'the id of a shot of the setup', schema: z.uuid() },
+	variant: { description: 'which image: original, preview or thumbnail', schema: z.enum(['original', 'preview', 'thumbnail']) },
+	sessionId: { description: 'the id of a shooting session of the setup', schema: z.uuid() },
+	calibrationId: { description: 'the id of one of the flash’s calibrations', schema: z.uuid() }
 };
 
 const REFUSALS: Record<number, string> = {
@@ -41,7 +45,9 @@ const REFUSALS: Record<number, string> = {
 	403: 'Signed in, but the role does not allow it',
 	404: 'Not found, or not visible to the caller',
 	409: 'Stale: `baseRevision` is not the latest revision (`latestRevision` says which is)',
-	413: 'The body is too large'
+	413: 'The body is too large',
+	415: 'The body is not of a media type the route takes',
+	503: 'A service the route needs (object storage) is unreachable for a moment'
 };
 
 function refusalsOf(route: ApiRoute): number[] {

@@ -121,7 +121,12 @@ export async function api<T = any>(
 	{ auth, body, headers = {} }: { auth: Auth; body?: unknown; headers?: Record<string, string> }
 ): Promise<ApiAnswer<T>> {
 	const init: RequestInit = { method, headers: { ...authHeaders(auth), ...headers }, redirect: 'manual' };
-	if (body !== undefined) {
+	if (body instanceof FormData) {
+		// Multipart: fetch writes the boundary; SvelteKit's origin check wants the app's own Origin on a form post.
+		init.body = body;
+		(init.headers as Record<string, string>).origin ??= baseUrl();
+	}
+	else if (body !== undefined) {
 		init.body = typeof body === 'string' ? body : JSON.stringify(body);
 		(init.headers as Record<string, string>)['content-type'] ??= 'application/json';
 	}

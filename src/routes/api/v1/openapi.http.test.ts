@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { api, baseUrl, makeUser, sampleDocument, type TestUser } from '$lib/server/testing/notebook-fixtures';
 import { openApiDocument } from '$lib/server/openapi';
 import { API_ROUTES, type HttpMethod } from '$lib/server/openapi/routes';
+import { SAMPLE_EXIF, testImage } from '$lib/server/testing/shot-images';
 
 /** A 1 × 1 PNG. */
 const PNG_BASE64 = 'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNkYPhfDwAChwGA60e6kgAAAABJRU5ErkJggg==';
@@ -95,6 +96,25 @@ describe('the published API', () => {
 		await call('delete', '/api/v1/setups/{id}', { id: copy.id });
 		await call('get', '/api/v1/setups/trash');
 		await call('post', '/api/v1/setups/{id}/untrash', { id: copy.id });
+
+		const form = new FormData();
+		form.append('files', new Blob([await testImage({ exif: SAMPLE_EXIF })], { type: 'image/jpeg' }), 'garnet-01.jpg');
+		const uploaded = await call('post', '/api/v1/setups/{id}/shots', { id }, form);
+		const shotId = uploaded.created[0].id;
+		await call('get', '/api/v1/setups/{id}/shots', { id });
+		await call('get', '/api/v1/setups/{id}/shots/{shotId}', { id, shotId });
+		await call('patch', '/api/v1/setups/{id}/shots/{shotId}', { id, shotId }, { typed: { iso: 200 } });
+		await call('get', '/api/v1/setups/{id}/shots/{shotId}/image/{variant}', { id, shotId, variant: 'preview' });
+		await call('post', '/api/v1/setups/{id}/shots/{shotId}/measure', { id, shotId }, { method: 'region', region: { x: 0.1, y: 0.1, width: 0.5, height: 0.5 } });
+		await call('delete', '/api/v1/setups/{id}/shots/{shotId}', { id, shotId });
+		await call('post', '/api/v1/setups/{id}/shots/{shotId}/restore', { id, shotId });
+		const session = await call('post', '/api/v1/setups/{id}/shots/sessions', { id }, { shotOn: '2026-11-30', note: 'Club evening' });
+		const checklist = await call('get', '/api/v1/setups/{id}/shots/checklist', { id });
+		await call('patch', '/api/v1/setups/{id}/shots/sessions/{sessionId}', { id, sessionId: session.id }, { ticks: [checklist.items[0]] });
+		await call('put', '/api/v1/setups/{id}/shots/checklist', { id }, { items: [...checklist.items, 'Lens cap in the bag'] });
+		const calibrated = await call('post', '/api/v1/setups/{id}/shots/calibrate', { id }, { method: 'meter', gearId: shelf.id, aperture: 11, distanceM: 2, iso: 100, power: 0.25 });
+		await call('get', '/api/v1/gear/{id}/calibrations', { id: shelf.id });
+		await call('post', '/api/v1/gear/{id}/calibrations/{calibrationId}/undo', { id: shelf.id, calibrationId: calibrated.calibration.id });
 
 		expect([...called].sort()).toEqual(API_ROUTES.map((r) => `${r.method} ${r.path}`).sort());
 	});

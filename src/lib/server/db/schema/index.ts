@@ -4,3 +4,4 @@ export * from './security';
 export * from './relations';
 export * from './setups';
 export * from './gear';
+export * from './shots';

@@ -4,6 +4,7 @@ import { sessions, users } from './auth';
 import { invitations, memberships, studios } from './studios';
 import { setupRevisions, setups } from './setups';
 import { gear } from './gear';
+import { flashCalibrations, sessionTicks, shootingSessions, shotMeasures, shots } from './shots';
 
 export const usersRelations = relations(users, ({ many }) => ({
 	memberships: many(memberships),
@@ -54,4 +55,29 @@ export const setupRevisionsRelations = relations(setupRevisions, ({ one }) => ({
 export const gearRelations = relations(gear, ({ one }) => ({
 	studio: one(studios, { fields: [gear.studioId], references: [studios.id] }),
 	createdBy: one(users, { fields: [gear.createdById], references: [users.id] })
+}));
+
+export const shootingSessionsRelations = relations(shootingSessions, ({ one, many }) => ({
+	setup: one(setups, { fields: [shootingSessions.setupId], references: [setups.id] }),
+	shots: many(shots),
+	ticks: many(sessionTicks)
+}));
+
+export const shotsRelations = relations(shots, ({ one, many }) => ({
+	setup: one(setups, { fields: [shots.setupId], references: [setups.id] }),
+	session: one(shootingSessions, { fields: [shots.sessionId], references: [shootingSessions.id] }),
+	measures: many(shotMeasures)
+}));
+
+export const shotMeasuresRelations = relations(shotMeasures, ({ one }) => ({
+	shot: one(shots, { fields: [shotMeasures.shotId], references: [shots.id] })
+}));
+
+export const flashCalibrationsRelations = relations(flashCalibrations, ({ one }) => ({
+	gear: one(gear, { fields: [flashCalibrations.gearId], references: [gear.id] }),
+	shot: one(shots, { fields: [flashCalibrations.shotId], references: [shots.id] })
+}));
+
+export const sessionTicksRelations = relations(sessionTicks, ({ one }) => ({
+	session: one(shootingSessions, { fields: [sessionTicks.sessionId], references: [shootingSessions.id] })
 }));
