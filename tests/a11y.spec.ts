@@ -18,33 +18,17 @@ interface Found {
 
 const WCAG_21_AA = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'];
 
-/**
- * Known violations inside the plan editor's own components, left to the editor's redesign on another
- * branch: each rule is skipped on its element only, and checked everywhere else on the page.
- * REMOVE once the editor's branch is merged (the lead removes it):
- * - label-content-name-mismatch: the element list's buttons (src/lib/editor/workspace/ElementList.svelte)
- *   are named "<label>, <kind>, at <x>, <y>" while they show "<label> · <kind> · <x>, <y>".
- */
-const EDITOR_EXCEPTIONS: { rule: string; selector: string }[] = [{ rule: 'label-content-name-mismatch', selector: '[data-testid="element-list"]' }];
-
 const serious = (violations: Awaited<ReturnType<AxeBuilder['analyze']>>['violations'], name: string): Found[] =>
 	violations
 		.filter((v) => v.impact === 'serious' || v.impact === 'critical')
 		.map((v) => ({ page: name, rule: v.id, impact: v.impact!, help: v.help, targets: v.nodes.map((n) => n.target.join(' ')) }));
 
 /** Waits until the page is live (scripts loaded, lazy panels in), then runs axe over it. */
-async function audit(page: Page, name: string, url: string, exceptions: typeof EDITOR_EXCEPTIONS = []): Promise<Found[]> {
+async function audit(page: Page, name: string, url: string): Promise<Found[]> {
 	const res = await page.goto(url);
 	expect(res, name).not.toBeNull();
 	await page.waitForLoadState('networkidle');
-	const skipped = exceptions.map((e) => e.rule);
-	const found = serious((await new AxeBuilder({ page }).withTags(WCAG_21_AA).disableRules(skipped).analyze()).violations, name);
-	// Each skipped rule still runs over the whole page but its one element.
-	for (const e of exceptions) {
-		const rest = await new AxeBuilder({ page }).withRules([e.rule]).exclude(e.selector).analyze();
-		found.push(...serious(rest.violations, name));
-	}
-	return found;
+	return serious((await new AxeBuilder({ page }).withTags(WCAG_21_AA).analyze()).violations, name);
 }
 
 const SIGNED_OUT: [string, string][] = [
@@ -83,7 +67,7 @@ for (const scheme of ['light', 'dark'] as const) {
 			const studio = await page.locator('main a[href^="/studios/"]').first().getAttribute('href');
 			expect(studio).toMatch(/^\/studios\/[0-9a-f-]{36}$/);
 			for (const [name, url] of [...SIGNED_IN, ['a studio', studio!] as [string, string]])
-				found.push(...(await audit(page, name, url, name === 'setup page with the editor' ? EDITOR_EXCEPTIONS : [])));
+				found.push(...(await audit(page, name, url)));
 
 			// The theme really was the one asked for on every page.
 			expect(await page.evaluate(() => document.documentElement.classList.contains('dark'))).toBe(scheme === 'dark');

@@ -6,6 +6,7 @@
 import type { Page } from '@playwright/test';
 import { formatPower } from '../src/lib/editor/model/power-notation';
 import { createQuartzSetup, expect, signedInAs, test } from './fixtures';
+import { inspectorTab } from './workspace';
 
 const OWNER = 'mara.quill@fernhill.example';
 const VIEWER = 'ines.marlow@fernhill.example';
@@ -23,6 +24,7 @@ async function typeInto(page: Page, selector: string, text: string) {
 }
 
 async function saveRevision(page: Page, message: string, revision: number) {
+	await inspectorTab(page, 'Save');
 	await page.getByLabel('What changed (optional)').fill(message);
 	await page.getByRole('button', { name: 'Save revision' }).click();
 	await expect(page.getByText(`Saved as revision ${revision}.`)).toBeVisible();
@@ -75,9 +77,11 @@ test('"set to the power needed" puts the flash on its nearest step and the setup
 	const id = await createQuartzSetup(page, 'Power needed');
 	await openSetup(page, id);
 	// Stop down to f/22 first so the flash's 1/8 is far from right.
+	await inspectorTab(page, 'Camera');
 	const aperture = page.getByLabel('Aperture (f-number, marked)');
 	await aperture.fill('22');
 	await aperture.press('Enter');
+	await inspectorTab(page, 'Element');
 	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).click();
 	const needed = page.getByTestId('power-needed');
 	const step = (await needed.getByTestId('power-needed-step').textContent())!.trim();
@@ -121,6 +125,7 @@ test('a viewer selects a light of a seeded setup and sees its properties read-on
 	const rake = setup.document.scene.lights.find((l: { id: string }) => l.id === 'rake');
 	await openSetup(page, seeded.id);
 
+	await inspectorTab(page, 'Elements');
 	const inspector = page.getByTestId('inspector');
 	await inspector.getByRole('button', { name: 'Marten 24, grid, raking' }).click();
 	await expect(inspector.getByText('Flash · read-only')).toBeVisible();
