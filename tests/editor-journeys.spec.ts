@@ -64,7 +64,7 @@ async function stopsOf(page: Page, label: string): Promise<number> {
 /** Where an element is on the plan, in metres, read from its button in the element list. */
 async function listedAt(list: Locator, label: string): Promise<[number, number]> {
 	await inspectorTab(list.page(), 'Element');
-	const name = (await list.getByRole('button', { name: new RegExp(`^${label}, `) }).getAttribute('aria-label'))!;
+	const name = (await list.getByRole('button', { name: new RegExp(`^${label}, `) }).textContent())!;
 	const m = name.match(/at (-?[\d.]+) cm, (-?[\d.]+) cm/);
 	expect(m, `position in "${name}"`).toBeTruthy();
 	return [Number(m![1]) / 100, Number(m![2]) / 100];
@@ -212,7 +212,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	expect(await listedAt(list, 'Flash')).toEqual(flashPlan);
 
 	// The first save makes the setup (with its thumbnail) and goes to its page, which is the editor.
-	const namesBefore = await list.getByRole('listitem').getByRole('button', { name: /, at / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label')));
+	const namesBefore = await list.getByRole('listitem').getByRole('button', { name: /, at / }).evaluateAll((els) => els.map((e) => e.textContent));
 	await page.getByRole('button', { name: 'Make the setup' }).first().click();
 	await expect(page).toHaveURL(/\/setups\/[0-9a-f-]{36}\?created=1$/);
 	const id = new URL(page.url()).pathname.split('/')[2];
@@ -233,7 +233,7 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 	await page.reload();
 	await waitLive(page);
 	await expect(page.getByText(/were restored/)).toHaveCount(0);
-	const namesAfter = await list.getByRole('listitem').getByRole('button', { name: /, at / }).evaluateAll((els) => els.map((e) => e.getAttribute('aria-label')));
+	const namesAfter = await list.getByRole('listitem').getByRole('button', { name: /, at / }).evaluateAll((els) => els.map((e) => e.textContent));
 	expect(namesAfter.sort()).toEqual(namesBefore.sort());
 	await inspectorTab(page, 'Exposure');
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/16\s*set$/);

@@ -35,7 +35,7 @@ async function touch(cdp: CDPSession, type: 'touchStart' | 'touchMove' | 'touchE
 
 /** Reads "x, y" of the light from its row in the element list, in centimetres. */
 async function lightAt(page: Page): Promise<[number, number]> {
-	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).getAttribute('aria-label');
+	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).textContent();
 	const m = name!.match(/at (-?[\d.]+) cm, (-?[\d.]+) cm/);
 	expect(m, `coordinates in "${name}"`).toBeTruthy();
 	return [Number(m![1]), Number(m![2])];
