@@ -90,7 +90,7 @@ describe('authorizeWorkshop: role × capability', () => {
 			() => ws.stepForViewer(callers.otherStudent, w.stepIds[0]),
 			() => ws.getLiveStep(callers.otherStudent, w.workshopId),
 			() => ws.copyStepToStudio(callers.otherStudent, w.stepIds[0], { subject: 'Quartz' })
-		]) {
+		] as (() => Promise<unknown>)[]) {
 			expect((await attempt(work)).outcome).toBe(404);
 		}
 		const instructorRow = (await ws.workshopRoster(callers.owner, w.workshopId)).people.find((p) => p.role === 'instructor')!;
@@ -109,7 +109,7 @@ describe('a student reads exactly the revisions the lessons pin', () => {
 			() => setupsService.listSetupRevisions(w.student, w.setupId),
 			() => setupsService.duplicateSetup(w.student, w.setupId, setupDuplicateSchema.parse({ subject: 'Quartz' })),
 			() => authz.authorizeStudio(w.student, w.studioId, 'studio.view')
-		]) {
+		] as (() => Promise<unknown>)[]) {
 			expect((await attempt(work)).outcome).toBe(404);
 		}
 		const list = await setupsService.listSetupsFor(w.student, setupListQuerySchema.parse({}));

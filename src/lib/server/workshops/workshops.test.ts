@@ -135,7 +135,7 @@ describe('steps', () => {
 		expect(moved.revisionNumber).toBe(2);
 		expect(moved.hiddenElementIds).toEqual(['card']);
 		// Revision 2 doubles the key's power (0.25 → 0.5): one stop more (inverse-square and power are linear; common practice).
-		expect(moved.exposure!.total.exposureOffsetStops - pinned.exposure!.total.exposureOffsetStops).toBeCloseTo(1, 6);
+		expect(moved.exposure!.total.exposureOffsetStops! - pinned.exposure!.total.exposureOffsetStops!).toBeCloseTo(1, 6);
 		const shown = await ws.updateStep(w.owner, w.stepIds[0], { hiddenElementIds: [], caption: 'Both now' });
 		expect(shown.visibleElementIds).toEqual(['key', 'card']);
 		expect((await ruleField(() => ws.updateStep(w.owner, w.stepIds[0], { revisionNumber: 7 }))).field).toBe('revisionNumber');
