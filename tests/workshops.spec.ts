@@ -52,7 +52,7 @@ test('build a three-step lesson from the quartz setup, invite a student who foll
 
 	// Publish, with a summary.
 	await page.getByLabel('Summary (Markdown)').fill('One **small** flash, a card and a flag.');
-	await page.getByLabel(/^Published/).check();
+	await page.getByRole('radio', { name: /^Published/ }).check();
 	await page.getByRole('button', { name: 'Save details' }).click();
 	await expect(page.getByTestId('workshop-state')).toHaveText('published');
 	await expect(page.getByTestId('workshop-summary').locator('strong')).toHaveText('small');
