@@ -139,10 +139,12 @@ test('build a three-step lesson from the quartz setup, invite a student who foll
 	await expect(s.getByTestId('presenter-notes')).toHaveCount(0);
 	await expect(s.getByRole('button', { name: /^Save step/ })).toHaveCount(0);
 	await s.getByRole('link', { name: 'Open the first step' }).click();
+	await expect(s.getByRole('heading', { level: 1, name: 'Step 1 of 3' })).toBeVisible();
 	await expect(s.getByTestId('step-caption')).toHaveText(CAPTIONS[0]);
 	await expect(s.getByTestId('plan-canvas').locator('canvas').first()).toBeVisible();
 	await expect(s.getByText(/not shown in this step: White card, Black flag off the lens/)).toBeVisible();
 	await s.getByRole('link', { name: 'Step 2 →' }).click();
+	await expect(s.getByRole('heading', { level: 1, name: 'Step 2 of 3' })).toBeVisible();
 	await expect(s.getByTestId('step-caption')).toHaveText(CAPTIONS[1]);
 	// The setup itself stays out of sight: only what the lesson pins, through the workshop.
 	expect((await s.request.get(`/api/v1/setups/${quartzId}`)).status()).toBe(404);
