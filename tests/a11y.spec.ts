@@ -5,7 +5,7 @@ import type { Page } from '@playwright/test';
 import { expect, signedInAs, test } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
-// The seeded quartz cluster (src/lib/server/seed/notebook-data.ts): four revisions.
+// The seeded quartz cluster (src/lib/server/seed/notebook-data.ts): five revisions.
 const QUARTZ_ID = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
 
 interface Found {
@@ -15,6 +15,10 @@ interface Found {
 	help: string;
 	targets: string[];
 }
+
+// The seeded workshop "Small Light, Big Detail" (src/lib/server/seed/workshop.ts).
+const WORKSHOP = '/workshops/7b2c4e90-1a3f-4d6b-8e25-6c0f00000001';
+const LESSON = `${WORKSHOP}/lessons/7b2c4e90-1a3f-4d6b-8e25-6c0f00000101`;
 
 const WCAG_21_AA = ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'];
 
@@ -35,7 +39,8 @@ const SIGNED_OUT: [string, string][] = [
 	['home', '/'],
 	['sign-in', '/signin'],
 	['calculator', '/calc'],
-	['API reference', '/api']
+	['API reference', '/api'],
+	['public page of a workshop', '/w/small-light-big-detail']
 ];
 
 const SIGNED_IN: [string, string][] = [
@@ -46,6 +51,12 @@ const SIGNED_IN: [string, string][] = [
 	['compare', `/setups/${QUARTZ_ID}/compare?from=2&to=4`],
 	['gear', '/gear'],
 	['account', '/account'],
+	['workshops', '/workshops'],
+	['a workshop', WORKSHOP],
+	['a lesson', LESSON],
+	['a step', `${WORKSHOP}/steps/7b2c4e90-1a3f-4d6b-8e25-6c0f00000202`],
+	['a roster', `${WORKSHOP}/roster`],
+	['a lesson handout', `${LESSON}/handout`],
 	['error page (404)', '/setups/00000000-0000-4000-8000-000000000000']
 ];
 
