@@ -46,3 +46,13 @@ describe('offsets as the hall reads them', () => {
 		expect(offsetText(null)).toBe('no light');
 	});
 });
+
+describe('the presenter window’s elapsed time', async () => {
+	const { elapsedText } = await import('./clock');
+	it('writes hours, minutes and seconds', () => {
+		expect(elapsedText(0)).toBe('0:00:00');
+		expect(elapsedText(425_900)).toBe('0:07:05');
+		expect(elapsedText(3_600_000 + 61_000)).toBe('1:01:01');
+		expect(elapsedText(-5)).toBe('0:00:00');
+	});
+});
