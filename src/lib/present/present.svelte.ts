@@ -23,8 +23,6 @@ export interface PresentStep {
 	document: StepDocument;
 	/** The elements the step shows (null: all of them). */
 	visibleIds: string[] | null;
-	/** Instructors only. */
-	presenterNotes?: string;
 }
 
 /** A step as the presenter window shows it. */
@@ -33,8 +31,6 @@ export interface PresenterStep {
 	caption: string;
 	setupTitle: string;
 	revisionNumber: number;
-	/** The presenter notes as safe HTML (rendered on the server). */
-	notesHtml: string;
 	/** Names of the elements the step shows. */
 	shows: string[];
 }
