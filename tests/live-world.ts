@@ -1,0 +1,64 @@
+// A workshop to present and follow in the browser tests: the seeded quartz setup (Fernhill Geology
+// Circle, owned by Mara Quill) duplicated through the API with a black flag added as a new revision, and
+// a lesson of three steps pinning that revision: the key light alone, key + card, key + card + flag.
+// Workshops, lessons and steps are written straight into their tables (as the workshop pages would save
+// them); people are signed in through the real mail flow.
+import postgres from 'postgres';
+import { randomUUID } from 'node:crypto';
+import type { APIRequestContext } from '@playwright/test';
+import { expect } from './fixtures';
+
+const databaseUrl = process.env.DATABASE_URL;
+if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser tests through `npm test`.');
+export const sql = postgres(databaseUrl, { max: 2, onnotice: () => {} });
+
+/** The seeded "Quartz cluster on black velvet" (src/lib/server/seed/notebook-data.ts). */
+const QUARTZ_ID = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
+
+export const CAPTIONS = ['The key light alone, high at the upper left', 'Add the white card opposite', 'A black flag keeps the key off the velvet'];
+
+export interface LiveWorld {
+	workshopId: string;
+	lessonId: string;
+	stepIds: string[];
+	setupId: string;
+}
+
+/** Builds the world as the signed-in owner (`request` carries Mara's session). */
+export async function makeLiveWorld(request: APIRequestContext, title = 'Small Light, Big Detail (test)'): Promise<LiveWorld> {
+	const dup = await request.post(`/api/v1/setups/${QUARTZ_ID}/duplicate`, { data: { subject: `Quartz cluster (live test ${randomUUID().slice(0, 8)})` } });
+	expect(dup.status()).toBe(201);
+	const setupId = ((await dup.json()) as { id: string }).id;
+	const current = (await (await request.get(`/api/v1/setups/${setupId}`)).json()) as { revisionNumber: number; document: Record<string, any> };
+	const doc = current.document;
+	// A black flag between the key and the velvet behind the cluster (it does not cross the key's line to the subject).
+	doc.scene.flags = [...(doc.scene.flags ?? []), { id: 'flag', from: [-0.25, 0.3], to: [0.05, 0.3] }];
+	doc.plan.elements.flag = { kind: 'flag', label: 'Black flag', widthM: 0.3, heightM: 0.3, position: [-0.1, 0.3, 0.15] };
+	const saved = await request.put(`/api/v1/setups/${setupId}`, { data: { baseRevision: current.revisionNumber, document: doc, message: 'A black flag for the workshop' } });
+	expect(saved.status()).toBe(200);
+	const revision = ((await saved.json()) as { revisionNumber: number }).revisionNumber;
+
+	const [studio] = await sql`select studio_id from setups where id = ${setupId}`;
+	const [workshop] = await sql`
+		insert into workshops (studio_id, slug, title, capacity, state)
+		values (${studio.studio_id}, ${'live-test-' + randomUUID().slice(0, 8)}, ${title}, 12, 'published') returning id`;
+	const [lesson] = await sql`
+		insert into workshop_lessons (workshop_id, position, title, student_notes, presenter_notes)
+		values (${workshop.id}, 0, 'Building the light on a quartz cluster', 'Watch the shadow side.', 'Ask the hall which side is darker before adding the card.')
+		returning id`;
+	const hidden = [['card', 'flag'], ['flag'], []];
+	const stepIds: string[] = [];
+	for (let i = 0; i < 3; i++) {
+		const [step] = await sql`
+			insert into workshop_steps (lesson_id, position, setup_id, revision_number, hidden_element_ids, caption)
+			values (${lesson.id}, ${i}, ${setupId}, ${revision}, ${hidden[i]}, ${CAPTIONS[i]}) returning id`;
+		stepIds.push(step.id);
+	}
+	return { workshopId: workshop.id, lessonId: lesson.id, stepIds, setupId };
+}
+
+/** Makes a signed-in person a student of the workshop (as accepting an invitation does). */
+export async function enrol(workshopId: string, email: string) {
+	const [user] = await sql`select id from users where email = ${email}`;
+	await sql`insert into workshop_members (workshop_id, user_id, role) values (${workshopId}, ${user.id}, 'student') on conflict do nothing`;
+}
