@@ -2,7 +2,18 @@
 import { error, redirect } from '@sveltejs/kit';
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { memberships, setups, studios, type Setup, type StudioRole, type TokenScope } from '$lib/server/db/schema';
+import {
+	memberships,
+	setups,
+	studios,
+	workshopMembers,
+	workshops,
+	type Setup,
+	type StudioRole,
+	type TokenScope,
+	type Workshop,
+	type WorkshopRole
+} from '$lib/server/db/schema';
 import { findGearRow } from '$lib/server/db/queries/gear';
 import type { StudioFilter } from '$lib/server/db/queries/visibility';
 import { findShotRow } from '$lib/server/db/queries/shots';
@@ -206,6 +217,105 @@ export async function authorizeGear(user: SessionUser | null, gearId: string, ca
 	if (!access || !can(access, 'gear.view')) error(404, GEAR_NOT_FOUND);
 	if (!can(access, capability)) refused(capability);
 	return { row, access, canEdit: can(access, 'gear.edit') };
+}
+
+// ---------- workshops ----------
+
+export const WORKSHOP_CAPABILITIES = [
+	/** The workshop, its sessions, lessons with their student notes, and each step's pinned revision as the step shows it. */
+	'workshop.follow',
+	/** Notes for the presenter. */
+	'workshop.presenterNotes',
+	/** Details, sessions, lessons, steps and the live position. */
+	'workshop.run',
+	/** Invitations, the roster and requests to join. */
+	'workshop.roster',
+	/** Adding and removing instructors; deleting the workshop. */
+	'workshop.manage'
+] as const;
+export type WorkshopCapability = (typeof WORKSHOP_CAPABILITIES)[number];
+
+const follower: WorkshopCapability[] = ['workshop.follow'];
+const instructor: WorkshopCapability[] = [...follower, 'workshop.presenterNotes', 'workshop.run', 'workshop.roster'];
+
+/**
+ * What each role may do in a workshop. Studio roles reach every workshop of their studio: owners and
+ * editors run them, viewers read them as a student does. Workshop roles (a row in workshop_members)
+ * reach that one workshop only, and never the studio's setups: a student reads exactly the revisions
+ * the lessons pin, through the workshop.
+ */
+export const WORKSHOP_ROLE_CAPABILITIES: Record<StudioRole | WorkshopRole, ReadonlySet<WorkshopCapability>> = {
+	viewer: new Set(follower),
+	editor: new Set(WORKSHOP_CAPABILITIES),
+	owner: new Set(WORKSHOP_CAPABILITIES),
+	instructor: new Set(instructor),
+	student: new Set(follower)
+};
+
+export const WORKSHOP_NOT_FOUND = 'No such workshop.';
+
+export interface WorkshopAccess {
+	workshop: Workshop;
+	studioName: string;
+	/** The caller's role in the workshop's studio, if any. */
+	studioRole: StudioRole | null;
+	/** The caller's own row in the workshop (instructor or student), if any. */
+	workshopRole: WorkshopRole | null;
+	workshopMemberId: string | null;
+	isAdmin: boolean;
+}
+
+export function canInWorkshop(access: WorkshopAccess, capability: WorkshopCapability): boolean {
+	if (access.isAdmin) return true;
+	return [access.studioRole, access.workshopRole].some((role) => role !== null && WORKSHOP_ROLE_CAPABILITIES[role].has(capability));
+}
+
+/**
+ * The caller's standing toward one workshop: 401 anonymous; 404 when it does not exist, its studio is
+ * deleted, or the caller has no role that lets them follow it (never revealing which); 403 when they
+ * may follow it but not do `capability`. A student of one workshop is a stranger to every other.
+ */
+export async function authorizeWorkshop(
+	user: SessionUser | null,
+	workshopId: string,
+	capability: WorkshopCapability
+): Promise<WorkshopAccess & { can: Record<WorkshopCapability, boolean> }> {
+	const signedIn = requireUser(user);
+	if (!isUuid(workshopId)) error(404, WORKSHOP_NOT_FOUND);
+	const [row] = await db
+		.select({
+			workshop: workshops,
+			studioName: studios.name,
+			studioRole: memberships.role,
+			workshopRole: workshopMembers.role,
+			workshopMemberId: workshopMembers.id
+		})
+		.from(workshops)
+		.innerJoin(studios, eq(studios.id, workshops.studioId))
+		.leftJoin(memberships, and(eq(memberships.studioId, workshops.studioId), eq(memberships.userId, signedIn.id)))
+		.leftJoin(workshopMembers, and(eq(workshopMembers.workshopId, workshops.id), eq(workshopMembers.userId, signedIn.id)))
+		.where(and(eq(workshops.id, workshopId), isNull(studios.deletedAt)));
+	if (!row) error(404, WORKSHOP_NOT_FOUND);
+	const access: WorkshopAccess = {
+		workshop: row.workshop,
+		studioName: row.studioName,
+		studioRole: row.studioRole ?? null,
+		workshopRole: row.workshopRole ?? null,
+		workshopMemberId: row.workshopMemberId ?? null,
+		isAdmin: signedIn.isAdmin
+	};
+	if (!canInWorkshop(access, 'workshop.follow')) error(404, WORKSHOP_NOT_FOUND);
+	if (!canInWorkshop(access, capability)) {
+		error(403, `Your role in this workshop does not allow that (${capability}).`);
+	}
+	const can = Object.fromEntries(WORKSHOP_CAPABILITIES.map((c) => [c, canInWorkshop(access, c)])) as Record<WorkshopCapability, boolean>;
+	return { ...access, can };
+}
+
+/** The studios where the caller may run workshops (create one): owners and editors, or every studio for an admin. */
+export function workshopStudioFilter(user: SessionUser): StudioFilter {
+	if (user.isAdmin) return 'all';
+	return { userId: user.id, roles: ROLE_ORDER.filter((role) => WORKSHOP_ROLE_CAPABILITIES[role].has('workshop.run')) };
 }
 
 /**

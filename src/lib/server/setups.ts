@@ -281,34 +281,53 @@ export async function duplicateSetup(
 	user: SessionUser | null,
 	setupId: string,
 	input: SetupDuplicateInput
-): Promise<{ id: string; revisionNumber: 1; derivedFrom: { setupId: string; revisionNumber: number }; studioId: string }> {
+): Promise<DuplicateResult> {
 	const { setup, access } = await authorizeSetup(user, setupId, 'setups.duplicateFrom');
 	const signedIn = user!;
 	const number = input.revisionNumber ?? setup.latestRevision;
+	const targetStudioId =
+		input.studioId ?? (can(access, 'setups.edit') ? setup.studioId : await personalStudioId(signedIn));
+	return duplicateRevision(signedIn, setup, number, { ...input, studioId: targetStudioId });
+}
+
+export type DuplicateResult = { id: string; revisionNumber: 1; derivedFrom: { setupId: string; revisionNumber: number }; studioId: string };
+
+/**
+ * The duplicate itself, once the caller's right to read revision `number` is settled (by authz on the
+ * setup, or by a workshop step that pins it): a new setup in `input.studioId`, where the caller must be
+ * able to edit, with lineage back to the revision. `shape` may change the document first (a workshop
+ * step copies what it shows).
+ */
+export async function duplicateRevision(
+	signedIn: SessionUser,
+	setup: Setup,
+	number: number,
+	input: Omit<SetupDuplicateInput, 'studioId' | 'revisionNumber'> & { studioId: string },
+	shape: (document: SetupDocument) => SetupDocument = (d) => d
+): Promise<DuplicateResult> {
 	const { revision } = await loadRevision(setup, number);
 	const read = readStoredDocument(revision.document);
 	if (read.documentIssues) {
 		throw new InputError(`Revision ${number} cannot be duplicated: its document does not pass today's checks.`, read.documentIssues);
 	}
-	const targetStudioId =
-		input.studioId ?? (can(access, 'setups.edit') ? setup.studioId : await personalStudioId(signedIn));
-	await authorizeStudio(signedIn, targetStudioId, 'setups.edit');
+	await authorizeStudio(signedIn, input.studioId, 'setups.edit');
+	const document = shape(read.document);
 	const title = input.title ?? setup.title;
 	const created = await insertSetup({
-		studioId: targetStudioId,
+		studioId: input.studioId,
 		title,
 		subject: input.subject,
 		tags: setup.tags,
-		document: read.document,
-		gearIds: referencedGearIds(read.document),
-		searchText: searchTextOf(title, input.subject, setup.tags, read.document),
+		document,
+		gearIds: referencedGearIds(document),
+		searchText: searchTextOf(title, input.subject, setup.tags, document),
 		message: `Duplicated from “${setup.title}”, revision ${number}, for ${input.subject}`,
 		authorId: signedIn.id,
-		thumbnailPng: revision.thumbnailPng,
+		thumbnailPng: document === read.document ? revision.thumbnailPng : null,
 		derivedFromSetupId: setup.id,
 		derivedFromRevision: number
 	});
-	return { id: created.id, revisionNumber: 1, derivedFrom: { setupId: setup.id, revisionNumber: number }, studioId: targetStudioId };
+	return { id: created.id, revisionNumber: 1, derivedFrom: { setupId: setup.id, revisionNumber: number }, studioId: input.studioId };
 }
 
 /** To the studio's trash: the setup leaves the notebook, every revision stays. */

@@ -34,3 +34,24 @@ export function invitationLetter(
 		html: letterHtml(lines, { href: url, label: 'Accept the invitation' }, footer)
 	};
 }
+
+export function workshopInvitationLetter(
+	to: string,
+	url: string,
+	workshopTitle: string,
+	inviterName: string,
+	role: 'student' | 'instructor',
+	expiresAt: Date
+): Letter {
+	const lines = [
+		`${inviterName} invites you to the workshop "${workshopTitle}" on Squarelaw as ${role === 'student' ? 'a student' : 'an instructor'}.`,
+		`The link works once and until ${expiresAt.toUTCString()}.`
+	];
+	const footer = 'If you were not expecting this, ignore the message and nothing changes.';
+	return {
+		to,
+		subject: `Invitation to the workshop "${workshopTitle}"`,
+		text: `${lines.join('\n')}\n\nJoin: ${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: 'Join the workshop' }, footer)
+	};
+}

@@ -5,3 +5,4 @@ export * from './relations';
 export * from './setups';
 export * from './gear';
 export * from './shots';
+export * from './workshops';

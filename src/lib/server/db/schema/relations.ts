@@ -5,6 +5,15 @@ import { invitations, memberships, studios } from './studios';
 import { setupRevisions, setups } from './setups';
 import { gear } from './gear';
 import { flashCalibrations, sessionTicks, shootingSessions, shotMeasures, shots } from './shots';
+import {
+	workshopInvitations,
+	workshopJoinRequests,
+	workshopLessons,
+	workshopMembers,
+	workshopSessions,
+	workshopSteps,
+	workshops
+} from './workshops';
 
 export const usersRelations = relations(users, ({ many }) => ({
 	memberships: many(memberships),
@@ -80,4 +89,40 @@ export const flashCalibrationsRelations = relations(flashCalibrations, ({ one })
 
 export const sessionTicksRelations = relations(sessionTicks, ({ one }) => ({
 	session: one(shootingSessions, { fields: [sessionTicks.sessionId], references: [shootingSessions.id] })
+}));
+
+export const workshopsRelations = relations(workshops, ({ one, many }) => ({
+	studio: one(studios, { fields: [workshops.studioId], references: [studios.id] }),
+	sessions: many(workshopSessions),
+	lessons: many(workshopLessons),
+	members: many(workshopMembers),
+	invitations: many(workshopInvitations)
+}));
+
+export const workshopSessionsRelations = relations(workshopSessions, ({ one }) => ({
+	workshop: one(workshops, { fields: [workshopSessions.workshopId], references: [workshops.id] })
+}));
+
+export const workshopLessonsRelations = relations(workshopLessons, ({ one, many }) => ({
+	workshop: one(workshops, { fields: [workshopLessons.workshopId], references: [workshops.id] }),
+	steps: many(workshopSteps)
+}));
+
+export const workshopStepsRelations = relations(workshopSteps, ({ one }) => ({
+	lesson: one(workshopLessons, { fields: [workshopSteps.lessonId], references: [workshopLessons.id] }),
+	setup: one(setups, { fields: [workshopSteps.setupId], references: [setups.id] })
+}));
+
+export const workshopMembersRelations = relations(workshopMembers, ({ one }) => ({
+	workshop: one(workshops, { fields: [workshopMembers.workshopId], references: [workshops.id] }),
+	user: one(users, { fields: [workshopMembers.userId], references: [users.id] })
+}));
+
+export const workshopInvitationsRelations = relations(workshopInvitations, ({ one }) => ({
+	workshop: one(workshops, { fields: [workshopInvitations.workshopId], references: [workshops.id] })
+}));
+
+export const workshopJoinRequestsRelations = relations(workshopJoinRequests, ({ one }) => ({
+	workshop: one(workshops, { fields: [workshopJoinRequests.workshopId], references: [workshops.id] }),
+	user: one(users, { fields: [workshopJoinRequests.userId], references: [users.id] })
 }));

@@ -1,0 +1,488 @@
+// Named queries of the workshops. Services ask authz first and call these; writes that touch several
+// rows run in one transaction here.
+import { and, asc, count, desc, eq, gt, inArray, isNull, or, sql } from 'drizzle-orm';
+import { db, type Tx } from '../index';
+import {
+	setupRevisions,
+	setups,
+	studios,
+	users,
+	workshopInvitations,
+	workshopJoinRequests,
+	workshopLessons,
+	workshopMembers,
+	workshopSessions,
+	workshopSteps,
+	workshops,
+	type NewWorkshop,
+	type WorkshopRole
+} from '../schema';
+import { inStudiosOf, type StudioFilter } from './visibility';
+
+type Runner = typeof db | Tx;
+
+// ---------- workshops ----------
+
+export async function insertWorkshop(values: NewWorkshop) {
+	const [row] = await db.insert(workshops).values(values).returning();
+	return row;
+}
+
+export async function slugTaken(slug: string): Promise<boolean> {
+	const [row] = await db.select({ id: workshops.id }).from(workshops).where(eq(workshops.slug, slug));
+	return Boolean(row);
+}
+
+/** Workshops the caller runs (through the studio) or belongs to (instructor or student), newest first. */
+export async function listWorkshopsFor(userId: string, runs: StudioFilter) {
+	const mine = db.select({ id: workshopMembers.workshopId }).from(workshopMembers).where(eq(workshopMembers.userId, userId));
+	const throughStudio = runs === 'all' ? sql`true` : inStudiosOf(workshops.studioId, runs);
+	return db
+		.select({
+			id: workshops.id,
+			title: workshops.title,
+			state: workshops.state,
+			slug: workshops.slug,
+			capacity: workshops.capacity,
+			studioId: workshops.studioId,
+			studioName: studios.name,
+			role: workshopMembers.role,
+			firstSession: sql<Date | null>`(select min(${workshopSessions.startsAt}) from ${workshopSessions} where ${workshopSessions.workshopId} = ${workshops.id})`.mapWith(
+				(v) => (v ? new Date(v) : null)
+			)
+		})
+		.from(workshops)
+		.innerJoin(studios, eq(studios.id, workshops.studioId))
+		.leftJoin(workshopMembers, and(eq(workshopMembers.workshopId, workshops.id), eq(workshopMembers.userId, userId)))
+		.where(and(isNull(studios.deletedAt), or(throughStudio, inArray(workshops.id, mine))))
+		.orderBy(desc(workshops.createdAt));
+}
+
+export async function findPublishedWorkshopBySlug(slug: string) {
+	const [row] = await db
+		.select({ workshop: workshops, studioName: studios.name })
+		.from(workshops)
+		.innerJoin(studios, eq(studios.id, workshops.studioId))
+		.where(and(eq(workshops.slug, slug), eq(workshops.state, 'published'), isNull(studios.deletedAt)));
+	return row ?? null;
+}
+
+export async function countStudents(workshopId: string, run: Runner = db): Promise<number> {
+	const [row] = await run
+		.select({ n: count() })
+		.from(workshopMembers)
+		.where(and(eq(workshopMembers.workshopId, workshopId), eq(workshopMembers.role, 'student')));
+	return row?.n ?? 0;
+}
+
+/**
+ * Changes a workshop's details, refusing a capacity below the students already enrolled: the count and
+ * the update run in one transaction with the workshop row locked, so an acceptance cannot slip between.
+ */
+export async function updateWorkshopDetails(
+	workshopId: string,
+	values: { title: string; summary: string; capacity: number; state: 'draft' | 'published' | 'archived' }
+): Promise<{ outcome: 'ok' } | { outcome: 'below-enrolled'; enrolled: number } | { outcome: 'no-sessions' }> {
+	return db.transaction(async (tx) => {
+		await tx.select({ id: workshops.id }).from(workshops).where(eq(workshops.id, workshopId)).for('update');
+		const enrolled = await countStudents(workshopId, tx);
+		if (values.capacity < enrolled) return { outcome: 'below-enrolled' as const, enrolled };
+		if (values.state === 'published') {
+			const [s] = await tx.select({ n: count() }).from(workshopSessions).where(eq(workshopSessions.workshopId, workshopId));
+			if (!s?.n) return { outcome: 'no-sessions' as const };
+		}
+		await tx.update(workshops).set({ ...values, updatedAt: new Date() }).where(eq(workshops.id, workshopId));
+		return { outcome: 'ok' as const };
+	});
+}
+
+export async function deleteWorkshopRow(workshopId: string) {
+	await db.delete(workshops).where(eq(workshops.id, workshopId));
+}
+
+// ---------- sessions ----------
+
+export async function listSessions(workshopId: string) {
+	return db.select().from(workshopSessions).where(eq(workshopSessions.workshopId, workshopId)).orderBy(asc(workshopSessions.startsAt));
+}
+
+export async function insertSession(workshopId: string, values: { startsAt: Date; endsAt: Date; place: string }) {
+	const [row] = await db.insert(workshopSessions).values({ workshopId, ...values }).returning();
+	return row;
+}
+
+/** Removes a session unless it is the last of a published workshop. */
+export async function deleteSessionRow(workshopId: string, sessionId: string): Promise<'ok' | 'missing' | 'last-published'> {
+	return db.transaction(async (tx) => {
+		const [w] = await tx.select({ state: workshops.state }).from(workshops).where(eq(workshops.id, workshopId)).for('update');
+		const rows = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, workshopId));
+		if (!rows.some((r) => r.id === sessionId)) return 'missing';
+		if (w?.state === 'published' && rows.length === 1) return 'last-published';
+		await tx.delete(workshopSessions).where(eq(workshopSessions.id, sessionId));
+		return 'ok';
+	});
+}
+
+// ---------- lessons ----------
+
+export async function listLessons(workshopId: string) {
+	return db
+		.select({
+			id: workshopLessons.id,
+			position: workshopLessons.position,
+			title: workshopLessons.title,
+			stepCount: sql<number>`(select count(*) from ${workshopSteps} where ${workshopSteps.lessonId} = ${workshopLessons.id})`.mapWith(Number)
+		})
+		.from(workshopLessons)
+		.where(eq(workshopLessons.workshopId, workshopId))
+		.orderBy(asc(workshopLessons.position), asc(workshopLessons.createdAt));
+}
+
+export async function findLesson(workshopId: string, lessonId: string) {
+	const [row] = await db
+		.select()
+		.from(workshopLessons)
+		.where(and(eq(workshopLessons.id, lessonId), eq(workshopLessons.workshopId, workshopId)));
+	return row ?? null;
+}
+
+export async function insertLesson(workshopId: string, values: { title: string; studentNotes: string; presenterNotes: string }) {
+	return db.transaction(async (tx) => {
+		await tx.select({ id: workshops.id }).from(workshops).where(eq(workshops.id, workshopId)).for('update');
+		const [last] = await tx
+			.select({ max: sql<number | null>`max(${workshopLessons.position})` })
+			.from(workshopLessons)
+			.where(eq(workshopLessons.workshopId, workshopId));
+		const [row] = await tx
+			.insert(workshopLessons)
+			.values({ workshopId, position: (last?.max ?? -1) + 1, ...values })
+			.returning();
+		return row;
+	});
+}
+
+export async function updateLessonRow(lessonId: string, values: { title: string; studentNotes: string; presenterNotes: string }) {
+	await db.update(workshopLessons).set(values).where(eq(workshopLessons.id, lessonId));
+}
+
+export async function deleteLessonRow(lessonId: string) {
+	await db.delete(workshopLessons).where(eq(workshopLessons.id, lessonId));
+}
+
+/**
+ * Rewrites the order of a workshop's lessons in one transaction. The list must name exactly the
+ * workshop's lessons, each once; anything else changes nothing.
+ */
+export async function reorderLessonRows(workshopId: string, lessonIds: string[]): Promise<'ok' | 'mismatch'> {
+	return db.transaction(async (tx) => {
+		const rows = await tx
+			.select({ id: workshopLessons.id })
+			.from(workshopLessons)
+			.where(eq(workshopLessons.workshopId, workshopId))
+			.for('update');
+		if (!sameSet(rows.map((r) => r.id), lessonIds)) return 'mismatch';
+		for (const [position, id] of lessonIds.entries()) {
+			await tx.update(workshopLessons).set({ position }).where(eq(workshopLessons.id, id));
+		}
+		return 'ok';
+	});
+}
+
+function sameSet(have: string[], given: string[]): boolean {
+	return have.length === given.length && new Set(given).size === given.length && given.every((id) => have.includes(id));
+}
+
+// ---------- steps ----------
+
+const stepColumns = {
+	id: workshopSteps.id,
+	lessonId: workshopSteps.lessonId,
+	position: workshopSteps.position,
+	setupId: workshopSteps.setupId,
+	revisionNumber: workshopSteps.revisionNumber,
+	hiddenElementIds: workshopSteps.hiddenElementIds,
+	caption: workshopSteps.caption,
+	setupTitle: setupRevisions.title,
+	setupLatestRevision: setups.latestRevision,
+	document: setupRevisions.document
+};
+
+/** A lesson's steps in order, each with its pinned revision's document and catalogue title. */
+export async function listStepsWithRevisions(lessonIds: string[]) {
+	if (!lessonIds.length) return [];
+	return db
+		.select(stepColumns)
+		.from(workshopSteps)
+		.innerJoin(setups, eq(setups.id, workshopSteps.setupId))
+		.innerJoin(
+			setupRevisions,
+			and(eq(setupRevisions.setupId, workshopSteps.setupId), eq(setupRevisions.number, workshopSteps.revisionNumber))
+		)
+		.where(inArray(workshopSteps.lessonId, lessonIds))
+		.orderBy(asc(workshopSteps.position), asc(workshopSteps.createdAt));
+}
+export type StepRow = Awaited<ReturnType<typeof listStepsWithRevisions>>[number];
+
+/** One step with the workshop and lesson it belongs to. */
+export async function findStepPlace(stepId: string) {
+	const [row] = await db
+		.select({ stepId: workshopSteps.id, lessonId: workshopLessons.id, workshopId: workshopLessons.workshopId })
+		.from(workshopSteps)
+		.innerJoin(workshopLessons, eq(workshopLessons.id, workshopSteps.lessonId))
+		.where(eq(workshopSteps.id, stepId));
+	return row ?? null;
+}
+
+export async function findStepWithRevision(stepId: string) {
+	const [row] = await db
+		.select(stepColumns)
+		.from(workshopSteps)
+		.innerJoin(setups, eq(setups.id, workshopSteps.setupId))
+		.innerJoin(
+			setupRevisions,
+			and(eq(setupRevisions.setupId, workshopSteps.setupId), eq(setupRevisions.number, workshopSteps.revisionNumber))
+		)
+		.where(eq(workshopSteps.id, stepId));
+	return row ?? null;
+}
+
+export async function insertStep(
+	lessonId: string,
+	values: { setupId: string; revisionNumber: number; hiddenElementIds: string[]; caption: string }
+) {
+	return db.transaction(async (tx) => {
+		await tx.select({ id: workshopLessons.id }).from(workshopLessons).where(eq(workshopLessons.id, lessonId)).for('update');
+		const [last] = await tx
+			.select({ max: sql<number | null>`max(${workshopSteps.position})`, n: count() })
+			.from(workshopSteps)
+			.where(eq(workshopSteps.lessonId, lessonId));
+		const [row] = await tx
+			.insert(workshopSteps)
+			.values({ lessonId, position: (last?.max ?? -1) + 1, ...values })
+			.returning();
+		return { row, count: (last?.n ?? 0) + 1 };
+	});
+}
+
+export async function updateStepRow(
+	stepId: string,
+	values: Partial<{ revisionNumber: number; hiddenElementIds: string[]; caption: string }>
+) {
+	await db.update(workshopSteps).set(values).where(eq(workshopSteps.id, stepId));
+}
+
+export async function deleteStepRow(stepId: string) {
+	await db.delete(workshopSteps).where(eq(workshopSteps.id, stepId));
+}
+
+/**
+ * Rewrites the order of a lesson's steps in one transaction. The list must name exactly the lesson's
+ * steps, each once: a step of another lesson, a missing or a repeated one changes nothing.
+ */
+export async function reorderStepRows(lessonId: string, stepIds: string[]): Promise<'ok' | 'mismatch'> {
+	return db.transaction(async (tx) => {
+		const rows = await tx
+			.select({ id: workshopSteps.id })
+			.from(workshopSteps)
+			.where(eq(workshopSteps.lessonId, lessonId))
+			.for('update');
+		if (!sameSet(rows.map((r) => r.id), stepIds)) return 'mismatch';
+		for (const [position, id] of stepIds.entries()) {
+			await tx.update(workshopSteps).set({ position }).where(eq(workshopSteps.id, id));
+		}
+		return 'ok';
+	});
+}
+
+// ---------- live position ----------
+
+export async function setLivePosition(workshopId: string, lessonId: string | null, stepId: string | null) {
+	const [row] = await db
+		.update(workshops)
+		.set({ liveLessonId: lessonId, liveStepId: stepId, liveUpdatedAt: new Date() })
+		.where(eq(workshops.id, workshopId))
+		.returning({ liveLessonId: workshops.liveLessonId, liveStepId: workshops.liveStepId, liveUpdatedAt: workshops.liveUpdatedAt });
+	return row ?? null;
+}
+
+// ---------- people ----------
+
+export async function listRoster(workshopId: string) {
+	return db
+		.select({
+			id: workshopMembers.id,
+			userId: users.id,
+			name: users.name,
+			email: users.email,
+			role: workshopMembers.role,
+			joinedAt: workshopMembers.joinedAt,
+			lastSeenAt: workshopMembers.lastSeenAt
+		})
+		.from(workshopMembers)
+		.innerJoin(users, eq(users.id, workshopMembers.userId))
+		.where(eq(workshopMembers.workshopId, workshopId))
+		.orderBy(asc(workshopMembers.role), asc(users.email));
+}
+
+export async function deleteMemberRow(workshopId: string, memberId: string) {
+	const rows = await db
+		.delete(workshopMembers)
+		.where(and(eq(workshopMembers.id, memberId), eq(workshopMembers.workshopId, workshopId)))
+		.returning({ id: workshopMembers.id });
+	return rows.length > 0;
+}
+
+/** Notes that a member opened the workshop, at most once a minute. */
+export async function touchMember(memberId: string) {
+	await db
+		.update(workshopMembers)
+		.set({ lastSeenAt: new Date() })
+		.where(
+			and(
+				eq(workshopMembers.id, memberId),
+				or(isNull(workshopMembers.lastSeenAt), sql`${workshopMembers.lastSeenAt} < now() - interval '1 minute'`)
+			)
+		);
+}
+
+/** The roles held in a workshop by whoever has these addresses. */
+export async function memberRolesByEmail(workshopId: string, emails: string[]) {
+	if (!emails.length) return new Map<string, WorkshopRole>();
+	const rows = await db
+		.select({ email: users.email, role: workshopMembers.role })
+		.from(workshopMembers)
+		.innerJoin(users, eq(users.id, workshopMembers.userId))
+		.where(and(eq(workshopMembers.workshopId, workshopId), inArray(users.email, emails)));
+	return new Map(rows.map((r) => [r.email, r.role]));
+}
+
+export async function insertWorkshopInvitations(rows: (typeof workshopInvitations.$inferInsert)[]) {
+	if (!rows.length) return [];
+	return db.insert(workshopInvitations).values(rows).returning();
+}
+
+export async function listOpenWorkshopInvitations(workshopId: string) {
+	return db
+		.select({ id: workshopInvitations.id, email: workshopInvitations.email, role: workshopInvitations.role, expiresAt: workshopInvitations.expiresAt, createdAt: workshopInvitations.createdAt })
+		.from(workshopInvitations)
+		.where(
+			and(
+				eq(workshopInvitations.workshopId, workshopId),
+				isNull(workshopInvitations.acceptedAt),
+				isNull(workshopInvitations.revokedAt),
+				gt(workshopInvitations.expiresAt, new Date())
+			)
+		)
+		.orderBy(desc(workshopInvitations.createdAt));
+}
+
+export async function revokeWorkshopInvitationRow(workshopId: string, invitationId: string) {
+	const rows = await db
+		.update(workshopInvitations)
+		.set({ revokedAt: new Date() })
+		.where(
+			and(
+				eq(workshopInvitations.id, invitationId),
+				eq(workshopInvitations.workshopId, workshopId),
+				isNull(workshopInvitations.acceptedAt),
+				isNull(workshopInvitations.revokedAt)
+			)
+		)
+		.returning({ id: workshopInvitations.id });
+	return rows.length > 0;
+}
+
+export async function findWorkshopInvitationByHash(tokenHash: string) {
+	const [row] = await db
+		.select({ invitation: workshopInvitations, workshop: workshops, studioDeletedAt: studios.deletedAt })
+		.from(workshopInvitations)
+		.innerJoin(workshops, eq(workshops.id, workshopInvitations.workshopId))
+		.innerJoin(studios, eq(studios.id, workshops.studioId))
+		.where(eq(workshopInvitations.tokenHash, tokenHash));
+	return row ?? null;
+}
+
+export type JoinOutcome = 'joined' | 'already' | 'full' | 'gone';
+
+/**
+ * Adds someone to a workshop in one transaction with the workshop row locked: a student only while a
+ * seat is left. `before` runs first inside the same transaction (marking an invitation used or a
+ * request accepted) and may refuse with 'gone'.
+ */
+export async function addMember(
+	workshopId: string,
+	userId: string,
+	role: WorkshopRole,
+	before: (tx: Tx) => Promise<boolean> = async () => true
+): Promise<JoinOutcome> {
+	return db.transaction(async (tx) => {
+		const [w] = await tx.select({ capacity: workshops.capacity }).from(workshops).where(eq(workshops.id, workshopId)).for('update');
+		if (!w) return 'gone';
+		const [existing] = await tx
+			.select()
+			.from(workshopMembers)
+			.where(and(eq(workshopMembers.workshopId, workshopId), eq(workshopMembers.userId, userId)));
+		if (existing && (existing.role === role || existing.role === 'instructor')) {
+			return (await before(tx)) ? 'already' : 'gone';
+		}
+		if (role === 'student' && (await countStudents(workshopId, tx)) >= w.capacity) return 'full';
+		if (!(await before(tx))) return 'gone';
+		if (existing) await tx.update(workshopMembers).set({ role }).where(eq(workshopMembers.id, existing.id));
+		else await tx.insert(workshopMembers).values({ workshopId, userId, role });
+		return 'joined';
+	});
+}
+
+/** Marks an open, unexpired invitation used (inside addMember's transaction); false when it is not open. */
+export async function consumeWorkshopInvitation(tx: Tx, invitationId: string, userId: string): Promise<boolean> {
+	const [inv] = await tx.select().from(workshopInvitations).where(eq(workshopInvitations.id, invitationId)).for('update');
+	if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt.getTime() <= Date.now()) return false;
+	await tx.update(workshopInvitations).set({ acceptedAt: new Date(), acceptedById: userId }).where(eq(workshopInvitations.id, inv.id));
+	return true;
+}
+
+// ---------- requests to join ----------
+
+export async function insertJoinRequest(workshopId: string, userId: string, message: string) {
+	const rows = await db
+		.insert(workshopJoinRequests)
+		.values({ workshopId, userId, message })
+		.onConflictDoNothing()
+		.returning();
+	return rows[0] ?? null;
+}
+
+export async function openJoinRequestOf(workshopId: string, userId: string) {
+	const [row] = await db
+		.select()
+		.from(workshopJoinRequests)
+		.where(and(eq(workshopJoinRequests.workshopId, workshopId), eq(workshopJoinRequests.userId, userId), isNull(workshopJoinRequests.decision)));
+	return row ?? null;
+}
+
+export async function listOpenJoinRequests(workshopId: string) {
+	return db
+		.select({ id: workshopJoinRequests.id, userId: users.id, name: users.name, email: users.email, message: workshopJoinRequests.message, createdAt: workshopJoinRequests.createdAt })
+		.from(workshopJoinRequests)
+		.innerJoin(users, eq(users.id, workshopJoinRequests.userId))
+		.where(and(eq(workshopJoinRequests.workshopId, workshopId), isNull(workshopJoinRequests.decision)))
+		.orderBy(asc(workshopJoinRequests.createdAt));
+}
+
+export async function findOpenJoinRequest(workshopId: string, requestId: string) {
+	const [row] = await db
+		.select()
+		.from(workshopJoinRequests)
+		.where(and(eq(workshopJoinRequests.id, requestId), eq(workshopJoinRequests.workshopId, workshopId), isNull(workshopJoinRequests.decision)));
+	return row ?? null;
+}
+
+/** Decides an open request (inside addMember's transaction for an acceptance); false when already decided. */
+export async function decideJoinRequest(requestId: string, decision: 'accepted' | 'declined', deciderId: string, run: Runner = db): Promise<boolean> {
+	const rows = await run
+		.update(workshopJoinRequests)
+		.set({ decision, decidedAt: new Date(), decidedById: deciderId })
+		.where(and(eq(workshopJoinRequests.id, requestId), isNull(workshopJoinRequests.decision)))
+		.returning({ id: workshopJoinRequests.id });
+	return rows.length > 0;
+}

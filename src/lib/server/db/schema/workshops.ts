@@ -1,0 +1,216 @@
+// Workshops: a course run by a studio, its dated sessions, lessons in order and steps that pin one
+// revision of a setup, the people who run or follow it, invitations and requests to join.
+import { sql, type SQL } from 'drizzle-orm';
+import {
+	check,
+	foreignKey,
+	index,
+	integer,
+	pgTable,
+	text,
+	timestamp,
+	uniqueIndex,
+	uuid,
+	type AnyPgColumn
+} from 'drizzle-orm/pg-core';
+import { users } from './auth';
+import { studios } from './studios';
+import { setupRevisions, setups } from './setups';
+
+import { WORKSHOP_STATES, type WorkshopState } from '../../../workshops/states';
+
+export { WORKSHOP_STATES, type WorkshopState };
+
+/**
+ * Roles held in one workshop. Studio owners and editors run every workshop of their studio without a
+ * row here; an instructor row lets someone else run this one, a student row lets someone follow it.
+ */
+export const WORKSHOP_ROLES = ['instructor', 'student'] as const;
+export type WorkshopRole = (typeof WORKSHOP_ROLES)[number];
+
+const inList = (column: AnyPgColumn, values: readonly string[]): SQL =>
+	sql`${column} in (${sql.raw(values.map((v) => `'${v}'`).join(', '))})`;
+
+export const workshops = pgTable(
+	'workshops',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		studioId: uuid()
+			.notNull()
+			.references(() => studios.id, { onDelete: 'cascade' }),
+		/** The public page's address, /w/<slug>; unique across the site. */
+		slug: text().notNull().unique(),
+		title: text().notNull(),
+		/** Markdown, rendered sanitised. */
+		summary: text().notNull().default(''),
+		/** Students at most (instructors not counted). */
+		capacity: integer().notNull(),
+		state: text().$type<WorkshopState>().notNull().default('draft'),
+		/** The live session's current position, moved by an instructor (setLiveStep); null when not live. */
+		liveLessonId: uuid().references((): AnyPgColumn => workshopLessons.id, { onDelete: 'set null' }),
+		liveStepId: uuid().references((): AnyPgColumn => workshopSteps.id, { onDelete: 'set null' }),
+		liveUpdatedAt: timestamp({ withTimezone: true }),
+		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [
+		index('workshops_studio_idx').on(t.studioId),
+		check('workshops_state_check', inList(t.state, WORKSHOP_STATES)),
+		check('workshops_capacity_check', sql`${t.capacity} between 1 and 10000`)
+	]
+);
+
+/** One dated meeting of a workshop, with its place. */
+export const workshopSessions = pgTable(
+	'workshop_sessions',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		workshopId: uuid()
+			.notNull()
+			.references(() => workshops.id, { onDelete: 'cascade' }),
+		startsAt: timestamp({ withTimezone: true }).notNull(),
+		endsAt: timestamp({ withTimezone: true }).notNull(),
+		place: text().notNull()
+	},
+	(t) => [
+		index('workshop_sessions_workshop_idx').on(t.workshopId, t.startsAt),
+		check('workshop_sessions_order_check', sql`${t.endsAt} > ${t.startsAt}`)
+	]
+);
+
+export const workshopLessons = pgTable(
+	'workshop_lessons',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		workshopId: uuid()
+			.notNull()
+			.references(() => workshops.id, { onDelete: 'cascade' }),
+		/** Order within the workshop, from 0; rewritten whole by a reorder. */
+		position: integer().notNull(),
+		title: text().notNull(),
+		/** Markdown for students. */
+		studentNotes: text().notNull().default(''),
+		/** Markdown for the presenter only: never sent to a student. */
+		presenterNotes: text().notNull().default(''),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('workshop_lessons_workshop_idx').on(t.workshopId, t.position)]
+);
+
+/**
+ * A step shows one pinned revision of a setup (the composite key makes a revision that does not exist
+ * unstorable) with some of its elements hidden, and a caption.
+ */
+export const workshopSteps = pgTable(
+	'workshop_steps',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		lessonId: uuid()
+			.notNull()
+			.references(() => workshopLessons.id, { onDelete: 'cascade' }),
+		position: integer().notNull(),
+		setupId: uuid()
+			.notNull()
+			.references(() => setups.id, { onDelete: 'cascade' }),
+		revisionNumber: integer().notNull(),
+		/** Plan element ids left out of this step's drawing and exposure; the rest is shown. */
+		hiddenElementIds: text().array().notNull().default(sql`'{}'::text[]`),
+		caption: text().notNull().default(''),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [
+		index('workshop_steps_lesson_idx').on(t.lessonId, t.position),
+		index('workshop_steps_setup_idx').on(t.setupId),
+		foreignKey({
+			columns: [t.setupId, t.revisionNumber],
+			foreignColumns: [setupRevisions.setupId, setupRevisions.number],
+			name: 'workshop_steps_revision_fk'
+		}).onDelete('cascade')
+	]
+);
+
+/** Instructors added by the studio, and students. */
+export const workshopMembers = pgTable(
+	'workshop_members',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		workshopId: uuid()
+			.notNull()
+			.references(() => workshops.id, { onDelete: 'cascade' }),
+		userId: uuid()
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		role: text().$type<WorkshopRole>().notNull(),
+		joinedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		/** Noted at most once a minute while they open the workshop. */
+		lastSeenAt: timestamp({ withTimezone: true })
+	},
+	(t) => [
+		uniqueIndex('workshop_members_workshop_user_idx').on(t.workshopId, t.userId),
+		index('workshop_members_user_idx').on(t.userId),
+		check('workshop_members_role_check', inList(t.role, WORKSHOP_ROLES))
+	]
+);
+
+/** Single-use, expiring invitations by e-mail; only a sha-256 of the link's token is kept. */
+export const workshopInvitations = pgTable(
+	'workshop_invitations',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		workshopId: uuid()
+			.notNull()
+			.references(() => workshops.id, { onDelete: 'cascade' }),
+		email: text().notNull(),
+		role: text().$type<WorkshopRole>().notNull().default('student'),
+		tokenHash: text().notNull().unique(),
+		invitedById: uuid().references(() => users.id, { onDelete: 'set null' }),
+		expiresAt: timestamp({ withTimezone: true }).notNull(),
+		acceptedAt: timestamp({ withTimezone: true }),
+		acceptedById: uuid().references(() => users.id, { onDelete: 'set null' }),
+		revokedAt: timestamp({ withTimezone: true }),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [
+		index('workshop_invitations_workshop_idx').on(t.workshopId),
+		check('workshop_invitations_role_check', inList(t.role, WORKSHOP_ROLES))
+	]
+);
+
+export const JOIN_DECISIONS = ['accepted', 'declined'] as const;
+export type JoinDecision = (typeof JOIN_DECISIONS)[number];
+
+/** "Ask to join" from the public page; an instructor accepts or declines it on the roster. */
+export const workshopJoinRequests = pgTable(
+	'workshop_join_requests',
+	{
+		id: uuid().primaryKey().defaultRandom(),
+		workshopId: uuid()
+			.notNull()
+			.references(() => workshops.id, { onDelete: 'cascade' }),
+		userId: uuid()
+			.notNull()
+			.references(() => users.id, { onDelete: 'cascade' }),
+		message: text().notNull().default(''),
+		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		decision: text().$type<JoinDecision>(),
+		decidedAt: timestamp({ withTimezone: true }),
+		decidedById: uuid().references(() => users.id, { onDelete: 'set null' })
+	},
+	(t) => [
+		// One open request per person and workshop.
+		uniqueIndex('workshop_join_requests_open_idx')
+			.on(t.workshopId, t.userId)
+			.where(sql`${t.decision} is null`),
+		check('workshop_join_requests_decision_check', sql`${t.decision} is null or ${t.decision} in ('accepted', 'declined')`)
+	]
+);
+
+export type Workshop = typeof workshops.$inferSelect;
+export type NewWorkshop = typeof workshops.$inferInsert;
+export type WorkshopSession = typeof workshopSessions.$inferSelect;
+export type WorkshopLesson = typeof workshopLessons.$inferSelect;
+export type WorkshopStep = typeof workshopSteps.$inferSelect;
+export type WorkshopMember = typeof workshopMembers.$inferSelect;
+export type WorkshopInvitation = typeof workshopInvitations.$inferSelect;
+export type WorkshopJoinRequest = typeof workshopJoinRequests.$inferSelect;

@@ -1,0 +1,5 @@
+// The workshop services, in one import for pages and routes.
+export * from './workshops';
+export * from './lessons';
+export * from './live-position';
+export * from './students';
