@@ -15,11 +15,11 @@ class FakeSource {
 	onopen: ((ev: Event) => unknown) | null = null;
 	onerror: ((ev: Event) => unknown) | null = null;
 	closed = false;
-	#listeners: ((ev: Event) => void)[] = [];
+	#listeners: ((ev: MessageEvent) => void)[] = [];
 	constructor(readonly url: string) {
 		FakeSource.made.push(this);
 	}
-	addEventListener(_name: string, fn: (ev: Event) => void) {
+	addEventListener(_name: string, fn: (ev: MessageEvent) => void) {
 		this.#listeners.push(fn);
 	}
 	close() {

@@ -11,10 +11,14 @@ import { LIVE_EVENT, parseLivePosition, RETRY_MS, type LivePosition } from './li
 
 export type Connection = 'connecting' | 'open' | 'reconnecting';
 
-type EventSourceLike = Pick<EventSource, 'addEventListener' | 'close' | 'readyState'> & {
+/** What this uses of EventSource (the browser's, or a stand-in in tests). */
+interface EventSourceLike {
+	readonly readyState: number;
 	onopen: ((ev: Event) => unknown) | null;
 	onerror: ((ev: Event) => unknown) | null;
-};
+	addEventListener(type: string, listener: (event: MessageEvent) => void): void;
+	close(): void;
+}
 
 export interface FollowOptions {
 	url: string;
@@ -65,7 +69,7 @@ export class FollowLive {
 				this.#retry = setTimeout(() => this.connect(), this.#options.retryMs ?? RETRY_MS);
 			}
 		};
-		source.addEventListener(LIVE_EVENT, (event) => this.#receive((event as MessageEvent).data));
+		source.addEventListener(LIVE_EVENT, (event) => this.#receive(event.data));
 	}
 
 	#receive(data: unknown) {

@@ -4,8 +4,9 @@ import { requireUser } from '$lib/server/authz';
 import { apiRoute } from '$lib/server/http';
 import { followResponse, liveHub } from '$lib/server/live';
 import { livePosition, mayFollow } from '$lib/server/live/present-data';
+import type { RequestHandler } from './$types';
 
-export const GET = apiRoute(async ({ params, request, locals }) => {
+export const GET: RequestHandler = apiRoute(async ({ params, request, locals }) => {
 	const user = requireUser(locals.user);
 	await mayFollow(user, params.id);
 	const hub = await liveHub();
