@@ -18,6 +18,7 @@ const { client, db } = await import('$lib/server/db');
 const { workshopMembers } = await import('$lib/server/db/schema');
 const { baseUrl, makeUser, sampleDocument } = await import('$lib/server/testing/notebook-fixtures');
 const { createSetup } = await import('$lib/server/setups');
+const { setupCreateSchema } = await import('$lib/scene/inputs');
 const { createWorkshop, addLesson, addStep } = await import('$lib/server/workshops');
 
 function pgCtl(args: string[]) {
@@ -105,7 +106,10 @@ beforeAll(async () => {
 	const instructor = await makeUser('live-instructor');
 	const student = await makeUser('live-student');
 	const stranger = await makeUser('live-stranger');
-	const setup = await createSetup(instructor.user, { studioId: instructor.personalStudioId, title: 'Quartz for the live test', subject: 'Quartz cluster', tags: [], document: sampleDocument() });
+	const setup = await createSetup(
+		instructor.user,
+		setupCreateSchema.parse({ studioId: instructor.personalStudioId, title: 'Quartz for the live test', subject: 'Quartz cluster', document: sampleDocument() })
+	);
 	const workshop = await createWorkshop(instructor.user, { studioId: instructor.personalStudioId, title: 'Live test workshop', summary: '', capacity: 12 });
 	const lesson = await addLesson(instructor.user, workshop.id, { title: 'Key and card', studentNotes: '', presenterNotes: 'Say why the card helps.' });
 	const one = await addStep(instructor.user, workshop.id, lesson.id, { setupId: setup.id, revisionNumber: 1, hiddenElementIds: ['card'], caption: 'The key alone' });
