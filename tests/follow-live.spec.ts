@@ -1,9 +1,10 @@
 // Following live in a real browser: an invited student, in a second browser context at phone width,
 // follows the instructor's steps as the instructor presents, without reloading; looks around and
 // rejoins on the current step.
-import { expect, signIn, test } from './fixtures';
-import { CAPTIONS, enrol, makeLiveWorld, sql } from './live-world';
-import { signedInAs } from './fixtures';
+import { expect, signedInAs, signIn, test } from './fixtures';
+import { accessibilityProblems, CAPTIONS, enrol, makeLiveWorld, openDb } from './live-world';
+
+const sql = openDb();
 import { randomUUID } from 'node:crypto';
 
 const OWNER = 'mara.quill@fernhill.example';
@@ -14,14 +15,14 @@ test.afterAll(async () => {
 
 test('a student follows the instructor live, looks around and rejoins', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const world = await makeLiveWorld(page.request, 'Follow test workshop');
+	const world = await makeLiveWorld(sql, page.request, 'Follow test workshop');
 
 	// The student: a new address signed in through the mail flow, then enrolled in the workshop.
 	const studentEmail = `student+${randomUUID().slice(0, 8)}@fernhill.example`;
 	const studentContext = await browser.newContext({ baseURL, viewport: { width: 390, height: 844 } });
 	const student = await studentContext.newPage();
 	await signIn(student, studentEmail, '/');
-	await enrol(world.workshopId, studentEmail);
+	await enrol(sql, world.workshopId, studentEmail);
 	await student.goto(`/workshops/${world.workshopId}/follow`);
 	await expect(student.getByTestId('follow-status')).toHaveText(/not presenting|Live/);
 	// Marks this page load: a reload would lose it.
@@ -36,6 +37,7 @@ test('a student follows the instructor live, looks around and rejoins', async ({
 	await page.keyboard.press('ArrowRight');
 	await expect(shown).toHaveText(CAPTIONS[1]);
 	await expect(student.getByTestId('present-offset')).toBeVisible();
+	expect(await accessibilityProblems(student)).toEqual([]);
 
 	// The student looks around (the first step), the instructor moves on: the student stays, told where the instructor is.
 	await student.getByRole('button', { name: new RegExp(`^1\\. ${CAPTIONS[0]}`) }).click();
@@ -58,7 +60,7 @@ test('a student follows the instructor live, looks around and rejoins', async ({
 
 test('someone who is not in the workshop cannot follow it', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const world = await makeLiveWorld(page.request, 'Closed workshop');
+	const world = await makeLiveWorld(sql, page.request, 'Closed workshop');
 	const strangerContext = await browser.newContext({ baseURL });
 	const stranger = await strangerContext.newPage();
 	await signIn(stranger, `stranger+${randomUUID().slice(0, 8)}@fernhill.example`, '/');

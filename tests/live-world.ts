@@ -5,12 +5,17 @@
 // them); people are signed in through the real mail flow.
 import postgres from 'postgres';
 import { randomUUID } from 'node:crypto';
-import type { APIRequestContext } from '@playwright/test';
+import AxeBuilder from '@axe-core/playwright';
+import type { APIRequestContext, Page } from '@playwright/test';
 import { expect } from './fixtures';
 
 const databaseUrl = process.env.DATABASE_URL;
 if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the browser tests through `npm test`.');
-export const sql = postgres(databaseUrl, { max: 2, onnotice: () => {} });
+/** A connection for one spec file (each ends its own in afterAll: the files share this module in one worker). */
+export function openDb() {
+	return postgres(databaseUrl!, { max: 2, onnotice: () => {} });
+}
+export type Db = ReturnType<typeof openDb>;
 
 /** The seeded "Quartz cluster on black velvet" (src/lib/server/seed/notebook-data.ts). */
 const QUARTZ_ID = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
@@ -25,7 +30,7 @@ export interface LiveWorld {
 }
 
 /** Builds the world as the signed-in owner (`request` carries Mara's session). */
-export async function makeLiveWorld(request: APIRequestContext, title = 'Small Light, Big Detail (test)'): Promise<LiveWorld> {
+export async function makeLiveWorld(sql: Db, request: APIRequestContext, title = 'Small Light, Big Detail (test)'): Promise<LiveWorld> {
 	const dup = await request.post(`/api/v1/setups/${QUARTZ_ID}/duplicate`, { data: { subject: `Quartz cluster (live test ${randomUUID().slice(0, 8)})` } });
 	expect(dup.status()).toBe(201);
 	const setupId = ((await dup.json()) as { id: string }).id;
@@ -58,7 +63,15 @@ export async function makeLiveWorld(request: APIRequestContext, title = 'Small L
 }
 
 /** Makes a signed-in person a student of the workshop (as accepting an invitation does). */
-export async function enrol(workshopId: string, email: string) {
+export async function enrol(sql: Db, workshopId: string, email: string) {
 	const [user] = await sql`select id from users where email = ${email}`;
 	await sql`insert into workshop_members (workshop_id, user_id, role) values (${workshopId}, ${user.id}, 'student') on conflict do nothing`;
+}
+
+/** Serious and critical axe findings (WCAG 2.1 A and AA) on the page as it is now, as "rule: element". */
+export async function accessibilityProblems(page: Page): Promise<string[]> {
+	const { violations } = await new AxeBuilder({ page }).withTags(['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa']).analyze();
+	return violations
+		.filter((v) => v.impact === 'serious' || v.impact === 'critical')
+		.flatMap((v) => v.nodes.map((n) => `${v.id}: ${n.target.join(' ')}`));
 }

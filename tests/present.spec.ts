@@ -2,7 +2,9 @@
 // alone, key + card, key + card + flag) presented with the keyboard, the key light moved and its power
 // changed live with the numbers following, and the presenter window following the projector both ways.
 import { expect, signedInAs, test } from './fixtures';
-import { CAPTIONS, makeLiveWorld, sql } from './live-world';
+import { accessibilityProblems, CAPTIONS, makeLiveWorld, openDb } from './live-world';
+
+const sql = openDb();
 import type { Page } from '@playwright/test';
 
 const OWNER = 'mara.quill@fernhill.example';
@@ -19,7 +21,7 @@ async function offset(page: Page): Promise<number> {
 
 test('presents a lesson with the keyboard, shows each step’s lights, moves the key live, and the presenter window follows', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const world = await makeLiveWorld(page.request);
+	const world = await makeLiveWorld(sql, page.request);
 	await page.goto(`/workshops/${world.workshopId}/present/${world.lessonId}`);
 	const view = page.getByTestId('present-view');
 	const caption = page.getByTestId('present-caption');
@@ -29,6 +31,7 @@ test('presents a lesson with the keyboard, shows each step’s lights, moves the
 	// The dim room is the default: dark paper and light ink.
 	await expect(view).toHaveClass(/\bdark\b/);
 	await expect(page.getByTestId('live-status')).toHaveText('Live for followers');
+	expect(await accessibilityProblems(page)).toEqual([]);
 
 	// The key alone: no card in the exposure, so there is no fill and the offset is the key's.
 	const keyAlone = await offset(page);
@@ -75,9 +78,11 @@ test('presents a lesson with the keyboard, shows each step’s lights, moves the
 	const read = async (name: string) => Number(await plan.getAttribute(name));
 	const [zoom, panX, panY] = [await read('data-zoom'), await read('data-pan-x'), await read('data-pan-y')];
 	const at = (x: number, y: number) => ({ x: box.x + panX + x * zoom, y: box.y + panY + y * zoom });
-	// The seeded key stands at (−30 cm, 20 cm); grab it 2 cm inside its softbox, towards the subject.
-	const from = at(-0.3 + 0.02 * 0.83, 0.2 - 0.02 * 0.55);
-	const to = at(-0.6 + 0.02 * 0.83, 0.4 - 0.02 * 0.55);
+	// The seeded key's softbox front stands at (−30 cm, 20 cm); grab it 3 cm behind the front (inside the
+	// softbox as drawn, away from the subject) and move that point twice as far out.
+	const [ux, uy] = [-0.3 / Math.hypot(0.3, 0.2), 0.2 / Math.hypot(0.3, 0.2)];
+	const from = at(-0.3 + 0.03 * ux, 0.2 + 0.03 * uy);
+	const to = at(-0.6 + 0.03 * ux, 0.4 + 0.03 * uy);
 	await page.mouse.move(from.x, from.y);
 	await page.keyboard.down('Alt');
 	await page.mouse.down();
@@ -94,6 +99,7 @@ test('presents a lesson with the keyboard, shows each step’s lights, moves the
 	await expect(presenter.getByTestId('presenter-notes')).toContainText('Ask the hall which side is darker');
 	await expect(presenter.getByTestId('presenter-next')).toHaveText(CAPTIONS[1]);
 	await expect(presenter.getByTestId('presenter-elapsed')).toHaveText(/^0:0\d:\d\d$/);
+	expect(await accessibilityProblems(presenter)).toEqual([]);
 	await page.bringToFront();
 	await page.keyboard.press('PageDown');
 	await expect(caption).toHaveText(CAPTIONS[1]);
@@ -114,7 +120,7 @@ test('presents a lesson with the keyboard, shows each step’s lights, moves the
 
 test('keeps a what-if as a new revision of the step’s setup, with a note, and the lesson keeps its pin', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
-	const world = await makeLiveWorld(page.request, 'Keep test workshop');
+	const world = await makeLiveWorld(sql, page.request, 'Keep test workshop');
 	const [{ latest }] = await sql`select latest_revision as latest from setups where id = ${world.setupId}`;
 	await page.goto(`/workshops/${world.workshopId}/present/${world.lessonId}`);
 	await expect(page.getByTestId('present-caption')).toHaveText(CAPTIONS[0]);
