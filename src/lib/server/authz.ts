@@ -44,8 +44,8 @@ const viewer: Capability[] = ['studio.view', 'members.view', 'setups.view', 'set
 const editor: Capability[] = [...viewer, 'setups.edit', 'gear.edit', 'shots.edit'];
 
 /**
- * What each role may do. Workshop roles (instructor, student) are added as new keys here with
- * workshop capabilities; the membership rows and the checks below do not change shape.
+ * What each studio role may do. Workshop roles (instructor, student) belong to one workshop and have
+ * their own table below (WORKSHOP_ROLE_CAPABILITIES): a student is never a member of the studio.
  */
 export const ROLE_CAPABILITIES: Record<StudioRole, ReadonlySet<Capability>> = {
 	viewer: new Set(viewer),

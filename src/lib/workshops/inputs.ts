@@ -68,6 +68,8 @@ export const sessionSchema = z
 		place: z.string({ error: 'Say where it takes place.' }).trim().min(1, 'Say where it takes place.').max(200, 'A place has at most 200 characters.')
 	})
 	.superRefine((s, ctx) => {
+		// Runs even when a field failed its own check: compare only two real moments.
+		if (!(s.startsAt instanceof Date) || !(s.endsAt instanceof Date)) return;
 		if (s.endsAt.getTime() <= s.startsAt.getTime()) {
 			ctx.addIssue({ code: 'custom', path: ['endsAt'], message: 'The end must come after the start.' });
 		} else if (s.endsAt.getTime() - s.startsAt.getTime() > 7 * 24 * 3600_000) {

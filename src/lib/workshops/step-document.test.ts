@@ -59,7 +59,7 @@ describe('a step shows some elements of one revision', () => {
 		const byHand = computeExposure({ ...doc.scene, lights: [doc.scene.lights[0]], flags: [] });
 		expect(alone.ok).toBe(true);
 		if (!alone.ok) return;
-		expect(alone.result.total.exposureOffsetStops).toBeCloseTo(byHand.total.exposureOffsetStops, 10);
+		expect(alone.result.total.exposureOffsetStops).toBeCloseTo(byHand.total.exposureOffsetStops!, 10);
 		expect(alone.result.lights.map((l) => l.id)).toEqual(['key']);
 	});
 
@@ -70,8 +70,8 @@ describe('a step shows some elements of one revision', () => {
 		const all = stepExposure(doc, []);
 		if (!alone.ok || !withCard.ok || !all.ok) throw new Error('every step computes');
 		// A diffuse card lit by the key adds light at the subject (inverse-square bounce, common practice).
-		expect(withCard.result.total.exposureOffsetStops).toBeGreaterThan(alone.result.total.exposureOffsetStops);
-		expect(all.result.total.exposureOffsetStops).toBeCloseTo(withCard.result.total.exposureOffsetStops, 10);
+		expect(withCard.result.total.exposureOffsetStops).toBeGreaterThan(alone.result.total.exposureOffsetStops!);
+		expect(all.result.total.exposureOffsetStops).toBeCloseTo(withCard.result.total.exposureOffsetStops!, 10);
 	});
 
 	it('hiding every light leaves a scene the engine still answers (no light at the subject)', () => {

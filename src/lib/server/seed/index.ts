@@ -5,6 +5,7 @@ import { db } from '$lib/server/db';
 import { memberships, studios, users, type StudioRole } from '$lib/server/db/schema';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
 import { seedNotebook } from './notebook';
+import { DEMO_STUDENT, seedWorkshop } from './workshop';
 
 export const CLUB_STUDIO_ID = '0f3e8a52-6d1b-4c8e-9a51-2f7c0d4b9e11';
 export const CLUB_STUDIO_NAME = 'Fernhill Geology Circle';
@@ -44,5 +45,7 @@ export async function seedDemo() {
 		});
 	}
 	const notebook = await seedNotebook(CLUB_STUDIO_ID);
-	return { users: seeded, notebook };
+	const workshop = await seedWorkshop(CLUB_STUDIO_ID);
+	seeded.push({ email: DEMO_STUDENT.email, name: DEMO_STUDENT.name, role: 'student', studio: `the workshop "${workshop.title}"` });
+	return { users: seeded, notebook, workshop };
 }

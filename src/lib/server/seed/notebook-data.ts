@@ -104,6 +104,13 @@ const quartzNotes = [
 ].join('\n');
 const quartzNotesCard = `${quartzNotes}\n- White card opposite, standing on its edge, opens the shadow side of the cluster.`;
 const quartzNotesFinal = `${quartzNotesCard}\n- Clean the crystals with a soft brush and a blower, never a cloth (fibres catch on the terminations).`;
+const quartzNotesFlag = `${quartzNotesFinal}\n- A black flag between the softbox and the lens keeps the key off the front element: the exposure stays, the veiling flare goes.`;
+/** A black card standing between the key and the lens, off every path of light to the subject and the card. */
+const quartzFlag = { id: 'flag', from: [-0.2, -0.2] as [number, number], to: [-0.05, -0.3] as [number, number] };
+const quartzPlanWithFlag = (): Plan => ({
+	...quartzPlan(true),
+	elements: { ...quartzPlan(true).elements, flag: { kind: 'flag', label: 'Black flag off the lens', colour: '#202020' } }
+});
 
 const quartz: DemoSetup = {
 	id: DEMO_SETUP_IDS.quartz,
@@ -142,6 +149,17 @@ const quartz: DemoSetup = {
 				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])] },
 				quartzPlan(true),
 				quartzNotesFinal,
+				'2026-10-06T18:40:00Z'
+			)
+		},
+		{
+			author: 'tobias',
+			at: '2026-11-03T19:00:00Z',
+			message: 'Black flag between the key and the lens: no flare at f/16',
+			document: doc(
+				{ camera: quartzCamera(200), subject: quartzSubject(0.04), lights: [quartzKey(1 / 4), quartzCard([0.15, -0.05, 0.08])], flags: [quartzFlag] },
+				quartzPlanWithFlag(),
+				quartzNotesFlag,
 				'2026-10-06T18:40:00Z'
 			)
 		}

@@ -1,6 +1,6 @@
 // Seeds the demo notebook (gear shelf and setups with their revisions) into the club studio.
 // Idempotent: fixed ids, and rows already there are left as they are.
-import { inArray } from 'drizzle-orm';
+import { eq, inArray, sql } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { gear, setupRevisions, setups, users } from '$lib/server/db/schema';
 import { referencedGearIds } from '$lib/scene/document';
@@ -91,6 +91,13 @@ export async function seedNotebook(studioId: string) {
 				.onConflictDoNothing({ target: [setupRevisions.setupId, setupRevisions.number] })
 				.returning({ n: setupRevisions.number });
 			revisions += inserted.length;
+			// A database seeded before a demo revision was added gets it now: the setup's latest moves up to it.
+			if (inserted.length) {
+				await tx
+					.update(setups)
+					.set({ latestRevision: sql`greatest(${setups.latestRevision}, ${demo.revisions.length})` })
+					.where(eq(setups.id, demo.id));
+			}
 		});
 	}
 	return { gear: shelf.length, setups: DEMO_SETUPS.map((s) => s.title), revisionsAdded: revisions };

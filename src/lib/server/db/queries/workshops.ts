@@ -175,17 +175,16 @@ export async function deleteLessonRow(lessonId: string) {
  */
 export async function reorderLessonRows(workshopId: string, lessonIds: string[]): Promise<'ok' | 'mismatch'> {
 	return db.transaction(async (tx) => {
-		const rows = await tx
-			.select({ id: workshopLessons.id })
-			.from(workshopLessons)
-			.where(eq(workshopLessons.workshopId, workshopId))
-			.for('update');
-		if (!sameSet(rows.map((r) => r.id), lessonIds)) return 'mismatch';
-		for (const [position, id] of lessonIds.entries()) {
-			await tx.update(workshopLessons).set({ position }).where(eq(workshopLessons.id, id));
-		}
-		return 'ok';
+		const rows = await tx.select({ id: workshopLessons.id }).from(workshopLessons).where(eq(workshopLessons.workshopId, workshopId)).for('update');
+		return writeOrder(rows, lessonIds, (id, position) => tx.update(workshopLessons).set({ position }).where(eq(workshopLessons.id, id)));
 	});
+}
+
+/** Gives each id its place in `given`, once `given` is known to name exactly the locked `rows`, each once. */
+async function writeOrder(rows: { id: string }[], given: string[], write: (id: string, position: number) => Promise<unknown>): Promise<'ok' | 'mismatch'> {
+	if (!sameSet(rows.map((r) => r.id), given)) return 'mismatch';
+	for (const [position, id] of given.entries()) await write(id, position);
+	return 'ok';
 }
 
 function sameSet(have: string[], given: string[]): boolean {
@@ -281,16 +280,8 @@ export async function deleteStepRow(stepId: string) {
  */
 export async function reorderStepRows(lessonId: string, stepIds: string[]): Promise<'ok' | 'mismatch'> {
 	return db.transaction(async (tx) => {
-		const rows = await tx
-			.select({ id: workshopSteps.id })
-			.from(workshopSteps)
-			.where(eq(workshopSteps.lessonId, lessonId))
-			.for('update');
-		if (!sameSet(rows.map((r) => r.id), stepIds)) return 'mismatch';
-		for (const [position, id] of stepIds.entries()) {
-			await tx.update(workshopSteps).set({ position }).where(eq(workshopSteps.id, id));
-		}
-		return 'ok';
+		const rows = await tx.select({ id: workshopSteps.id }).from(workshopSteps).where(eq(workshopSteps.lessonId, lessonId)).for('update');
+		return writeOrder(rows, stepIds, (id, position) => tx.update(workshopSteps).set({ position }).where(eq(workshopSteps.id, id)));
 	});
 }
 

@@ -3,9 +3,8 @@ import { check, index, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizz
 import { users } from './auth';
 
 /**
- * Studio roles. Kept as text with a check constraint, not a Postgres enum, so that
- * workshop roles (instructor, student) are one migration that widens the check and one
- * entry in authz's capability table.
+ * Studio roles, kept as text with a check constraint rather than a Postgres enum. Workshop roles
+ * (instructor, student) belong to one workshop: see workshop_members in workshops.ts.
  */
 export const STUDIO_ROLES = ['owner', 'editor', 'viewer'] as const;
 export type StudioRole = (typeof STUDIO_ROLES)[number];

@@ -510,7 +510,7 @@ describe('restore, duplicate, trash through HTTP', () => {
 		const quartz = '3c0d6a41-8b2e-4d7f-a1c3-5e9f00000001';
 		const admin = { kind: 'token' as const, who: studio.people.admin };
 		const detail = await api('GET', `/api/v1/setups/${quartz}`, { auth: admin });
-		expect(detail.body).toMatchObject({ title: 'Quartz cluster on black velvet', revisionNumber: 4 });
+		expect(detail.body).toMatchObject({ title: 'Quartz cluster on black velvet', revisionNumber: 5 });
 		expect(detail.body.derivatives.map((d: { title: string }) => d.title)).toContain('Amethyst geode on black velvet');
 		const revs = await api('GET', `/api/v1/setups/${quartz}/revisions`, { auth: admin });
 		expect(new Set(revs.body.map((r: { authorName: string }) => r.authorName))).toEqual(new Set(['Mara Quill', 'Tobias Wren']));

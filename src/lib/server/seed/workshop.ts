@@ -1,0 +1,120 @@
+// The club's evening workshop, "Small Light, Big Detail" (invented, see BRIEF.md): one lesson that builds
+// the quartz cluster up light by light from its fifth revision, published, with one invited student.
+// Idempotent: fixed ids, and rows already there are left as they are.
+import { eq } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import { users, workshopInvitations, workshopLessons, workshopMembers, workshopSessions, workshopSteps, workshops } from '$lib/server/db/schema';
+import { hashSecret } from '$lib/server/tokens';
+import { DEMO_SETUP_IDS } from './notebook-data';
+
+export const DEMO_WORKSHOP_ID = '7b2c4e90-1a3f-4d6b-8e25-6c0f00000001';
+export const DEMO_WORKSHOP_SLUG = 'small-light-big-detail';
+export const DEMO_LESSON_ID = '7b2c4e90-1a3f-4d6b-8e25-6c0f00000101';
+export const DEMO_STEP_IDS = [
+	'7b2c4e90-1a3f-4d6b-8e25-6c0f00000201',
+	'7b2c4e90-1a3f-4d6b-8e25-6c0f00000202',
+	'7b2c4e90-1a3f-4d6b-8e25-6c0f00000203'
+];
+/** A newcomer to the club, in no studio of it: she reads the workshop as a student only. */
+export const DEMO_STUDENT = { email: 'pebble.finch@fernhill.example', name: 'Pebble Finch' };
+
+const SUMMARY = [
+	'An evening at the community hall for members who photograph the collection, or want to.',
+	'',
+	'We light one quartz cluster on black velvet with **one small flash**, a white card and a black flag,',
+	'and watch what each adds on the projector. Bring a camera with a macro lens if you have one;',
+	'the club lends tripods and flashes.'
+].join('\n');
+
+const STUDENT_NOTES = [
+	'Three steps on one setup: the key light alone, then a white card to open the shadows, then a black flag that keeps the key off the lens.',
+	'',
+	'Watch the lighting ratio change when the card goes in, and the exposure **not** change when the flag does.'
+].join('\n');
+
+const PRESENTER_NOTES = [
+	'Start with the hall lights down. Ask who has seen flare on a black background before the flag goes in.',
+	'',
+	'Step 2: move the card 8 cm closer live and read the ratio out loud. Step 3: the number stays; show the test frames.'
+].join('\n');
+
+const STEPS = [
+	{ hidden: ['card', 'flag'], caption: 'The key light alone: a 30 cm softbox high at the upper left. The shadow side of the cluster falls to black.' },
+	{ hidden: ['flag'], caption: 'Add a white card opposite: it returns some of the key into the shadows and the lighting ratio drops.' },
+	{ hidden: [], caption: 'Add a black flag between the softbox and the lens: the exposure stays, the veiling flare goes.' }
+];
+
+export async function seedWorkshop(studioId: string) {
+	const [mara] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'mara.quill@fernhill.example'));
+	if (!mara) throw new Error('seed: demo user mara.quill@fernhill.example is missing; seed the users first');
+	const [student] = await db
+		.insert(users)
+		.values({ email: DEMO_STUDENT.email, name: DEMO_STUDENT.name, emailVerified: new Date() })
+		.onConflictDoUpdate({ target: users.email, set: { name: DEMO_STUDENT.name } })
+		.returning();
+
+	await db.transaction(async (tx) => {
+		await tx
+			.insert(workshops)
+			.values({
+				id: DEMO_WORKSHOP_ID,
+				studioId,
+				slug: DEMO_WORKSHOP_SLUG,
+				title: 'Small Light, Big Detail',
+				summary: SUMMARY,
+				capacity: 12,
+				state: 'published',
+				createdById: mara.id,
+				createdAt: new Date('2026-11-04T19:00:00Z'),
+				updatedAt: new Date('2026-11-04T19:00:00Z')
+			})
+			.onConflictDoNothing({ target: workshops.id });
+		const [existing] = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, DEMO_WORKSHOP_ID));
+		if (!existing) {
+			await tx.insert(workshopSessions).values({
+				workshopId: DEMO_WORKSHOP_ID,
+				startsAt: new Date('2027-01-14T18:30:00Z'),
+				endsAt: new Date('2027-01-14T21:00:00Z'),
+				place: 'Fernhill Community Hall, the back room'
+			});
+		}
+		await tx
+			.insert(workshopLessons)
+			.values({ id: DEMO_LESSON_ID, workshopId: DEMO_WORKSHOP_ID, position: 0, title: 'One flash, one card, one flag', studentNotes: STUDENT_NOTES, presenterNotes: PRESENTER_NOTES })
+			.onConflictDoNothing({ target: workshopLessons.id });
+		await tx
+			.insert(workshopSteps)
+			.values(
+				STEPS.map((s, i) => ({
+					id: DEMO_STEP_IDS[i],
+					lessonId: DEMO_LESSON_ID,
+					position: i,
+					setupId: DEMO_SETUP_IDS.quartz,
+					revisionNumber: 5,
+					hiddenElementIds: s.hidden,
+					caption: s.caption
+				}))
+			)
+			.onConflictDoNothing({ target: workshopSteps.id });
+		const joined = await tx
+			.insert(workshopMembers)
+			.values({ workshopId: DEMO_WORKSHOP_ID, userId: student.id, role: 'student', joinedAt: new Date('2026-11-05T09:12:00Z') })
+			.onConflictDoNothing()
+			.returning();
+		if (joined.length) {
+			// The invitation she accepted (its link is long used; only a hash was ever kept).
+			await tx.insert(workshopInvitations).values({
+				workshopId: DEMO_WORKSHOP_ID,
+				email: DEMO_STUDENT.email,
+				role: 'student',
+				tokenHash: hashSecret(`demo-invitation-${student.id}`),
+				invitedById: mara.id,
+				expiresAt: new Date('2026-11-18T19:05:00Z'),
+				acceptedAt: new Date('2026-11-05T09:12:00Z'),
+				acceptedById: student.id,
+				createdAt: new Date('2026-11-04T19:05:00Z')
+			});
+		}
+	});
+	return { title: 'Small Light, Big Detail', student: DEMO_STUDENT.email };
+}
