@@ -152,7 +152,7 @@ async function measureStepChange({ baseUrl, token, workshopId, lessonId, steps, 
 						requestAnimationFrame(() => resolve(performance.now() - t0));
 					});
 					observer.observe(caption, { childList: true, characterData: true, subtree: true });
-					window.dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true }));
+					(document.activeElement ?? document.body).dispatchEvent(new KeyboardEvent('keydown', { key, bubbles: true, cancelable: true }));
 				});
 			}, forward ? 'ArrowRight' : 'ArrowLeft');
 			times.push(ms);
