@@ -67,12 +67,10 @@ export async function processImage(bytes: Uint8Array, limits: ImageLimits): Prom
 		return { ok: false, message: `the image is ${meta.width} × ${meta.height} pixels, more than the limit of ${Math.round(limits.maxPixels / 1e6)} megapixels` };
 	}
 	try {
-		// One decode, two sizes: the preview first, the thumbnail from the preview. Resize before turning
-		// upright: the box is square, so the result is the same, and sharp then decodes a JPEG at a
-		// fraction of its size (shrink-on-load), which turning it first would rule out.
-		const preview = await sharp(bytes, options(limits))
+		const upright = sharp(bytes, options(limits)).rotate();
+		// One decode, two sizes: the preview first, the thumbnail from the preview.
+		const preview = await upright
 			.resize(PREVIEW_PX, PREVIEW_PX, { fit: 'inside', withoutEnlargement: true })
-			.rotate()
 			.jpeg({ quality: 85 })
 			.toBuffer();
 		const thumbnail = await sharp(preview).resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 80 }).toBuffer();
