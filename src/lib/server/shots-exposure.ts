@@ -3,7 +3,7 @@
 // of that light, which a calibration from a shot needs.
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import type { SetupDocument } from '$lib/scene/document';
-import type { ShotExif, ShotTyped, TypedField } from '$lib/shots/types';
+import { SETTING_WORDS, type ShotExif, type ShotTyped, type TypedField } from '$lib/shots/types';
 import { readStoredDocument } from './setups-documents';
 
 export interface ShotSettings {
@@ -42,7 +42,7 @@ export type Prediction =
 /** The stored revision's exposure at the shot's settings, or why there is none. */
 export function predictShot(storedDocument: unknown, settings: ShotSettings): Prediction {
 	const missing = (['fNumber', 'exposureTimeS', 'iso'] as const).filter((f) => settings[f] === null);
-	if (missing.length) return { ok: false, reason: `not recorded: ${missing.join(', ')} (type them in)` };
+	if (missing.length) return { ok: false, reason: `not recorded: ${missing.map((f) => SETTING_WORDS[f]).join(', ')} (type them in)` };
 	const read = readStoredDocument(storedDocument);
 	if (read.documentIssues) return { ok: false, reason: 'the revision’s document does not pass today’s checks' };
 	const scene = read.document.scene;

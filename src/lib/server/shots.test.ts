@@ -158,7 +158,7 @@ describe('trash, typed values and revisions', () => {
 		const { created } = await uploadShots(studio.people.editor.user, setupId, [file('plain.png', await testImage({ format: 'png' }))]);
 		const id = created[0].id;
 		expect(created[0].settings.sources.fNumber).toBe('not recorded');
-		expect(created[0].predicted).toMatchObject({ offsetStops: null, reason: expect.stringMatching(/not recorded: fNumber, exposureTimeS, iso/) });
+		expect(created[0].predicted).toMatchObject({ offsetStops: null, reason: expect.stringMatching(/not recorded: f-number, shutter, ISO/) });
 		const typed = await updateShot(studio.people.editor.user, setupId, id, { typed: { fNumber: 11, exposureTimeS: 0.005, iso: 200 } });
 		expect(typed.settings).toMatchObject({ fNumber: 11, iso: 200, sources: { fNumber: 'typed' } });
 		expect(typed.predicted.offsetStops).not.toBeNull();

@@ -23,6 +23,9 @@ export interface ShotExif {
 export const EXIF_FIELDS = ['fNumber', 'exposureTimeS', 'iso', 'focalLengthMm'] as const;
 export type TypedField = (typeof EXIF_FIELDS)[number];
 
+/** The settings in the words the pages show. */
+export const SETTING_WORDS: Record<TypedField, string> = { fNumber: 'f-number', exposureTimeS: 'shutter', iso: 'ISO', focalLengthMm: 'focal length' };
+
 /** Values typed by hand (where the EXIF said nothing, or was wrong). */
 export type ShotTyped = Partial<Record<TypedField, number>>;
 
