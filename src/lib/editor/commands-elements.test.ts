@@ -107,14 +107,19 @@ describe('gear from the shelf', () => {
 		expect(gear.lenses).toHaveLength(1);
 	});
 
-	it('a shelf flash gives its calibrated guide number, ladder, zoom and kelvin; null keeps the figures, typed', () => {
+	it('a shelf flash gives its guide number with its calibration beside it, ladder, zoom and kelvin; null keeps the figures, typed', () => {
 		const s = commandSession();
 		s.run(setElementProperties('key', { power: 1 / 128 }));
+		const uncalibrated = exposureOf(s.model).total.exposureOffsetStops!;
 		expect(s.run(takeFlashFromShelf('key', gear.flashes[0])).ok).toBe(true);
-		// One stop under its rating: GN × 2^(−1/2) (exposure goes with GN²).
-		expect(s.model.elements.key).toMatchObject({ guideNumber: 28.28, lowestPower: 1 / 64, zoomMm: 35, kelvin: 5600, gearId: gear.flashes[0].id, power: 1 / 64 });
+		// The rated guide number stays as the shelf says; the calibration is the scene's offset, not baked in.
+		expect(s.model.elements.key).toMatchObject({ guideNumber: 40, calibrationOffsetStops: -1, lowestPower: 1 / 64, zoomMm: 35, kelvin: 5600, gearId: gear.flashes[0].id, power: 1 / 64 });
+		expect(toExposureScene(s.model).lights[0]).toMatchObject({ guideNumber: 40, calibrationOffsetStops: -1 });
+		// The power rises to the flash's lowest step (1/128 to 1/64: one stop up) and the calibration, applied
+		// once, takes one stop (exposure goes with GN², so −1 stop is GN × 2^(−1/2)).
+		expect(exposureOf(s.model).total.exposureOffsetStops! - uncalibrated).toBeCloseTo(Math.log2((1 / 64) / (1 / 128)) - 1, 9);
 		s.run(takeFlashFromShelf('key', null));
-		expect(s.model.elements.key).toMatchObject({ guideNumber: 28.28 });
+		expect(s.model.elements.key).toMatchObject({ guideNumber: 40, calibrationOffsetStops: -1 });
 		expect((s.model.elements.key as { gearId?: string }).gearId).toBeUndefined();
 		// A figure the element cannot take is refused, naming it (the shelf's spec is not trusted blindly).
 		const odd = { ...gear.flashes[0], spec: { ...gear.flashes[0].spec, guideNumberM: -3 } };
@@ -122,7 +127,7 @@ describe('gear from the shelf', () => {
 		expect(!refused.ok && refused.error.path).toEqual(['guideNumber']);
 		s.undo();
 		s.undo();
-		expect(s.model.elements.key).toMatchObject({ guideNumber: 40, power: 1 / 128 });
+		expect(s.model.elements.key).toMatchObject({ guideNumber: 40, calibrationOffsetStops: 0, power: 1 / 128 });
 		expect((s.model.elements.key as { gearId?: string }).gearId).toBeUndefined();
 	});
 

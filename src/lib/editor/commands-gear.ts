@@ -9,19 +9,22 @@ import { powerNeeded } from './model/power-needed';
 import type { CameraSettings } from './model/schema';
 import type { ShelfGear } from './model/shelf';
 import { LOWEST_POWER } from '$lib/light/flash';
+import { sceneFlashFromShelf } from '$lib/scene/gear';
 import type { EditorModel } from './model/types';
 
 /**
- * A flash element's figures from a shelf flash. The guide number is the rated one corrected by the
- * flash's measured calibration: exposure goes with GN², so c stops more light is GN × 2^(c/2) (the
- * guide number definition, see `$lib/light/flash.ts`). Its ladder ends at its lowest power.
+ * A flash element's figures from a shelf flash (`sceneFlashFromShelf`, the one mapping from the shelf
+ * to the scene): its rated guide number and, beside it, its calibration in stops, which the engine
+ * applies. Its ladder ends at its lowest power.
  */
 export function flashFiguresFromShelf(flash: ShelfGear<'flash'>) {
 	const s = flash.spec;
+	const light = sceneFlashFromShelf(s, s.zoomMm);
 	return {
 		gearId: flash.id,
-		guideNumber: Math.round(s.guideNumberM * 2 ** ((s.calibrationOffsetStops ?? 0) / 2) * 100) / 100,
-		lowestPower: Math.max(LOWEST_POWER, s.lowestPower),
+		guideNumber: light.guideNumber,
+		calibrationOffsetStops: light.calibrationOffsetStops ?? 0,
+		lowestPower: Math.max(LOWEST_POWER, light.lowestPower),
 		zoomMm: s.zoomMm ?? null,
 		mainsPowered: s.mainsPowered ?? false,
 		...(s.kelvin !== undefined ? { kelvin: s.kelvin } : {})
@@ -29,7 +32,7 @@ export function flashFiguresFromShelf(flash: ShelfGear<'flash'>) {
 }
 
 /**
- * A flash's guide number (with its measured calibration), ladder, zoom, kelvin and mains caution from a
+ * A flash's guide number and calibration, ladder, zoom, kelvin and mains caution from a
  * shelf flash; null: the figures stay and the flash no longer names a shelf item (typed by hand).
  * A power below the flash's lowest step is raised to it (the flash cannot go lower).
  */

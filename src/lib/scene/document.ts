@@ -164,3 +164,21 @@ export function referencedGearIds(doc: Pick<SetupDocument, 'plan'>): string[] {
 export function elementUsingGear(doc: Pick<SetupDocument, 'plan'>, gearId: string): string | undefined {
 	return Object.entries(doc.plan.elements ?? {}).find(([, el]) => gearIdsOf(el).includes(gearId))?.[0];
 }
+
+/**
+ * The document with each scene flash drawn from a flash's gear copy (`plan.elements[id].gearId`)
+ * carrying that copy's calibration as the engine's `calibrationOffsetStops`. The server runs it on every
+ * save, after the copies took the calibration in force on the shelf, so a revision predicts with the
+ * calibration of its day; a flash typed by hand keeps its own offset.
+ */
+export function withGearCalibrations(doc: SetupDocument): SetupDocument {
+	const offsets = new Map(doc.gear.filter((g) => g.kind === 'flash').map((g) => [g.id, Number(g.spec.calibrationOffsetStops ?? 0)]));
+	const lights = doc.scene.lights.map((light) => {
+		const gearId = doc.plan.elements?.[light.id]?.gearId;
+		if (light.kind !== 'flash' || !gearId || !offsets.has(gearId)) return light;
+		const { calibrationOffsetStops: _was, ...rest } = light;
+		const offset = offsets.get(gearId)!;
+		return offset !== 0 ? { ...rest, calibrationOffsetStops: offset } : rest;
+	});
+	return { ...doc, scene: { ...doc.scene, lights } };
+}

@@ -39,8 +39,12 @@ export const flashSpecSchema = z.object({
 		.gt(0, 'must be greater than 0')
 		.max(1, 'must be at most 1 (full power)'),
 	syncSpeedS,
-	/** Measured against a meter or a test shot: positive means the flash gives more light than its
-	 * guide number says (stops). */
+	/**
+	 * The flash's calibration in force, in stops (+ = it gives more light than its guide number says):
+	 * typed here, or recorded from a test shot or a flash-meter reading (`flash_calibrations` keeps the
+	 * history, `src/lib/server/calibrations.ts`). Plans carry it as the scene flash's
+	 * `calibrationOffsetStops`, which the engine applies; the guide number stays the rated one.
+	 */
 	calibrationOffsetStops: num(-5, 5, 'stops').default(0),
 	/** Zoom head position the guide number was measured at, when it has one. */
 	zoomMm: num(1, 1000, 'mm').optional(),
@@ -72,8 +76,8 @@ export function guideNumberAtZoom(spec: Pick<FlashSpec, 'guideNumberM' | 'guideN
 
 /**
  * What a shelf flash puts into the scene's flash light (`flashLightSchema`): its guide number at the
- * plan's zoom position, its measured calibration and its lowest power step. The editor copies these
- * onto the light when a shelf flash is chosen.
+ * plan's zoom position, its calibration (an offset the engine applies, never multiplied into the guide
+ * number) and its lowest power step. The editor copies these onto the light when a shelf flash is chosen.
  */
 export function sceneFlashFromShelf(spec: FlashSpec, zoomMm?: number) {
 	return {
@@ -197,24 +201,4 @@ export function parseGearSpec(kind: GearKind, spec: unknown) {
 		ok: false as const,
 		issues: r.error.issues.map((i) => ({ path: ['spec', ...i.path.map(String)], message: i.message }))
 	};
-}
-
-/**
- * A flash's calibration as copied into a setup's gear copy on save (flash_calibrations holds the
- * history on the shelf): the guide number measured and the shelf's guide number it was measured
- * against. Plans scale their light's guide number by measured / rated.
- */
-export const flashCalibrationCopySchema = z.object({
-	id: z.uuid(),
-	guideNumberM: guideNumberField,
-	ratedGuideNumberM: guideNumberField,
-	method: z.enum(['shot', 'meter']),
-	calibratedAt: z.iso.datetime({ offset: true })
-});
-export type FlashCalibrationCopy = z.output<typeof flashCalibrationCopySchema>;
-
-/** The calibration a flash spec carries (`spec.calibration`), or null: read-side only. */
-export function calibrationOf(spec: Record<string, unknown>): FlashCalibrationCopy | null {
-	const parsed = flashCalibrationCopySchema.safeParse(spec.calibration);
-	return parsed.success ? parsed.data : null;
 }

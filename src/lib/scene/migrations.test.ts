@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { CURRENT_SCHEMA_VERSION } from './document';
 import { MIGRATIONS, migrateDocument } from './migrations';
+import { computeExposure } from '$lib/light/scene';
+import { exposureSceneSchema } from '$lib/light/schema';
 
 const scene = {
 	camera: { iso: 100, aperture: 11, shutter: 1 / 200, magnification: 0.25 },
@@ -13,6 +15,15 @@ const scene = {
  * Version 0 is an invented earlier shape (it never shipped): notes as an array of lines, the drawing
  * under `layout` with `angle`, `w`, `d`, `color`.
  */
+const KESTREL = '7e1a9b30-4c2d-4f1e-9a0b-00000000a001';
+const kestrelCopy = {
+	id: KESTREL,
+	kind: 'flash',
+	name: 'Kestrel 40 speedlight',
+	spec: { guideNumberM: 28, lowestPower: 1 / 256, syncSpeedS: 1 / 250, calibrationOffsetStops: -0.3, mainsPowered: false },
+	copiedAt: '2026-10-06T18:40:00.000Z'
+};
+
 const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 	0: {
 		stored: {
@@ -25,7 +36,7 @@ const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 			notes: ['# Ammonite', '', 'Raking light from the left.']
 		},
 		expected: {
-			schemaVersion: 2,
+			schemaVersion: 3,
 			scene,
 			plan: {
 				elements: {
@@ -47,7 +58,7 @@ const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 			gear: []
 		},
 		expected: {
-			schemaVersion: 2,
+			schemaVersion: 3,
 			scene: { ...scene, ambient: { ev100: 13, kelvin: 6500 } },
 			plan: {
 				elements: {
@@ -59,6 +70,27 @@ const FIXTURES: Record<number, { stored: unknown; expected: unknown }> = {
 			},
 			notes: '',
 			gear: []
+		}
+	},
+	/**
+	 * Version 2: the editor multiplied the shelf's −0.3 stop into the guide number (28 × 2^(−0.15) =
+	 * 25.24 m, rounded to 0.01), and a calibration from a test shot (GN 26 measured against 28) sat on
+	 * the gear copy. Version 3 keeps the shelf's guide number and carries both in the light's offset.
+	 */
+	2: {
+		stored: {
+			schemaVersion: 2,
+			scene: { ...scene, lights: [{ ...scene.lights[0], guideNumber: 25.24 }] },
+			plan: { elements: { rake: { kind: 'flash', label: 'Kestrel 40', gearId: KESTREL } } },
+			notes: '',
+			gear: [{ ...kestrelCopy, spec: { ...kestrelCopy.spec, calibration: { id: KESTREL, guideNumberM: 26, ratedGuideNumberM: 28, method: 'shot', calibratedAt: '2026-11-02T10:00:00.000Z' } } }]
+		},
+		expected: {
+			schemaVersion: 3,
+			scene: { ...scene, lights: [{ ...scene.lights[0], guideNumber: 28, calibrationOffsetStops: 2 * Math.log2(25.24 / 28) + 2 * Math.log2(26 / 28) }] },
+			plan: { elements: { rake: { kind: 'flash', label: 'Kestrel 40', gearId: KESTREL } } },
+			notes: '',
+			gear: [{ ...kestrelCopy, spec: { ...kestrelCopy.spec, calibrationOffsetStops: -0.3 + 2 * Math.log2(26 / 28) } }]
 		}
 	}
 };
@@ -81,12 +113,12 @@ describe('migrateDocument', () => {
 
 	it('0 → 1: a version 0 document without notes or layout gets an empty plan and empty notes', () => {
 		const r = migrateDocument({ schemaVersion: 0, scene });
-		expect(r.ok && r.document).toEqual({ schemaVersion: 2, scene, plan: {}, notes: '', gear: [] });
+		expect(r.ok && r.document).toEqual({ schemaVersion: 3, scene, plan: {}, notes: '', gear: [] });
 	});
 
 	it('1 → 2: a plan of {} stays {} and a scene without ambient gets no entry; an ambient entry already there is kept', () => {
 		const ambientScene = { ...scene, ambient: { ev100: 10 } };
-		expect(migrateDocument({ schemaVersion: 1, scene: ambientScene, plan: {} })).toMatchObject({ ok: true, document: { schemaVersion: 2, plan: {} } });
+		expect(migrateDocument({ schemaVersion: 1, scene: ambientScene, plan: {} })).toMatchObject({ ok: true, document: { schemaVersion: 3, plan: {} } });
 		const noAmbient = { elements: { rake: { kind: 'flash' } } };
 		expect(migrateDocument({ schemaVersion: 1, scene, plan: noAmbient })).toMatchObject({ ok: true, document: { plan: noAmbient } });
 		const r = migrateDocument({ schemaVersion: 1, scene: ambientScene, plan: { elements: { rake: { kind: 'flash' } } } });
@@ -110,6 +142,25 @@ describe('migrateDocument', () => {
 	it('0 → 1: a migrated document is still checked (a bad scene in an old document is named)', () => {
 		const r = migrateDocument({ schemaVersion: 0, scene: { ...scene, camera: { ...scene.camera, iso: -5 } } });
 		expect(!r.ok && r.issues.map((i) => i.path.join('.'))).toEqual(['scene.camera.iso']);
+	});
+
+	it('2 → 3: a revision predicts exactly as version 2 computed it (its guide number × measured / rated)', () => {
+		// Version 2's exposure: the stored guide number (calibration baked in) scaled by measured / rated.
+		const stored = FIXTURES[2].stored as { scene: unknown };
+		const v2Scene = exposureSceneSchema.parse(stored.scene);
+		const v2 = computeExposure({ ...v2Scene, lights: v2Scene.lights.map((l) => (l.kind === 'flash' ? { ...l, guideNumber: l.guideNumber * (26 / 28) } : l)) });
+		const r = migrateDocument(structuredClone(FIXTURES[2].stored));
+		expect(r.ok).toBe(true);
+		if (!r.ok) return;
+		expect(computeExposure(r.document.scene).total.exposureOffsetStops).toBeCloseTo(v2.total.exposureOffsetStops!, 12);
+	});
+
+	it('2 → 3: a guide number typed by hand (not the shelf’s baked figure) and a flash without a gear copy are left as they are', () => {
+		const typedByHand = { ...(FIXTURES[2].stored as object), scene: { ...scene, lights: [{ ...scene.lights[0], guideNumber: 30 }] }, gear: [kestrelCopy] };
+		const r = migrateDocument(structuredClone(typedByHand));
+		expect(r.ok && r.document.scene.lights[0]).toEqual({ ...scene.lights[0], guideNumber: 30 });
+		const noCopy = migrateDocument({ ...(FIXTURES[2].stored as object), gear: [] });
+		expect(noCopy.ok && noCopy.document.scene.lights[0]).toEqual({ ...scene.lights[0], guideNumber: 25.24 });
 	});
 
 	it('passes a current document through unchanged', () => {

@@ -96,8 +96,61 @@ const v1ToV2: Migration = {
 	}
 };
 
+const finiteNumber = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/**
+ * Version 3: a flash's calibration is the scene light's `calibrationOffsetStops`, which the engine
+ * applies, and the gear copy's `spec.calibrationOffsetStops` is the offset in force when the revision
+ * was saved. Version 2 held it in two other ways: the editor multiplied the shelf's offset into the
+ * guide number (rounded to 0.01 m), and a calibration from a shot or a meter was a `spec.calibration`
+ * ({ guideNumberM, ratedGuideNumberM }) on the gear copy, applied when the exposure was computed. Both
+ * move into the light's offset, so the guide number is the shelf's again and every prediction stays
+ * exactly what it was: light ∝ GN², so a guide number scaled by k is 2·log2(k) stops.
+ */
+const v2ToV3: Migration = {
+	from: 2,
+	describe: 'a flash’s calibration moves out of its guide number and the gear copy into the light’s calibrationOffsetStops',
+	up(doc) {
+		const next = { ...doc, schemaVersion: 3 };
+		const { scene, plan, gear } = doc;
+		if (!isRecord(scene) || !Array.isArray(scene.lights) || !Array.isArray(gear)) return next;
+		const elements = isRecord(plan) && isRecord(plan.elements) ? plan.elements : {};
+		const copies = new Map(gear.filter((g): g is Json => isRecord(g) && g.kind === 'flash' && isRecord(g.spec)).map((g) => [g.id, g.spec as Json]));
+		const measuredStops = (spec: Json) => {
+			const c = spec.calibration;
+			return isRecord(c) && finiteNumber(c.guideNumberM) && finiteNumber(c.ratedGuideNumberM) && c.guideNumberM > 0 && c.ratedGuideNumberM > 0
+				? 2 * Math.log2(c.guideNumberM / c.ratedGuideNumberM)
+				: 0;
+		};
+		const lights = scene.lights.map((light) => {
+			if (!isRecord(light) || light.kind !== 'flash' || !finiteNumber(light.guideNumber)) return light;
+			const entry = elements[String(light.id)];
+			const spec = isRecord(entry) ? copies.get(entry.gearId) : undefined;
+			if (!spec) return light;
+			let guideNumber = light.guideNumber;
+			let offset = finiteNumber(light.calibrationOffsetStops) ? light.calibrationOffsetStops : 0;
+			const rated = spec.guideNumberM;
+			const typed = finiteNumber(spec.calibrationOffsetStops) ? spec.calibrationOffsetStops : 0;
+			if (typed !== 0 && finiteNumber(rated) && rated > 0 && guideNumber === Math.round(rated * 2 ** (typed / 2) * 100) / 100) {
+				offset += 2 * Math.log2(guideNumber / rated);
+				guideNumber = rated;
+			}
+			offset += measuredStops(spec);
+			const { calibrationOffsetStops: _old, ...rest } = light;
+			return { ...rest, guideNumber, ...(offset !== 0 ? { calibrationOffsetStops: offset } : {}) };
+		});
+		const copiesNow = gear.map((g) => {
+			if (!isRecord(g) || !isRecord(g.spec) || !('calibration' in g.spec)) return g;
+			const { calibration: _gone, ...spec } = g.spec;
+			const typed = finiteNumber(spec.calibrationOffsetStops) ? spec.calibrationOffsetStops : 0;
+			return { ...g, spec: { ...spec, calibrationOffsetStops: typed + measuredStops(g.spec) } };
+		});
+		return { ...next, scene: { ...scene, lights }, gear: copiesNow };
+	}
+};
+
 /** In order; MIGRATIONS[i] takes version i to version i + 1. */
-export const MIGRATIONS: readonly Migration[] = [v0ToV1, v1ToV2];
+export const MIGRATIONS: readonly Migration[] = [v0ToV1, v1ToV2, v2ToV3];
 
 if (MIGRATIONS.length !== CURRENT_SCHEMA_VERSION || MIGRATIONS.some((m, i) => m.from !== i)) {
 	throw new Error('setup document migrations must run 0 → 1 → … → CURRENT_SCHEMA_VERSION without gaps');

@@ -1,23 +1,28 @@
-// Flash calibration: a gear-shelf flash's real guide number, worked out from a test shot (its measure
-// against the plan's prediction) or a flash-meter reading, kept dated with its history on the shelf and
-// copied into setups saved from then on (snapshotGear). Undo marks a calibration undone; nothing is lost.
+// Flash calibration: how far a gear-shelf flash is from its guide number, in stops, worked out from a
+// test shot (its measure against the plan's prediction) or a flash-meter reading, or typed on the gear
+// form. Each one recorded becomes the flash's `calibrationOffsetStops` on the shelf (the one figure
+// plans use: snapshotGear copies it into setups saved from then on) and is kept dated in
+// flash_calibrations. Undo marks one undone and puts the one before it (or none) in force; nothing is lost.
 import { error } from '@sveltejs/kit';
 import { authorizeGear, authorizeSetup, authorizeShot } from '$lib/server/authz';
-import { activeCalibrations, calibrationsOf, insertCalibration, latestMeasures, undoCalibrationRow } from '$lib/server/db/queries/shots';
+import { calibrationsOf, latestMeasures, offsetOfCalibration, recordCalibration, undoCalibrationRow } from '$lib/server/db/queries/shots';
 import { findRevision } from '$lib/server/db/queries/setups';
 import { RuleViolation } from '$lib/server/errors';
 import type { SessionUser } from '$lib/server/session';
-import { flashSpecSchema, type FlashCalibrationCopy } from '$lib/scene/gear';
-import type { GearSnapshot } from '$lib/scene/document';
-import { FLASH_DOMINANCE_SHARE, guideNumberFromMeter, guideNumberFromShot } from '$lib/shots/measure';
+import { flashSpecSchema } from '$lib/scene/gear';
+import { calibrationOffsetStops, FLASH_DOMINANCE_SHARE, guideNumberFromMeter, guideNumberFromShot } from '$lib/shots/measure';
 import type { CalibrationInput } from '$lib/shots/types';
 import { flashShareOf, predictShot, shotSettings } from './shots-exposure';
 import type { FlashCalibration } from '$lib/server/db/schema';
+import { formatStops } from '$lib/light/format';
+
+/** The range of a calibration on the shelf and in the scene (`calibrationOffsetStopsField`). */
+const MAX_CALIBRATION_STOPS = 5;
 
 export interface CalibrationView {
 	id: string;
 	gearId: string;
-	method: 'shot' | 'meter';
+	method: FlashCalibration['method'];
 	guideNumberM: number;
 	ratedGuideNumberM: number;
 	/** How far the flash is from its label: 2·log2(measured / rated) stops. */
@@ -36,7 +41,7 @@ function toView(row: FlashCalibration, activeId: string | null): CalibrationView
 		method: row.method,
 		guideNumberM: row.guideNumberM,
 		ratedGuideNumberM: row.ratedGuideNumberM,
-		offsetStops: 2 * Math.log2(row.guideNumberM / row.ratedGuideNumberM),
+		offsetStops: offsetOfCalibration(row),
 		shotId: row.shotId,
 		reading: row.reading,
 		createdAt: row.createdAt.toISOString(),
@@ -84,30 +89,28 @@ export async function calibrateFlash(user: SessionUser | null, setupId: string, 
 		const found = await findRevision(setupId, shot.revisionNumber);
 		const prediction = found ? predictShot(found.revision.document, shotSettings(shot.exif, shot.typed)) : { ok: false as const, reason: 'the revision is missing' };
 		if (!prediction.ok || prediction.offsetStops === null) throw new RuleViolation(`no prediction for this shot: ${prediction.ok ? 'the plan gives no light' : prediction.reason}`, 'shotId');
-		const { share, scale, lightIds } = flashShareOf(prediction, flash.id);
+		const { share, offsetStops, lightIds } = flashShareOf(prediction, flash.id);
 		if (!lightIds.length) throw new RuleViolation('the shot’s revision uses no light drawn from this flash', 'gearId');
 		if (share < FLASH_DOMINANCE_SHARE) {
 			warnings.push(`The plan says ${Math.round((1 - share) * 100)} % of the light at the subject comes from ambient or other lights; the calibration takes those as planned.`);
 		}
 		const difference = measure.actualOffsetStops - prediction.offsetStops;
-		const real = guideNumberFromShot(ratedGuideNumberM * scale, difference, share);
+		// The prediction already used the revision's calibration: the new one is measured on top of it.
+		const real = guideNumberFromShot(ratedGuideNumberM * 2 ** (offsetStops / 2), difference, share);
 		if (real === null) throw new RuleViolation('the measure leaves this flash no light of its own: the other sources alone explain it', 'shotId');
 		guideNumberM = real;
 		shotId = shot.id;
 		reading = { differenceStops: difference, flashShare: share };
 	}
+	const field = input.method === 'meter' ? 'aperture' : 'shotId';
 	if (!Number.isFinite(guideNumberM) || guideNumberM <= 0 || guideNumberM > 1000) {
-		throw new RuleViolation(`the reading gives a guide number of ${guideNumberM.toFixed(1)} m, outside 0–1000`, input.method === 'meter' ? 'aperture' : 'shotId');
+		throw new RuleViolation(`the reading gives a guide number of ${guideNumberM.toFixed(1)} m, outside 0–1000`, field);
 	}
-	const row = await insertCalibration({
-		gearId: flash.id,
-		method: input.method,
-		guideNumberM,
-		ratedGuideNumberM,
-		shotId,
-		reading,
-		createdById: user!.id
-	});
+	const offsetStops = calibrationOffsetStops({ guideNumberM, ratedGuideNumberM });
+	if (Math.abs(offsetStops) > MAX_CALIBRATION_STOPS) {
+		throw new RuleViolation(`the reading puts the flash ${formatStops(offsetStops)} from its guide number of ${ratedGuideNumberM} m, more than ${MAX_CALIBRATION_STOPS}: check the reading`, field);
+	}
+	const row = await recordCalibration({ gearId: flash.id, method: input.method, guideNumberM, ratedGuideNumberM, shotId, reading, createdById: user!.id });
 	return { calibration: toView(row, row.id), warnings };
 }
 
@@ -116,28 +119,4 @@ export async function undoCalibration(user: SessionUser | null, gearId: string, 
 	const row = await undoCalibrationRow(gearId, calibrationId);
 	if (!row) error(404, 'No such calibration in force on this flash.');
 	return listCalibrations(user, gearId);
-}
-
-/**
- * Stamps each flash copy with the calibration in force on the shelf now (or takes an undone one off),
- * so a save from then on predicts with it; revisions saved before keep their copies as they were.
- */
-export async function stampCalibrations(gear: GearSnapshot[]): Promise<GearSnapshot[]> {
-	const flashes = gear.filter((g) => g.kind === 'flash').map((g) => g.id);
-	if (!flashes.length) return gear;
-	const active = await activeCalibrations(flashes);
-	return gear.map((g) => {
-		if (g.kind !== 'flash') return g;
-		const cal = active.get(g.id);
-		const { calibration: _old, ...spec } = g.spec;
-		if (!cal) return 'calibration' in g.spec ? { ...g, spec } : g;
-		const copy: FlashCalibrationCopy = {
-			id: cal.id,
-			guideNumberM: cal.guideNumberM,
-			ratedGuideNumberM: cal.ratedGuideNumberM,
-			method: cal.method,
-			calibratedAt: cal.createdAt.toISOString()
-		};
-		return { ...g, spec: { ...spec, calibration: copy } };
-	});
 }

@@ -3,7 +3,7 @@ import { error } from '@sveltejs/kit';
 import { authorizeGear, authorizeStudio, can, GEAR_NOT_FOUND, requireUser, studioFilter, type StudioAccess } from '$lib/server/authz';
 import type { SessionUser } from '$lib/server/session';
 import { ensurePersonalStudio } from '$lib/server/db/queries/studios';
-import { insertGearRow, listGearOptions, listGearRows, updateGearRow, type GearOption } from '$lib/server/db/queries/gear';
+import { insertGearRow, listGearOptions, listGearRows, updateGearRow, type GearOption, type TypedCalibration } from '$lib/server/db/queries/gear';
 import type { Gear } from '$lib/server/db/schema';
 import { parseGearSpec, type GearCreateInput, type GearKind, type GearUpdateInput } from '$lib/scene/gear';
 import { InputError } from '$lib/server/setups-documents';
@@ -74,15 +74,22 @@ export async function createGear(user: SessionUser | null, input: GearCreateInpu
 	const signedIn = requireUser(user);
 	const studioId = await studioOrPersonal(signedIn, input.studioId);
 	await authorizeStudio(signedIn, studioId, 'gear.edit');
-	const row = await insertGearRow({
-		studioId,
-		kind: input.kind,
-		name: input.name,
-		spec: input.spec,
-		notes: input.notes,
-		createdById: signedIn.id
-	});
+	const row = await insertGearRow(
+		{ studioId, kind: input.kind, name: input.name, spec: input.spec, notes: input.notes, createdById: signedIn.id },
+		typedCalibration(input.kind, null, input.spec, signedIn.id)
+	);
 	return gearItem(row);
+}
+
+/**
+ * A flash's calibration typed on the gear form, to keep in its history (`$lib/server/calibrations.ts`),
+ * when it differs from the one in force; undefined when there is nothing to record.
+ */
+function typedCalibration(kind: string, before: Record<string, unknown> | null, spec: Record<string, unknown>, createdById: string): TypedCalibration | undefined {
+	if (kind !== 'flash') return undefined;
+	const offsetStops = Number(spec.calibrationOffsetStops ?? 0);
+	if (offsetStops === Number(before?.calibrationOffsetStops ?? 0)) return undefined;
+	return { offsetStops, ratedGuideNumberM: Number(spec.guideNumberM), createdById };
 }
 
 /** Changes name, spec, notes, or retires / returns an item. Setups keep the copies they already hold. */
@@ -94,7 +101,11 @@ export async function updateGear(user: SessionUser | null, gearId: string, input
 		if (!parsed.ok) throw new InputError(`Invalid input. ${parsed.issues[0].path.join('.')}: ${parsed.issues[0].message}`, parsed.issues);
 		spec = parsed.spec;
 	}
-	const updated = await updateGearRow(row.id, { name: input.name, spec, notes: input.notes, retired: input.retired });
+	const updated = await updateGearRow(
+		row.id,
+		{ name: input.name, spec, notes: input.notes, retired: input.retired },
+		spec && typedCalibration(row.kind, row.spec, spec, requireUser(user).id)
+	);
 	if (!updated) error(404, GEAR_NOT_FOUND);
 	return gearItem(updated);
 }

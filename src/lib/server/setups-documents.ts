@@ -1,9 +1,8 @@
 // What the notebook keeps true of a setup's documents: stored documents are read through the migrations,
 // gear used by a plan is copied into the document on save, and the errors a save can end in.
 import { RuleViolation } from '$lib/server/errors';
-import { stampCalibrations } from '$lib/server/calibrations';
 import { gearRowsByIds } from '$lib/server/db/queries/gear';
-import { elementUsingGear, referencedGearIds, type GearSnapshot, type SetupDocument } from '$lib/scene/document';
+import { elementUsingGear, referencedGearIds, withGearCalibrations, type GearSnapshot, type SetupDocument } from '$lib/scene/document';
 import { migrateDocument, type DocumentIssue } from '$lib/scene/migrations';
 import { MAX_DOCUMENT_DEPTH, trimJson } from '$lib/json-limits';
 import type { Conflict } from '$lib/notebook/save';
@@ -67,6 +66,9 @@ export function searchTextOf(title: string, subject: string, tags: string[], doc
  * revision is carried forward unchanged (unless the gear id is in `refresh`); gear newly attached is
  * copied from the studio's shelf now; gear that is not on this studio's shelf keeps the copy that came
  * with the document (an imported or duplicated setup). Copies no element refers to are dropped.
+ * A flash's copy always takes the calibration in force on the shelf now (its `calibrationOffsetStops`),
+ * and the scene's lights drawn from it carry that offset: saves from then on predict with it, while
+ * revisions saved before keep theirs.
  */
 export async function snapshotGear(
 	studioId: string,
@@ -95,5 +97,9 @@ export async function snapshotGear(
 		}
 	}
 	if (issues.length) throw new InputError(`Invalid input. ${issues[0].path.join('.')}: ${issues[0].message}`, issues);
-	return { ...document, gear: await stampCalibrations(gear) };
+	const calibrated = gear.map((g) => {
+		const onShelf = shelf.get(g.id);
+		return g.kind === 'flash' && onShelf ? { ...g, spec: { ...g.spec, calibrationOffsetStops: onShelf.spec.calibrationOffsetStops ?? 0 } } : g;
+	});
+	return withGearCalibrations({ ...document, gear: calibrated });
 }

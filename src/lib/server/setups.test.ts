@@ -228,10 +228,13 @@ describe('gear copies', () => {
 		await updateGear(editor, flash.id, { name: 'Kestrel 40 (recalibrated)', spec: { guideNumberM: 36, lowestPower: 1 / 256, syncSpeedS: 1 / 250, calibrationOffsetStops: -0.3 } });
 		expect((await getSetupRevision(editor, id, 1)).document.gear[0]).toEqual(r1.document.gear[0]);
 
-		// A save that keeps the flash carries its copy forward; the client cannot swap it.
+		// A save that keeps the flash carries its copy forward; the client cannot swap it. Only the
+		// calibration in force follows the shelf (saves from then on predict with it).
 		const forged = { ...sampleDocument({ plan }), gear: [{ ...r1.document.gear[0], spec: { guideNumberM: 999, lowestPower: 0.5, syncSpeedS: 0.004 } }] };
 		await save(editor, id, { baseRevision: 1, document: forged });
-		expect((await getSetupRevision(editor, id, 2)).document.gear[0]).toEqual(r1.document.gear[0]);
+		const r2 = await getSetupRevision(editor, id, 2);
+		expect(r2.document.gear[0]).toEqual({ ...r1.document.gear[0], spec: { ...r1.document.gear[0].spec, calibrationOffsetStops: -0.3 } });
+		expect(r2.document.scene.lights.find((l) => l.id === 'key')).toMatchObject({ guideNumber: 40, calibrationOffsetStops: -0.3 });
 
 		// Asked to, the save takes the shelf's figures as they are now.
 		await save(editor, id, { baseRevision: 2, document: sampleDocument({ plan }), refreshGear: [flash.id] });

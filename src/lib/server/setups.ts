@@ -31,7 +31,6 @@ import {
 } from '$lib/server/db/queries/setups';
 import type { Setup } from '$lib/server/db/schema';
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
-import { calibratedScene } from '$lib/scene/calibration';
 import { findNonFinite } from '$lib/light/finite';
 import { referencedGearIds, type SetupDocument } from '$lib/scene/document';
 import type { SetupCreateInput, SetupDuplicateInput, SetupListQuery, SetupSaveInput } from '$lib/scene/inputs';
@@ -166,8 +165,8 @@ function exposureOf(read: ReadDocument, revisionNumber: number): { ok: true; res
 		const [first] = read.documentIssues;
 		return { ok: false, message: `Revision ${revisionNumber} cannot be computed: its document does not pass today's checks (${first.path.join('.')}: ${first.message}).` };
 	}
-	// A flash calibrated on the shelf before this revision was saved predicts with its measured guide number.
-	const result = computeExposure(calibratedScene(read.document));
+	// A flash calibrated on the shelf before this revision was saved carries its offset in the scene.
+	const result = computeExposure(read.document.scene);
 	const bad = findNonFinite(result);
 	if (bad) return { ok: false, message: `Revision ${revisionNumber} gives a result that is not a finite number (${bad.join('.')}); check its scene.` };
 	return { ok: true, result };

@@ -1,10 +1,9 @@
 // Predicted against actual for shots: the revision's scene recomputed by the engine at the shot's own
-// aperture, shutter and ISO (flashes scaled by the calibration their gear copy carries), and the flash's
-// share of that light, which a calibration from a shot needs.
+// aperture, shutter and ISO (a calibrated flash carries its offset in the scene), and the flash's share
+// of that light, which a calibration from a shot needs.
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
-import { calibratedLights, calibratedScene } from '$lib/scene/calibration';
 import type { SetupDocument } from '$lib/scene/document';
-import type { ShotExif, ShotTyped, TypedField } from '$lib/shots/types';
+import { SETTING_WORDS, type ShotExif, type ShotTyped, type TypedField } from '$lib/shots/types';
 import { readStoredDocument } from './setups-documents';
 
 export interface ShotSettings {
@@ -43,10 +42,10 @@ export type Prediction =
 /** The stored revision's exposure at the shot's settings, or why there is none. */
 export function predictShot(storedDocument: unknown, settings: ShotSettings): Prediction {
 	const missing = (['fNumber', 'exposureTimeS', 'iso'] as const).filter((f) => settings[f] === null);
-	if (missing.length) return { ok: false, reason: `not recorded: ${missing.join(', ')} (type them in)` };
+	if (missing.length) return { ok: false, reason: `not recorded: ${missing.map((f) => SETTING_WORDS[f]).join(', ')} (type them in)` };
 	const read = readStoredDocument(storedDocument);
 	if (read.documentIssues) return { ok: false, reason: 'the revision’s document does not pass today’s checks' };
-	const scene = calibratedScene(read.document);
+	const scene = read.document.scene;
 	const result = computeExposure({
 		...scene,
 		camera: { ...scene.camera, aperture: settings.fNumber!, shutter: settings.exposureTimeS!, iso: settings.iso! }
@@ -56,14 +55,14 @@ export function predictShot(storedDocument: unknown, settings: ShotSettings): Pr
 
 /**
  * The share of the predicted light at the subject that comes from the lights drawn from one gear-shelf
- * flash, and the guide-number scale the prediction already used for them.
+ * flash, and the calibration (stops) the prediction already used for them.
  */
 export function flashShareOf(prediction: Extract<Prediction, { ok: true }>, gearId: string) {
-	const lightIds = new Set(
-		prediction.document.scene.lights.filter((l) => l.kind === 'flash' && prediction.document.plan.elements?.[l.id]?.gearId === gearId).map((l) => l.id)
-	);
+	const lights = prediction.document.scene.lights.filter((l) => l.kind === 'flash' && prediction.document.plan.elements?.[l.id]?.gearId === gearId);
+	const lightIds = new Set(lights.map((l) => l.id));
 	const total = prediction.result.total.x;
 	const flash = prediction.result.lights.filter((l) => lightIds.has(l.id)).reduce((s, l) => s + l.x, 0);
-	const scale = calibratedLights(prediction.document).find((c) => c.gearId === gearId)?.scale ?? 1;
-	return { lightIds: [...lightIds], share: total > 0 ? flash / total : 0, scale };
+	const first = lights[0];
+	const offsetStops = first?.kind === 'flash' ? (first.calibrationOffsetStops ?? 0) : 0;
+	return { lightIds: [...lightIds], share: total > 0 ? flash / total : 0, offsetStops };
 }

@@ -11,7 +11,7 @@ import { shots, storageLeftovers } from '$lib/server/db/schema';
 import { makeStudio, sampleDocument, type TestStudio } from '$lib/server/testing/notebook-fixtures';
 import { SAMPLE_EXIF, testImage } from '$lib/server/testing/shot-images';
 import { createSetup, saveSetup, getSetup, setupExposure } from '$lib/server/setups';
-import { createGear } from '$lib/server/gear';
+import { createGear, getGear, updateGear } from '$lib/server/gear';
 import { setupCreateSchema, setupSaveSchema } from '$lib/scene/inputs';
 import { gearCreateSchema } from '$lib/scene/gear';
 import { computeExposure } from '$lib/light/scene';
@@ -91,12 +91,17 @@ describe('upload', () => {
 		const config = { endpoint: `http://127.0.0.1:${fake.port}`, bucket: 'outage', region: 'us-east-1', accessKeyId: 'S3RVER', secretAccessKey: 'S3RVER', forcePathStyle: true };
 		let puts = 0;
 		const keysPut: string[] = [];
-		/** The real client; the fake is really stopped just before the second file's preview is written. */
+		/**
+		 * The real client; the fake is really stopped once the second file's original is stored, before its
+		 * preview (written at the same time) reaches it.
+		 */
+		let stopped: Promise<void> | null = null;
 		class StoppingStore extends ObjectStore {
 			async put(key: string, body: Uint8Array, type: string) {
 				puts += 1;
-				if (puts === 5) await fake.server.close();
 				keysPut.push(key);
+				if (puts === 4) return (stopped = super.put(key, body, type).then(() => fake.server.close()));
+				if (stopped) await stopped;
 				return super.put(key, body, type);
 			}
 		}
@@ -153,7 +158,7 @@ describe('trash, typed values and revisions', () => {
 		const { created } = await uploadShots(studio.people.editor.user, setupId, [file('plain.png', await testImage({ format: 'png' }))]);
 		const id = created[0].id;
 		expect(created[0].settings.sources.fNumber).toBe('not recorded');
-		expect(created[0].predicted).toMatchObject({ offsetStops: null, reason: expect.stringMatching(/not recorded: fNumber, exposureTimeS, iso/) });
+		expect(created[0].predicted).toMatchObject({ offsetStops: null, reason: expect.stringMatching(/not recorded: f-number, shutter, ISO/) });
 		const typed = await updateShot(studio.people.editor.user, setupId, id, { typed: { fNumber: 11, exposureTimeS: 0.005, iso: 200 } });
 		expect(typed.settings).toMatchObject({ fNumber: 11, iso: 200, sources: { fNumber: 'typed' } });
 		expect(typed.predicted.offsetStops).not.toBeNull();
@@ -213,6 +218,8 @@ describe('flash calibration', () => {
 		expect(warnings).toEqual([]);
 		expect(calibration.guideNumberM).toBeCloseTo(40 * 2 ** (difference / 2), 9);
 		expect(calibration.offsetStops).toBeCloseTo(difference, 9);
+		// It is the flash's one offset on the shelf; the guide number stays the rated one.
+		expect((await getGear(editor, flash.id)).spec).toMatchObject({ guideNumberM: 40, calibrationOffsetStops: expect.closeTo(difference, 9) });
 		// Revision 1 keeps its copy; a new save predicts with the calibrated flash.
 		expect((await setupExposure(editor, setup.id, 1)).total.exposureOffsetStops).toBeCloseTo(before, 9);
 		const current = await getSetup(editor, setup.id);
@@ -226,6 +233,7 @@ describe('flash calibration', () => {
 		await expect(undoCalibration(studio.people.viewer.user, flash.id, calibration.id)).rejects.toMatchObject({ status: 403 });
 		const undone = await undoCalibration(editor, flash.id, calibration.id);
 		expect(undone.calibrations[0]).toMatchObject({ active: false, undoneAt: expect.any(String) });
+		expect((await getGear(editor, flash.id)).spec).toMatchObject({ calibrationOffsetStops: 0 });
 		const third = await saveSetup(editor, setup.id, setupSaveSchema.parse({ baseRevision: saved.revisionNumber, document: doc, message: 'after undoing' }));
 		expect((await setupExposure(editor, setup.id, third.revisionNumber)).total.exposureOffsetStops).toBeCloseTo(before, 9);
 		expect((await setupExposure(editor, setup.id, saved.revisionNumber)).total.exposureOffsetStops).toBeCloseTo(after, 9);
@@ -240,6 +248,29 @@ describe('flash calibration', () => {
 		await expect(
 			calibrateFlash(studio.people.viewer.user, setupId, calibrationSchema.parse({ method: 'meter', gearId: flash.id, aperture: 11, distanceM: 1, iso: 100, power: 1 }))
 		).rejects.toMatchObject({ status: 403 });
+		// A reading that would put the flash more than 5 stops from its label is refused, naming the field.
+		await expect(
+			calibrateFlash(editor, setupId, calibrationSchema.parse({ method: 'meter', gearId: flash.id, aperture: 1, distanceM: 0.1, iso: 100, power: 1 }))
+		).rejects.toMatchObject({ status: 400, field: 'aperture' });
+	});
+
+	it('an offset typed on the gear form is in the history too: undoing a later calibration returns to it', async () => {
+		const editor = studio.people.editor.user;
+		const flash = await createGear(editor, gearCreateSchema.parse({ studioId: studio.studioId, kind: 'flash', name: 'Marten 24', spec: { guideNumberM: 24, lowestPower: 1 / 128, syncSpeedS: 1 / 200, calibrationOffsetStops: -0.3 } }));
+		await updateGear(editor, flash.id, { spec: { guideNumberM: 24, lowestPower: 1 / 128, syncSpeedS: 1 / 200, calibrationOffsetStops: -0.7 } });
+		// A change of name alone records nothing.
+		await updateGear(editor, flash.id, { name: 'Marten 24 (club)' });
+		const { calibration } = await calibrateFlash(editor, setupId, calibrationSchema.parse({ method: 'meter', gearId: flash.id, aperture: 12, distanceM: 2, iso: 100, power: 1 }));
+		// f/12 at 2 m is GN 24, the label's figure: 0 stops.
+		expect((await getGear(editor, flash.id)).spec.calibrationOffsetStops).toBeCloseTo(0, 9);
+		const history = await listCalibrations(editor, flash.id);
+		expect(history.calibrations.map((c) => [c.method, Math.round(c.offsetStops * 10) / 10, c.active])).toEqual([
+			['meter', 0, true],
+			['typed', -0.7, false],
+			['typed', -0.3, false]
+		]);
+		await undoCalibration(editor, flash.id, calibration.id);
+		expect((await getGear(editor, flash.id)).spec.calibrationOffsetStops).toBe(-0.7);
 	});
 });
 

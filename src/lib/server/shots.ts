@@ -222,18 +222,18 @@ export async function uploadShots(
 			continue;
 		}
 		const id = randomUUID();
-		const written: string[] = [];
+		const keys = { originalKey: keyOf(setupId, id, 'original'), previewKey: keyOf(setupId, id, 'preview'), thumbnailKey: keyOf(setupId, id, 'thumbnail') };
+		const objects = [
+			[keys.originalKey, bytes, processed.contentType],
+			[keys.previewKey, processed.preview, 'image/jpeg'],
+			[keys.thumbnailKey, processed.thumbnail, 'image/jpeg']
+		] as const;
 		try {
 			const store = objectStore();
-			for (const [variant, body, type] of [
-				['original', bytes, processed.contentType],
-				['preview', processed.preview, 'image/jpeg'],
-				['thumbnail', processed.thumbnail, 'image/jpeg']
-			] as const) {
-				const key = keyOf(setupId, id, variant);
-				written.push(key);
-				await store.put(key, body, type);
-			}
+			// All three at once; if one fails, every one is removed below (one that never arrived is no matter).
+			const puts = await Promise.allSettled(objects.map(([key, body, type]) => store.put(key, body, type)));
+			const failed = puts.find((p) => p.status === 'rejected');
+			if (failed) throw failed.reason;
 			const takenAt = processed.exif.takenAt ? new Date(`${processed.exif.takenAt}Z`) : null;
 			const row = await insertShotRow({
 				id,
@@ -245,16 +245,14 @@ export async function uploadShots(
 				byteSize: bytes.byteLength,
 				widthPx: processed.widthPx,
 				heightPx: processed.heightPx,
-				originalKey: keyOf(setupId, id, 'original'),
-				previewKey: keyOf(setupId, id, 'preview'),
-				thumbnailKey: keyOf(setupId, id, 'thumbnail'),
+				...keys,
 				exif: processed.exif,
 				takenAt: takenAt && !Number.isNaN(takenAt.getTime()) ? takenAt : null,
 				createdById: user!.id
 			});
 			result.created.push(await viewOf(row));
 		} catch (e) {
-			await removeQuietly(written);
+			await removeQuietly(objects.map(([key]) => key));
 			const why = e instanceof StorageUnavailable ? 'storage is unreachable' : 'it could not be saved';
 			result.failed.push({ fileName: shown, message: `${shown}: not kept, ${why}; nothing of it was stored, try again` });
 		}

@@ -73,5 +73,19 @@ export function guideNumberFromShot(ratedGuideNumberM: number, differenceStops: 
 	return ratedGuideNumberM * Math.sqrt(flashActual / flashShare);
 }
 
+/**
+ * How far a flash is from its rated guide number, in stops: light ∝ GN², so a guide number k times the
+ * rated one is 2·log2(k) stops (the guide number definition, see `$lib/light/flash.ts`). This is the
+ * shelf's `calibrationOffsetStops`.
+ */
+export function calibrationOffsetStops({ guideNumberM, ratedGuideNumberM }: { guideNumberM: number; ratedGuideNumberM: number }): number {
+	return 2 * Math.log2(guideNumberM / ratedGuideNumberM);
+}
+
+/** The guide number a calibration of `offsetStops` gives a flash rated `ratedGuideNumberM` (the inverse). */
+export function calibratedGuideNumber(ratedGuideNumberM: number, offsetStops: number): number {
+	return ratedGuideNumberM * 2 ** (offsetStops / 2);
+}
+
 /** Warn when more than a tenth of the planned light at the subject is not this flash. */
 export const FLASH_DOMINANCE_SHARE = 0.9;

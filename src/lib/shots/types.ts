@@ -23,6 +23,9 @@ export interface ShotExif {
 export const EXIF_FIELDS = ['fNumber', 'exposureTimeS', 'iso', 'focalLengthMm'] as const;
 export type TypedField = (typeof EXIF_FIELDS)[number];
 
+/** The settings in the words the pages show. */
+export const SETTING_WORDS: Record<TypedField, string> = { fNumber: 'f-number', exposureTimeS: 'shutter', iso: 'ISO', focalLengthMm: 'focal length' };
+
 /** Values typed by hand (where the EXIF said nothing, or was wrong). */
 export type ShotTyped = Partial<Record<TypedField, number>>;
 
@@ -40,10 +43,12 @@ export interface MeterReading {
 }
 
 /** Where a calibration came from: a flash-meter reading (the f-number read at distanceM, at iso and
- * power, through lossStops), or a test shot (its actual − predicted and the flash's share of the plan). */
+ * power, through lossStops), a test shot (its actual − predicted and the flash's share of the plan), or
+ * an offset typed on the gear shelf. */
 export type CalibrationReading =
 	| { aperture: number; distanceM: number; iso: number; power: number; lossStops: number }
-	| { differenceStops: number; flashShare: number };
+	| { differenceStops: number; flashShare: number }
+	| { typedOffsetStops: number };
 
 const fraction = z.number({ error: 'must be a number' }).min(0, 'must be at least 0').max(1, 'must be at most 1');
 

@@ -95,6 +95,7 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 				kind,
 				heightM: h ?? 0.25,
 				guideNumber: 40,
+				calibrationOffsetStops: 0,
 				power: 1 / 8,
 				lowestPower: LOWEST_POWER,
 				zoomMm: null,

@@ -230,7 +230,7 @@ function emitterFromScene(
 	};
 	if (light.kind === 'flash') {
 		const base = (plan as FlashElement | undefined) ?? defaultElement('flash', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
-		return { ...base, ...common, guideNumber: light.guideNumber, power: light.power, highSpeedSync: light.highSpeedSync ?? false, mainsPowered: light.mainsPowered ?? false };
+		return { ...base, ...common, guideNumber: light.guideNumber, calibrationOffsetStops: light.calibrationOffsetStops ?? 0, power: light.power, highSpeedSync: light.highSpeedSync ?? false, mainsPowered: light.mainsPowered ?? false };
 	}
 	const base = (plan as ContinuousElement | undefined) ?? defaultElement('continuous', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
 	return { ...base, ...common, luxAt1m: light.luxAt1m, runsHot: light.runsHot ?? true };

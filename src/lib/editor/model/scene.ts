@@ -73,6 +73,7 @@ function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElem
 			kind: 'flash',
 			position,
 			guideNumber: el.guideNumber,
+			...(el.calibrationOffsetStops !== 0 ? { calibrationOffsetStops: el.calibrationOffsetStops } : {}),
 			power: el.power,
 			...(lossStops > 0 ? { lossStops } : {}),
 			...beam,

@@ -8,6 +8,7 @@
 import { z } from 'zod';
 import { LOWEST_POWER } from '$lib/light/flash';
 import {
+	calibrationOffsetStopsField,
 	ev100Field,
 	exposureSceneSchema,
 	focalLengthMmField,
@@ -105,12 +106,14 @@ export const flashElementSchema = z.object({
 	...emitter,
 	kind: z.literal('flash'),
 	guideNumber: guideNumberField,
+	/** The flash's calibration in stops (+ = brighter than its guide number), from the gear shelf; the engine applies it. */
+	calibrationOffsetStops: calibrationOffsetStopsField,
 	power: powerField,
 	/** The lowest step of this flash's power ladder (full power down in thirds); 1/256 unless the shelf says. */
 	lowestPower: z.number({ error: 'must be a number' }).min(LOWEST_POWER, 'must be at least 1/256').max(1, 'must be at most 1 (full power)'),
 	/** The zoom head's setting, when it has one (the beam angle is the modifier's). */
 	zoomMm: range(1, 1000, 'mm').nullable(),
-	/** The flash from the gear shelf: its guide number (with its measured calibration) and its ladder. */
+	/** The flash from the gear shelf: its guide number, calibration and ladder came from there. */
 	gearId,
 	highSpeedSync: z.boolean({ error: 'must be true or false' }),
 	mainsPowered: z.boolean({ error: 'must be true or false' })

@@ -367,7 +367,7 @@ export const checklistAnswer = z.object({ studioId: id, items: z.array(text), ca
 export const calibrationAnswer = z.object({
 	id,
 	gearId: id,
-	method: z.enum(['shot', 'meter']),
+	method: z.enum(['shot', 'meter', 'typed']),
 	guideNumberM: num,
 	ratedGuideNumberM: num,
 	offsetStops: num,

@@ -181,7 +181,7 @@ export const API_ROUTES: ApiRoute[] = [
 		group: GROUPS.setups.name,
 		access: 'signed-in',
 		summary: 'Save: a new revision on top of `baseRevision`',
-		description: 'Every accepted save is a new revision, written in one transaction; a save whose `baseRevision` is not the latest is a 409 with `latestRevision`.',
+		description: 'Every accepted save is a new revision, written in one transaction; a save whose `baseRevision` is not the latest is a 409 with `latestRevision`. A flash the plan draws from the gear shelf (`gearId`) is saved with the calibration in force on the shelf as its `calibrationOffsetStops`, whatever the body says.',
 		body: { schema: setupSaveSchema },
 		answer: { status: 200, description: 'Saved', schema: answers.revisionNumberAnswer },
 		refusals: [409]

@@ -2,7 +2,8 @@
 // Idempotent: fixed ids, and rows already there are left as they are.
 import { eq, inArray, sql } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { gear, setupRevisions, setups, users } from '$lib/server/db/schema';
+import { flashCalibrations, gear, setupRevisions, setups, users } from '$lib/server/db/schema';
+import { recordTypedCalibration } from '$lib/server/db/queries/gear';
 import { referencedGearIds } from '$lib/scene/document';
 import { migrateDocument } from '$lib/scene/migrations';
 import { DEMO_GEAR, DEMO_SETUPS, type DemoAuthor, type DemoGear } from './notebook-data';
@@ -41,6 +42,12 @@ export async function seedNotebook(studioId: string) {
 			}))
 		)
 		.onConflictDoNothing({ target: gear.id });
+	// An offset typed on the demo shelf is the first entry of that flash's calibration history, as the gear form records it.
+	const typed = shelf.filter((g) => g.kind === 'flash' && Number(g.spec.calibrationOffsetStops ?? 0) !== 0);
+	const recorded = new Set((await db.select({ gearId: flashCalibrations.gearId }).from(flashCalibrations).where(inArray(flashCalibrations.gearId, typed.map((g) => g.id)))).map((r) => r.gearId));
+	for (const g of typed.filter((t) => !recorded.has(t.id))) {
+		await recordTypedCalibration(g.id, { offsetStops: Number(g.spec.calibrationOffsetStops), ratedGuideNumberM: Number(g.spec.guideNumberM), createdById: idOf('mara') });
+	}
 
 	let revisions = 0;
 	for (const demo of DEMO_SETUPS) {

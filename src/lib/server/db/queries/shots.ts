@@ -1,15 +1,19 @@
 // Named queries for shots, their sessions and measures, flash calibrations and checklists. Callers have
 // asked authz first (src/lib/server/shots.ts).
-import { and, asc, desc, eq, inArray, isNotNull, isNull } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNotNull, isNull, sql } from 'drizzle-orm';
+import { calibrationOffsetStops } from '$lib/shots/measure';
 import { db, type Tx } from '../index';
 import {
 	flashCalibrations,
+	gear,
 	sessionTicks,
 	shootingSessions,
 	shotMeasures,
 	shots,
 	storageLeftovers,
 	studioChecklists,
+	type FlashCalibration,
+	type NewFlashCalibration,
 	type NewShot
 } from '../schema';
 
@@ -112,31 +116,53 @@ export async function calibrationsOf(gearId: string) {
 	return db.select().from(flashCalibrations).where(eq(flashCalibrations.gearId, gearId)).orderBy(desc(flashCalibrations.createdAt));
 }
 
-/** The calibration in force for each of these flashes: the newest not undone. */
-export async function activeCalibrations(gearIds: string[]) {
-	if (!gearIds.length) return new Map<string, typeof flashCalibrations.$inferSelect>();
-	const rows = await db
-		.select()
-		.from(flashCalibrations)
-		.where(and(inArray(flashCalibrations.gearId, gearIds), isNull(flashCalibrations.undoneAt)))
-		.orderBy(desc(flashCalibrations.createdAt));
-	const active = new Map<string, typeof flashCalibrations.$inferSelect>();
-	for (const r of rows) if (!active.has(r.gearId)) active.set(r.gearId, r);
-	return active;
+/** A calibration's offset in stops: as typed, or from the guide numbers measured and rated. */
+export function offsetOfCalibration(row: Pick<FlashCalibration, 'guideNumberM' | 'ratedGuideNumberM' | 'reading'>) {
+	return 'typedOffsetStops' in row.reading ? row.reading.typedOffsetStops : calibrationOffsetStops(row);
 }
 
-export async function insertCalibration(values: typeof flashCalibrations.$inferInsert) {
-	const [row] = await db.insert(flashCalibrations).values(values).returning();
-	return row;
+/** Makes an offset the flash's calibration in force on the shelf (its `spec.calibrationOffsetStops`). */
+async function setShelfCalibration(tx: Tx, gearId: string, offsetStops: number) {
+	await tx
+		.update(gear)
+		.set({ spec: sql`jsonb_set(${gear.spec}, '{calibrationOffsetStops}', ${JSON.stringify(offsetStops)}::jsonb)`, updatedAt: sql`now()` })
+		.where(eq(gear.id, gearId));
 }
 
+/**
+ * Records a calibration and puts it in force: the row and the flash's offset on the shelf in one
+ * transaction (`tx` to join one already open, as a gear form's save does).
+ */
+export async function recordCalibration(values: NewFlashCalibration, tx?: Tx) {
+	const work = async (t: Tx) => {
+		const [row] = await t.insert(flashCalibrations).values(values).returning();
+		await setShelfCalibration(t, row.gearId, offsetOfCalibration(row));
+		return row;
+	};
+	return tx ? work(tx) : db.transaction(work);
+}
+
+/**
+ * Marks a calibration undone and puts the newest one left in force (none: 0 stops, the rated guide
+ * number), in one transaction. Null when there is no such calibration in force on this flash.
+ */
 export async function undoCalibrationRow(gearId: string, calibrationId: string) {
-	const [row] = await db
-		.update(flashCalibrations)
-		.set({ undoneAt: new Date() })
-		.where(and(eq(flashCalibrations.id, calibrationId), eq(flashCalibrations.gearId, gearId), isNull(flashCalibrations.undoneAt)))
-		.returning();
-	return row ?? null;
+	return db.transaction(async (tx) => {
+		const [row] = await tx
+			.update(flashCalibrations)
+			.set({ undoneAt: new Date() })
+			.where(and(eq(flashCalibrations.id, calibrationId), eq(flashCalibrations.gearId, gearId), isNull(flashCalibrations.undoneAt)))
+			.returning();
+		if (!row) return null;
+		const [inForce] = await tx
+			.select()
+			.from(flashCalibrations)
+			.where(and(eq(flashCalibrations.gearId, gearId), isNull(flashCalibrations.undoneAt)))
+			.orderBy(desc(flashCalibrations.createdAt))
+			.limit(1);
+		await setShelfCalibration(tx, gearId, inForce ? offsetOfCalibration(inForce) : 0);
+		return row;
+	});
 }
 
 export async function rememberLeftovers(keys: string[]) {

@@ -84,7 +84,11 @@ export const shotMeasures = pgTable(
 	]
 );
 
-/** Dated calibrations of a gear-shelf flash; the newest not undone is the one plans use. */
+/**
+ * Dated calibrations of a gear-shelf flash (from a shot, a meter reading, or typed on the shelf); the
+ * newest not undone is in force, and its offset (2·log2(guideNumberM / ratedGuideNumberM) stops) is the
+ * flash's `spec.calibrationOffsetStops`, which plans use.
+ */
 export const flashCalibrations = pgTable(
 	'flash_calibrations',
 	{
@@ -92,7 +96,7 @@ export const flashCalibrations = pgTable(
 		gearId: uuid()
 			.notNull()
 			.references(() => gear.id, { onDelete: 'cascade' }),
-		method: text().$type<'shot' | 'meter'>().notNull(),
+		method: text().$type<'shot' | 'meter' | 'typed'>().notNull(),
 		/** The guide number worked out (m, ISO 100, full power) and the one the shelf said before. */
 		guideNumberM: doublePrecision().notNull(),
 		ratedGuideNumberM: doublePrecision().notNull(),
@@ -104,7 +108,7 @@ export const flashCalibrations = pgTable(
 	},
 	(t) => [
 		index('flash_calibrations_gear_idx').on(t.gearId, t.createdAt),
-		check('flash_calibrations_method_check', sql`${t.method} in ('shot', 'meter')`)
+		check('flash_calibrations_method_check', sql`${t.method} in ('shot', 'meter', 'typed')`)
 	]
 );
 
@@ -136,6 +140,7 @@ export type Shot = typeof shots.$inferSelect;
 export type NewShot = typeof shots.$inferInsert;
 export type ShotMeasure = typeof shotMeasures.$inferSelect;
 export type FlashCalibration = typeof flashCalibrations.$inferSelect;
+export type NewFlashCalibration = typeof flashCalibrations.$inferInsert;
 export type StudioChecklist = typeof studioChecklists.$inferSelect;
 export type SessionTick = typeof sessionTicks.$inferSelect;
 
