@@ -6,7 +6,6 @@
  */
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import { findNonFinite } from '$lib/light/finite';
-import { calibratedScene } from '$lib/scene/calibration';
 import { referencedGearIds, type PlanElement, type SetupDocument } from '$lib/scene/document';
 
 /** Elements every step shows: without the subject or the camera there is nothing to expose. */
@@ -110,7 +109,7 @@ export type StepExposure = { ok: true; result: ExposureResult } | { ok: false; m
 export function stepExposure(document: SetupDocument, hidden: Iterable<string>): StepExposure {
 	const shown = stepDocument(document, hidden);
 	try {
-		const result = computeExposure(calibratedScene(shown));
+		const result = computeExposure(shown.scene);
 		const bad = findNonFinite(result);
 		if (bad) return { ok: false, message: `This step gives a result that is not a finite number (${bad.join('.')}).` };
 		return { ok: true, result };
