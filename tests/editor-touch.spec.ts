@@ -33,9 +33,9 @@ async function touch(cdp: CDPSession, type: 'touchStart' | 'touchMove' | 'touchE
 	});
 }
 
-/** Reads "x, y" of the light from its row in the element list, in centimetres. */
+/** Reads "x, y" of the light from its row in the element list (in the inspector sheet, collapsed or not), in centimetres. */
 async function lightAt(page: Page): Promise<[number, number]> {
-	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).textContent();
+	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at /, includeHidden: true }).textContent();
 	const m = name!.match(/at (-?[\d.]+) cm, (-?[\d.]+) cm/);
 	expect(m, `coordinates in "${name}"`).toBeTruthy();
 	return [Number(m![1]), Number(m![2])];
@@ -69,6 +69,11 @@ test('at phone width, one finger drags a light and two fingers pinch-zoom the pl
 	// The drag was one undo step: the toolbar's Undo puts the flash back.
 	await page.getByRole('button', { name: 'Undo' }).click();
 	await expect.poll(() => lightAt(page)).toEqual([-30, 0]);
+	// Selecting the flash brought the inspector sheet up over the plan; a tap on its handle puts it away.
+	const sheetHandle = page.getByRole('button', { name: 'Inspector sheet' });
+	await expect(sheetHandle).toHaveAttribute('aria-expanded', 'true');
+	await sheetHandle.tap();
+	await expect(sheetHandle).toHaveAttribute('aria-expanded', 'false');
 
 	// Two fingers on empty plan, moved apart from 100 px to 200 px: the zoom doubles about their midpoint.
 	v = await view(page);
@@ -97,6 +102,7 @@ test('at phone width, one finger drags a light and two fingers pinch-zoom the pl
 	expect(await lightAt(page)).toEqual([-30, 0]);
 
 	// The selected light's what-if control fits the phone's width too.
+	await sheetHandle.tap();
 	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).tap();
 	const whatIf = page.getByTestId('what-if');
 	await whatIf.scrollIntoViewIfNeeded();

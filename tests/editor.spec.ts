@@ -262,7 +262,7 @@ test('unsaved work survives a reload, and a stale save says someone saved since 
 	await expect(page.getByText(/were restored/)).toHaveCount(0);
 });
 
-test('the editor at phone width in dark mode: the inspector sits under the plan and nothing runs off the side', async ({
+test('the editor at phone width in dark mode: the plan is on top, the inspector a sheet over it, and nothing runs off the side', async ({
 	page,
 	context,
 	browser,
@@ -274,11 +274,14 @@ test('the editor at phone width in dark mode: the inspector sits under the plan 
 	await page.emulateMedia({ colorScheme: 'dark' });
 	await page.addInitScript(() => document.documentElement.classList.add('dark'));
 	await openPlan(page, seeded);
+	await page.getByTestId('workspace').evaluate((el) => el.scrollIntoView({ block: 'start' }));
 	await inspectorTab(page, 'Exposure');
 	const canvasBox = (await page.getByTestId('plan-canvas').boundingBox())!;
 	const panelBox = (await page.getByTestId('exposure-panel').boundingBox())!;
 	expect(canvasBox.width).toBeLessThanOrEqual(390);
-	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height - 1);
+	// The tab opened the sheet half-way up over the plan (tests/editor-phone.spec.ts tries the sheet in full).
+	await expect(page.getByTestId('inspector-column')).toHaveAttribute('data-sheet', 'half');
+	expect(panelBox.y).toBeGreaterThan(canvasBox.y + canvasBox.height / 3);
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 	// The inspector shows one tab at a time: another tab puts the exposure panel away.
 	await inspectorTab(page, 'Element');
