@@ -20,7 +20,7 @@ async function lightOnScreen(page: Page, xM: number, yM: number) {
 
 /** "x, y" of the flash from its row in the element list (in the collapsed sheet, so hidden), in centimetres. */
 async function lightAt(page: Page): Promise<[number, number]> {
-	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at /, includeHidden: true }).getAttribute('aria-label');
+	const name = await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at /, includeHidden: true }).textContent();
 	const m = name!.match(/at (-?[\d.]+) cm, (-?[\d.]+) cm/);
 	return [Number(m![1]), Number(m![2])];
 }
