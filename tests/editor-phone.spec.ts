@@ -95,7 +95,9 @@ for (const theme of ['light', 'dim'] as const) {
 		await page.keyboard.press('Enter');
 		await expect(sheet).toHaveAttribute('data-sheet', 'collapsed');
 
-		// Dragged by its handle, the sheet follows the pointer and rests at the nearest stop.
+		// Dragged by its handle, the sheet follows the pointer and rests at the nearest stop (read where the
+		// handle is once the sheet has finished sliding).
+		await expect.poll(async () => { const a = (await handle.boundingBox())!.y; await page.waitForTimeout(100); return (await handle.boundingBox())!.y === a; }).toBe(true);
 		const h = (await handle.boundingBox())!;
 		await page.mouse.move(h.x + h.width / 2, h.y + h.height / 2);
 		await page.mouse.down();

@@ -32,7 +32,7 @@ export interface LiveWorld {
 
 /** Builds the world as the signed-in owner (`request` carries Mara's session). */
 export async function makeLiveWorld(sql: Db, request: APIRequestContext, title = 'Small Light, Big Detail (test)'): Promise<LiveWorld> {
-	const dup = await request.post(`/api/v1/setups/${QUARTZ_ID}/duplicate`, { data: { subject: `Quartz cluster (live test ${randomUUID().slice(0, 8)})` } });
+	const dup = await request.post(`/api/v1/setups/${QUARTZ_ID}/duplicate`, { data: { subject: `Quartz cluster (live test ${randomUUID().slice(0, 8)})`, title: `Quartz cluster, live test ${randomUUID().slice(0, 8)}` } });
 	expect(dup.status()).toBe(201);
 	const setupId = ((await dup.json()) as { id: string }).id;
 	// The duplicate's first revision is the seeded quartz's latest: the key, the white card and a black flag off the lens.

@@ -19,7 +19,8 @@ async function visit(page: Page, url: string) {
 }
 
 async function openSetup(page: Page, title: string) {
-	await visit(page, '/setups');
+	// Searched for, so setups other tests made do not push it off the list's first page.
+	await visit(page, `/setups?q=${encodeURIComponent(title)}`);
 	await page.getByRole('link', { name: title, exact: true }).click();
 	await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
 	return new URL(page.url()).pathname.split('/')[2];
@@ -141,6 +142,7 @@ test('a save on a stale revision shows what changed since and keeps what was typ
 	await page.getByLabel('Subject').first().fill('Pyrite cube');
 	await page.getByRole('button', { name: 'Make the setup' }).click();
 	await expect(page.getByRole('heading', { level: 1, name: title })).toBeVisible();
+	await inspectorTab(page, 'Exposure');
 	await expect(page.getByTestId('exposure-summary')).toContainText('No light reaches the subject');
 	const id = new URL(page.url()).pathname.split('/')[2];
 
