@@ -331,7 +331,7 @@ test('the notebook at phone width in dark mode: no sideways scroll, search as yo
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 
 	// The setup page fits the phone too.
-	await visit(page, '/setups');
+	await visit(page, `/setups?q=${encodeURIComponent(QUARTZ)}`);
 	await page.getByRole('link', { name: QUARTZ }).click();
 	await inspectorTab(page, 'Exposure');
 	await expect(page.getByTestId('aperture-table')).toBeVisible();

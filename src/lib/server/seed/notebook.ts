@@ -4,7 +4,7 @@ import { eq, inArray, sql } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { flashCalibrations, gear, setupRevisions, setups, users } from '$lib/server/db/schema';
 import { recordTypedCalibration } from '$lib/server/db/queries/gear';
-import { referencedGearIds } from '$lib/scene/document';
+import { referencedGearIds, withGearCalibrations } from '$lib/scene/document';
 import { migrateDocument } from '$lib/scene/migrations';
 import { DEMO_GEAR, DEMO_SETUPS, type DemoAuthor, type DemoGear } from './notebook-data';
 
@@ -54,7 +54,8 @@ export async function seedNotebook(studioId: string) {
 		const docs = demo.revisions.map((r, i) => {
 			const m = migrateDocument(r.document);
 			if (!m.ok) throw new Error(`seed: "${demo.title}" revision ${i + 1}: ${m.message}`);
-			return m.document;
+			// As a save does: each flash drawn from the shelf carries its calibration in the scene.
+			return withGearCalibrations(m.document);
 		});
 		const last = docs[docs.length - 1];
 		const first = demo.revisions[0];
