@@ -9,6 +9,7 @@ import { powerNeeded } from './model/power-needed';
 import type { CameraSettings } from './model/schema';
 import type { ShelfGear } from './model/shelf';
 import { LOWEST_POWER } from '$lib/light/flash';
+import { guideNumberAtZoom } from '$lib/scene/gear';
 import type { EditorModel } from './model/types';
 
 /**
@@ -26,6 +27,14 @@ export function flashFiguresFromShelf(flash: ShelfGear<'flash'>) {
 		mainsPowered: s.mainsPowered ?? false,
 		...(s.kelvin !== undefined ? { kelvin: s.kelvin } : {})
 	};
+}
+
+/**
+ * A shelf flash's figures with its zoom head at `zoomMm`: the guide number the shelf lists for that
+ * position (`guideNumberAtZoom`), taken as `flashFiguresFromShelf` takes the flash's own.
+ */
+export function flashFiguresAtZoom(flash: ShelfGear<'flash'>, zoomMm: number) {
+	return flashFiguresFromShelf({ ...flash, spec: { ...flash.spec, guideNumberM: guideNumberAtZoom(flash.spec, zoomMm), zoomMm } });
 }
 
 /**
