@@ -127,6 +127,12 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	await inspectorTab(page, 'Exposure');
 	await expect(panel.locator('tr[aria-current="true"]').getByRole('rowheader')).toHaveText(/^f\/16\s*set$/);
 	expect(exposureRequests).toEqual([]);
+	// The copy was made from the scene alone, so the editor laid its camera out in front of the subject;
+	// an ammonite section lies face up, as the inspector can say.
+	await inspectorTab(page, 'Element');
+	await page.getByTestId('element-list').getByRole('button', { name: /^Subject, / }).click();
+	await page.getByLabel('Its face looks', { exact: true }).selectOption('up');
+	await inspectorTab(page, 'Exposure');
 	const rakeLine = panel.getByTestId('flash-power').locator('li[data-flash="rake"]');
 	const shownStep = (await rakeLine.getByTestId('flash-power-step').textContent())!.trim();
 
@@ -150,12 +156,11 @@ test('the plan editor: canvas, live exposure, the element list by keyboard, f/16
 	});
 	expect(calc.status()).toBe(200);
 	const flash = await calc.json();
-	// The plan's camera looks down on the section, so its face looks up at the camera and the rake meets
-	// it at a grazing angle: Lambert's cosine law (irradiance ∝ cos of the angle of incidence; Hecht,
-	// "Optics", from memory) asks for 1/cos θ more power than the flash question, which takes it face on.
-	const cameraAt = setup.document.plan.elements.camera.position as number[];
+	// The section lies face up (set above), so the rake meets it at a grazing angle: Lambert's cosine law
+	// (irradiance ∝ cos of the angle of incidence; Hecht, "Optics", from memory) asks for 1/cos θ more
+	// power than the flash question, which takes the light face on.
 	const unit = (v: number[]) => v.map((x) => x / Math.hypot(...v));
-	const faceNormal = unit(cameraAt.map((v, i) => v - scene.subject.position[i]));
+	const faceNormal = [0, 0, 1];
 	const toRake = unit((rake.position as number[]).map((v, i) => v - scene.subject.position[i]));
 	const cosIncidence = faceNormal.reduce((sum, v, i) => sum + v * toRake[i], 0);
 	const required = flash.requiredPower / cosIncidence;
