@@ -63,6 +63,7 @@ test('flash power: "1/32" typed is kept and shown as 1/32; bad input is named be
 	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
 	expect(saved.document.scene.lights[0].power).toBe(1 / 32);
 	await openSetup(page, id);
+	await inspectorTab(page, 'Element');
 	await page.getByTestId('element-list').getByRole('button', { name: /, Flash, at / }).click();
 	await expect(page.locator('#prop-power')).toHaveValue('1/32');
 });
@@ -127,6 +128,7 @@ test('a viewer selects a light of a seeded setup and sees its properties read-on
 
 	await inspectorTab(page, 'Elements');
 	const inspector = page.getByTestId('inspector');
+	await inspectorTab(page, 'Elements');
 	await inspector.getByRole('button', { name: 'Marten 24, grid, raking' }).click();
 	await expect(inspector.getByText('Flash · read-only')).toBeVisible();
 	await expect(page.locator('#prop-power')).toHaveValue(formatPower(rake.power));
@@ -137,4 +139,60 @@ test('a viewer selects a light of a seeded setup and sees its properties read-on
 	await expect(inspector.getByTestId('power-needed')).toContainText('Nearest step');
 	await expect(inspector.getByRole('button', { name: /Set to the power needed|Delete|Duplicate|Lock/ })).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Save revision' })).toHaveCount(0);
+});
+
+test('the camera tab: a close-up lens costs no light and a 2× teleconverter two stops, as the engine says, and both are kept through a save', async ({
+	page,
+	context,
+	browser,
+	baseURL
+}) => {
+	await signedInAs(context, browser, baseURL, OWNER);
+	const id = await createQuartzSetup(page, 'Close-up lens');
+	await openSetup(page, id);
+	const working = page.getByTestId('strip-working');
+	const keyStops = async () => {
+		await inspectorTab(page, 'Exposure');
+		const stops = Number(await page.getByTestId('exposure-panel').locator('[data-light-stops]').first().getAttribute('data-light-stops'));
+		await inspectorTab(page, 'Camera');
+		return stops;
+	};
+	// Extension (the default): N_w = N(1 + m/P) = 16 × (1 + 0.5) = 24 (the working-aperture formula of
+	// /api/v1/openapi.json; any close-up photography text).
+	await expect(working).toHaveText('f/24');
+	const byExtension = await keyStops();
+
+	// A close-up lens on a lens focused at infinity leaves the image at the focal plane: no light lost,
+	// N_w = N = 16, so the key gains 2·log2(24/16) = 1.17 stops (exposure goes with 1/N_w²).
+	await page.getByLabel('Magnification made by').selectOption('close-up-lens');
+	await expect(working).toHaveText('f/16');
+	const byCloseUpLens = await keyStops();
+	expect(byCloseUpLens - byExtension).toBeCloseTo(2 * Math.log2(24 / 16), 6);
+
+	// A 2× teleconverter doubles the f-number (common practice: it costs two stops): f/32, −2 stops.
+	await page.getByLabel('Teleconverter', { exact: true }).selectOption('2');
+	await expect(working).toHaveText('f/32');
+	expect((await keyStops()) - byCloseUpLens).toBeCloseTo(-2, 6);
+
+	// A factor below 1 is no teleconverter: refused beside the field, nothing changes.
+	await page.getByLabel('Teleconverter', { exact: true }).selectOption('other');
+	await typeInto(page, '#camera-teleconverterFactor', '0.5');
+	await expect(page.locator('#camera-teleconverterFactor-error')).toContainText('teleconverterFactor must be at least 1');
+	await expect(working).toHaveText('f/32');
+
+	// The Exposure tab says which depth-of-field formula answered: the plan's camera gives a focal length.
+	await inspectorTab(page, 'Exposure');
+	await expect(page.getByTestId('depth-of-field')).toContainText('thin-lens formula');
+
+	await saveRevision(page, 'Close-up lens and 2× converter', 2);
+	const saved = await (await page.request.get(`/api/v1/setups/${id}`)).json();
+	expect(saved.document.scene.camera).toMatchObject({ magnificationBy: 'close-up-lens', teleconverterFactor: 2, focalLengthMm: expect.any(Number) });
+	expect(saved.document.scene.camera.position).toHaveLength(3);
+	const exposure = await (await page.request.get(`/api/v1/setups/${id}/exposure`)).json();
+	expect(exposure.workingAperture).toBeCloseTo(32, 9);
+
+	await openSetup(page, id);
+	await inspectorTab(page, 'Camera');
+	await expect(page.getByLabel('Magnification made by')).toHaveValue('close-up-lens');
+	await expect(page.getByLabel('Teleconverter', { exact: true })).toHaveValue('2');
 });

@@ -140,9 +140,25 @@ test('sketch a tabletop plan on a new setup, f/16 at 1:1, twice as far is two st
 		.poll(async () => Math.abs((await draftScene(page, 'new')).lights.find((l) => l.kind === 'flash')!.position[2] - subjectZ))
 		.toBeLessThan(0.001);
 	await page.getByRole('button', { name: 'Aim at the subject' }).click();
+	// Its front taken as a point, so the flash question's point law is the check below (nearer than five
+	// times its size a softbox is otherwise a sized source, and the inverse-square law no longer holds).
+	await page.getByLabel('Its front', { exact: true }).selectOption('point');
 	await list.getByRole('button', { name: /^White card, / }).click();
 	await page.getByLabel('White card bounces').selectOption({ label: 'Flash' });
 	await page.getByRole('button', { name: 'Aim at the subject' }).click();
+
+	// The rhomb's face turned to the flash (a direction on the plan), so the flash meets it face on: the
+	// plan's camera stands in front and the flash behind the subject, so a face toward the camera would
+	// get none of it (Lambert's cosine law).
+	{
+		const now = await draftScene(page, 'new');
+		const f = now.lights.find((l) => l.kind === 'flash')!.position;
+		const towardFlashDeg = (Math.atan2(f[1] - now.subject.position[1], f[0] - now.subject.position[0]) * 180) / Math.PI;
+		await list.getByRole('button', { name: /^Subject, / }).click();
+		await page.getByLabel('Its face looks', { exact: true }).selectOption('direction');
+		await setField(page, 'Face turned toward (°, clockwise from right)', String(Math.round(towardFlashDeg)));
+		await draftScene(page, 'new', '"normal"');
+	}
 
 	// f/16 at 1:1.
 	await inspectorTab(page, 'Camera');

@@ -126,7 +126,9 @@ export async function createQuartzSetup(page: Page, label: string): Promise<stri
 				schemaVersion: 1,
 				scene: {
 					camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
-					subject: { position: [0, 0, 0.03] },
+					// The face the tests read is turned to the key (the editor's camera stands in front, and a face
+					// toward it would get the 90° key at grazing incidence: nothing, by Lambert's cosine law).
+					subject: { position: [0, 0, 0.03], normal: [-1, 0, 0] },
 					lights: [{ id: 'key', kind: 'flash', position: [-0.3, 0, 0.03], guideNumber: 40, power: 0.125 }]
 				},
 				plan: {},

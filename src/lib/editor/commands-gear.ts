@@ -17,15 +17,15 @@ import type { EditorModel } from './model/types';
  * to the scene): its rated guide number and, beside it, its calibration in stops, which the engine
  * applies. Its ladder ends at its lowest power.
  */
-export function flashFiguresFromShelf(flash: ShelfGear<'flash'>) {
+export function flashFiguresFromShelf(flash: ShelfGear<'flash'>, zoomMm = flash.spec.zoomMm) {
 	const s = flash.spec;
-	const light = sceneFlashFromShelf(s, s.zoomMm);
+	const light = sceneFlashFromShelf(s, zoomMm);
 	return {
 		gearId: flash.id,
 		guideNumber: light.guideNumber,
 		calibrationOffsetStops: light.calibrationOffsetStops ?? 0,
 		lowestPower: Math.max(LOWEST_POWER, light.lowestPower),
-		zoomMm: s.zoomMm ?? null,
+		zoomMm: zoomMm ?? null,
 		mainsPowered: s.mainsPowered ?? false,
 		...(s.kelvin !== undefined ? { kelvin: s.kelvin } : {})
 	};

@@ -7,11 +7,15 @@ import { applyDiff } from './model/diff';
 import { modelFromScene } from './model/layout';
 import type { EditorModel } from './model/types';
 
-/** A quartz cluster at the origin, 3 cm up; one flash 50 cm to its left at subject height; f/16 at 1:2. */
+/**
+ * A quartz cluster at the origin, 3 cm up, the face the tests read turned to the key (its normal), so
+ * the laid-out camera in front does not make the key a grazing light; one flash 50 cm to its left at
+ * subject height; f/16 at 1:2.
+ */
 export function quartzScene(): ExposureScene {
 	return {
 		camera: { iso: 100, aperture: 16, shutter: 1 / 160, magnification: 0.5 },
-		subject: { position: [0, 0, 0.03] },
+		subject: { position: [0, 0, 0.03], normal: [-1, 0, 0] },
 		lights: [{ id: 'key', kind: 'flash', position: [-0.5, 0, 0.03], guideNumber: 40, power: 1 / 8 }]
 	};
 }

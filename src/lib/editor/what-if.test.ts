@@ -100,6 +100,7 @@ describe('previewWhatIf', () => {
 
 	it('a continuous light changes its output, lux at 1 m', () => {
 		const scene = quartzScene();
+		scene.subject = { position: [0, 0, 0.03], normal: [0, -1, 0] }; // the face turned to the lamp
 		scene.lights = [{ id: 'lamp', kind: 'continuous', position: [0, -0.5, 0.03], luxAt1m: 2000 }];
 		const model = modelFromScene(scene).model;
 		const p = previewWhatIf(model, 'lamp', { powerThirds: -3, distanceSixths: 0 })!;

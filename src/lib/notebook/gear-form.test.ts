@@ -14,6 +14,40 @@ describe('specFromForm', () => {
 		expect(r.spec).toEqual({ guideNumberM: 40, lowestPower: 1 / 128, syncSpeedS: 1 / 250, calibrationOffsetStops: -0.3, mainsPowered: false });
 	});
 
+	it('reads the guide numbers by zoom as people write them, and names a position it cannot read', () => {
+		const r = specFromForm('flash', form({ 'spec.guideNumberM': '40', 'spec.lowestPower': '1/128', 'spec.syncSpeedS': '1/250', 'spec.guideNumbersByZoom': '24 mm: 28, 35mm:40;\n105 mm : 58' }));
+		expect(r.errors).toEqual({});
+		expect(r.spec.guideNumbersByZoom).toEqual([
+			{ zoomMm: 24, guideNumberM: 28 },
+			{ zoomMm: 35, guideNumberM: 40 },
+			{ zoomMm: 105, guideNumberM: 58 }
+		]);
+		const bad = specFromForm('flash', form({ 'spec.guideNumberM': '40', 'spec.lowestPower': '1/128', 'spec.syncSpeedS': '1/250', 'spec.guideNumbersByZoom': '24 mm: 28, wide' }));
+		expect(bad.errors['spec.guideNumbersByZoom']).toMatch(/“wide”.*35 mm: 40/);
+	});
+
+	it('a flash edited through its form keeps its guide numbers by zoom and a camera its pixel pitch', () => {
+		// The edit form is filled from the stored spec (fieldText), so what the person does not touch goes back unchanged.
+		const stored: Record<string, unknown> = {
+			guideNumberM: 40,
+			lowestPower: 1 / 128,
+			syncSpeedS: 1 / 250,
+			calibrationOffsetStops: 0,
+			zoomMm: 35,
+			guideNumbersByZoom: [
+				{ zoomMm: 24, guideNumberM: 28 },
+				{ zoomMm: 35, guideNumberM: 40 },
+				{ zoomMm: 105, guideNumberM: 58 }
+			],
+			mainsPowered: false
+		};
+		const filled = (kind: 'flash' | 'camera', spec: Record<string, unknown>) =>
+			form(Object.fromEntries(GEAR_FIELDS[kind].map((f) => [`spec.${f.key}`, fieldText(f, spec[f.key])])));
+		expect(specFromForm('flash', filled('flash', stored)).spec).toEqual(stored);
+		const camera = { sensorWidthMm: 23.5, sensorHeightMm: 15.6, cocMm: 0.02, pixelPitchUm: 3.9, syncSpeedS: 1 / 200 };
+		expect(specFromForm('camera', filled('camera', camera)).spec).toEqual(camera);
+	});
+
 	it('reads a reflector in centimetres or inches and a reflectance in per cent', () => {
 		const r = specFromForm('reflector', form({ 'spec.widthM': '30', 'spec.heightM': '8 in', 'spec.reflectance': '85 %', 'spec.surface': 'diffuse' }));
 		expect(r.errors).toEqual({});

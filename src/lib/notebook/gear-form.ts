@@ -19,7 +19,7 @@ export const KIND_TITLES: Record<GearKindName, { one: string; many: string }> = 
 	camera: { one: 'camera', many: 'Cameras' }
 };
 
-type Parse = 'number' | 'fraction' | 'time' | 'lengthCm' | 'fnumber' | 'magnification' | 'percent' | 'select' | 'checkbox';
+type Parse = 'number' | 'fraction' | 'time' | 'lengthCm' | 'fnumber' | 'magnification' | 'percent' | 'zoomTable' | 'select' | 'checkbox';
 
 export interface GearField {
 	key: string;
@@ -41,6 +41,7 @@ export const GEAR_FIELDS: Record<GearKindName, GearField[]> = {
 		{ key: 'syncSpeedS', label: 'Sync speed', hint: 'e.g. 1/250', parse: 'time', column: 'Sync' },
 		{ key: 'calibrationOffsetStops', label: 'Calibration offset (stops, + = brighter than its GN)', hint: 'e.g. -0.3', parse: 'number', optional: true, column: 'Calibration' },
 		{ key: 'zoomMm', label: 'Zoom head position the GN is for (mm)', hint: 'e.g. 35', parse: 'number', optional: true, column: 'Zoom' },
+		{ key: 'guideNumbersByZoom', label: 'Guide number at each zoom position (mm: GN)', hint: 'e.g. 24 mm: 28, 35 mm: 40, 105 mm: 58', parse: 'zoomTable', optional: true, column: 'GN by zoom' },
 		{ key: 'kelvin', label: 'Colour temperature (K)', hint: 'e.g. 5600', parse: 'number', optional: true, column: 'Kelvin' },
 		{ key: 'mainsPowered', label: 'Runs from the mains (a studio strobe)', hint: '', parse: 'checkbox', optional: true, column: 'Mains' }
 	],
@@ -68,6 +69,7 @@ export const GEAR_FIELDS: Record<GearKindName, GearField[]> = {
 		{ key: 'sensorWidthMm', label: 'Sensor width (mm)', hint: 'e.g. 36', parse: 'number', column: 'Sensor width' },
 		{ key: 'sensorHeightMm', label: 'Sensor height (mm)', hint: 'e.g. 24', parse: 'number', column: 'Sensor height' },
 		{ key: 'cocMm', label: 'Circle of confusion (mm)', hint: 'e.g. 0.03', parse: 'number', column: 'CoC' },
+		{ key: 'pixelPitchUm', label: 'Pixel pitch (µm)', hint: 'e.g. 4.3', parse: 'number', optional: true, column: 'Pixel pitch' },
 		{ key: 'syncSpeedS', label: 'Flash sync speed', hint: 'e.g. 1/200', parse: 'time', column: 'Sync' }
 	]
 };
@@ -92,7 +94,33 @@ function parseOne(field: GearField, raw: FormDataEntryValue | null): unknown {
 			return parseMagnification(text);
 		case 'percent':
 			return parseFraction(text);
+		case 'zoomTable':
+			return parseZoomTable(text);
 	}
+}
+
+const ZOOM_ENTRY = /^(\d+(?:\.\d+)?)\s*(?:mm)?\s*[:=]\s*(\d+(?:\.\d+)?)\s*(?:m)?$/i;
+
+/** "24 mm: 28, 35 mm: 40" (commas, semicolons or new lines between): the zoom positions with their guide numbers. */
+export function parseZoomTable(text: string): { zoomMm: number; guideNumberM: number }[] {
+	return text
+		.split(/[,;\n]+/)
+		.map((part) => part.trim())
+		.filter(Boolean)
+		.map((part) => {
+			const m = part.match(ZOOM_ENTRY);
+			if (!m) throw new UnitParseError(`cannot read “${part}”: write each position as zoom: guide number, e.g. 35 mm: 40`);
+			return { zoomMm: Number(m[1]), guideNumberM: Number(m[2]) };
+		});
+}
+
+/** The zoom positions as they are typed, widest first. */
+function zoomTableText(value: unknown): string {
+	if (!Array.isArray(value)) return '';
+	return [...value]
+		.sort((a, b) => a.zoomMm - b.zoomMm)
+		.map((z) => `${roundSig(z.zoomMm, 4)} mm: ${roundSig(z.guideNumberM, 4)}`)
+		.join(', ');
 }
 
 /** A gear form's spec, or the fields that could not be read (keyed `spec.<field>`). */
@@ -117,6 +145,7 @@ export function specFromForm(kind: GearKindName, form: FormData): { spec: Record
 /** The text a form shows for a stored value (what a person would type back). */
 export function fieldText(field: GearField, value: unknown): string {
 	if (value === undefined || value === null) return '';
+	if (field.parse === 'zoomTable') return zoomTableText(value);
 	if (typeof value === 'boolean') return value ? 'on' : '';
 	if (typeof value !== 'number') return String(value);
 	switch (field.parse) {
@@ -139,7 +168,7 @@ export function fieldText(field: GearField, value: unknown): string {
 
 /** The value as a table cell. */
 export function cellText(field: GearField, value: unknown): string {
-	if (value === undefined || value === null || value === '') return '—';
+	if (value === undefined || value === null || value === '' || (Array.isArray(value) && !value.length)) return '—';
 	if (typeof value === 'boolean') return value ? 'yes' : 'no';
 	if (typeof value === 'number') {
 		if (field.parse === 'time') return formatShutter(value);

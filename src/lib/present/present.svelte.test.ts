@@ -22,6 +22,8 @@ const step = (id: string, visibleIds: string[] | null, caption: string): Present
 const lesson = () => [step('s1', ['key'], 'The key light alone'), step('s2', ['key', 'card'], 'Add the card'), step('s3', null, 'Everything')];
 
 const total = (p: Presentation) => (p.editor.exposure.ok ? p.editor.exposure.result.total.x : NaN);
+/** What the shadow face gets: a card opposite the key fills that face (faces.ts), not the one the key lights. */
+const shadow = (p: Presentation) => (p.editor.exposure.ok ? (p.editor.exposure.result.faces?.shadow.x ?? NaN) : NaN);
 
 describe('presenting a lesson', () => {
 	it('moves through the steps with the keys, holding at both ends, and tells the page', () => {
@@ -38,13 +40,13 @@ describe('presenting a lesson', () => {
 		expect(p.nextStep).toBeUndefined();
 	});
 
-	it('shows each step’s lights only, and the exposure follows them (the card adds light)', () => {
+	it('shows each step’s lights only, and the exposure follows them (the card fills the shadow side)', () => {
 		const p = new Presentation(lesson());
 		expect(p.editor.scene.lights.map((l) => l.id)).toEqual(['key']);
-		const keyAlone = total(p);
+		const keyAlone = shadow(p);
 		p.act('next');
 		expect(p.editor.scene.lights.map((l) => l.id).sort()).toEqual(['card', 'key']);
-		expect(total(p)).toBeGreaterThan(keyAlone);
+		expect(shadow(p)).toBeGreaterThan(keyAlone);
 	});
 
 	it('blanks and unblanks with B', () => {

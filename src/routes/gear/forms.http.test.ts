@@ -85,6 +85,25 @@ describe('editing and retiring gear', () => {
 		expect(row.spec.calibrationOffsetStops).toBe(-0.3);
 	});
 
+	it('keeps a flash’s guide numbers by zoom through an edit, as the form shows them', async () => {
+		const byZoom = [
+			{ zoomMm: 24, guideNumberM: 28 },
+			{ zoomMm: 35, guideNumberM: 40 }
+		];
+		const item = await createGear(studio.people.owner.user, {
+			studioId: studio.studioId,
+			kind: 'flash',
+			name: 'Zoom head flash',
+			spec: { guideNumberM: 40, lowestPower: 1 / 128, syncSpeedS: 1 / 250, calibrationOffsetStops: 0, zoomMm: 35, guideNumbersByZoom: byZoom, mainsPowered: false },
+			notes: ''
+		});
+		const page = await (await fetch(`${baseUrl()}/gear?studio=${studio.studioId}&edit=${item.id}`, { headers: { cookie: studio.people.editor.cookie } })).text();
+		expect(page).toContain('24 mm: 28, 35 mm: 40');
+		const r = await postAction('/gear?/edit', flashForm({ id: item.id, name: 'Zoom head flash', 'spec.zoomMm': '35', 'spec.guideNumbersByZoom': '24 mm: 28, 35 mm: 40, 105 mm: 58' }), studio.people.editor);
+		expect(r.type).toBe('redirect');
+		expect((await gearRow(item.id)).spec.guideNumbersByZoom).toEqual([...byZoom, { zoomMm: 105, guideNumberM: 58 }]);
+	});
+
 	it('puts a refused spec beside its input and keeps the item', async () => {
 		const item = await freshFlash();
 		const r = await postAction('/gear?/edit', flashForm({ id: item.id, 'spec.lowestPower': '2' }), studio.people.editor);

@@ -35,9 +35,9 @@ export function finishOf(el: { surface: 'diffuse' | 'specular'; reflectance: num
 
 export const MODIFIER_PRESETS: readonly Modifier[] = [
 	{ name: 'Bare head', beamAngleDeg: 60, lossStops: 0, sizeM: 0.075 },
-	{ name: 'Small softbox (30 cm)', beamAngleDeg: 100, lossStops: 1.5, sizeM: 0.3 },
-	{ name: 'Mini softbox (15 cm)', beamAngleDeg: 90, lossStops: 1, sizeM: 0.15 },
-	{ name: 'Diffusion dome', beamAngleDeg: 150, lossStops: 1.5, sizeM: 0.08 },
+	{ name: 'Small softbox (30 cm)', beamAngleDeg: 100, lossStops: 1.5, sizeM: 0.3, emitterShape: 'rectangle' },
+	{ name: 'Mini softbox (15 cm)', beamAngleDeg: 90, lossStops: 1, sizeM: 0.15, emitterShape: 'rectangle' },
+	{ name: 'Diffusion dome', beamAngleDeg: 150, lossStops: 1.5, sizeM: 0.08, emitterShape: 'disc' },
 	{ name: 'Snoot', beamAngleDeg: 20, lossStops: 1, sizeM: 0.04 },
 	{ name: 'Grid (20°)', beamAngleDeg: 20, lossStops: 1, sizeM: 0.075 }
 ];
@@ -86,7 +86,7 @@ export function defaultElement<K extends ElementKind>(kind: K, at: Placement): E
 	const h = at.heightM;
 	switch (kind) {
 		case 'subject':
-			return { ...common, kind, heightM: h ?? 0.03, widthM: 0.08, depthM: 0.06, living: false } as ElementOfKind<K>;
+			return { ...common, kind, heightM: h ?? 0.03, widthM: 0.08, depthM: 0.06, living: false, facing: 'camera' } as ElementOfKind<K>;
 		case 'camera':
 			return { ...common, kind, heightM: h ?? 0.1, focalLengthMm: 100, sensorWidthMm: 36, sensorHeightMm: 24, lens: null } as ElementOfKind<K>;
 		case 'flash':

@@ -53,8 +53,9 @@ describe('reading and writing the notebook’s setup document', () => {
 		expect(Object.keys(els)).not.toContain('softbox');
 	});
 
-	it('computes the same exposure as the document’s own scene', () => {
-		const before = computeExposure(exposureSceneSchema.parse(doc.scene));
+	it('computes the same exposure as the document’s own scene seen from the plan’s camera', () => {
+		// The plan's camera gives the scene its place (the subject faces it: Lambert's cosine law).
+		const before = computeExposure(exposureSceneSchema.parse({ ...doc.scene, camera: { ...doc.scene.camera, position: [0, -0.42, 0.22] } }));
 		const after = computeExposure(exposureSceneSchema.parse(documentFromModel(model).scene));
 		expect(after.total.x / before.total.x).toBeCloseTo(1, 9);
 	});

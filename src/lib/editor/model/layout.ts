@@ -9,7 +9,8 @@
 import type { ExposureScene, SceneLight } from '$lib/light/schema';
 import { defaultElement, KIND_LABELS } from './defaults';
 import { aimAngles, direction3, normaliseDeg, panelFromSegment, panelSegment } from './geometry';
-import { diffuserLossStops, reflectorProblem } from './scene';
+import { LOWEST_POWER } from '$lib/light/flash';
+import { depthMOf, diffuserLossStops, reflectorProblem } from './scene';
 import type {
 	AmbientElement,
 	CameraElement,
@@ -42,14 +43,35 @@ const BARE_SIZE_M = 0.075;
  * `planModifier` undefined (no plan entry): all of the scene's loss is put down to a modifier;
  * null (the plan says none): only a beam the scene gives makes one, with no loss of its own.
  */
-export function modifierFromScene(light: { lossStops?: number; beamAngleDeg?: number }, planModifier: Modifier | null | undefined): Modifier | null {
+export function modifierFromScene(light: SceneEmitterFigures, planModifier: Modifier | null | undefined): Modifier | null {
 	const beam = light.beamAngleDeg ?? null;
-	if (planModifier) return planModifier.beamAngleDeg === beam ? planModifier : { ...planModifier, beamAngleDeg: beam };
-	if (planModifier === null) return beam === null ? null : { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, lossStops: 0, sizeM: BARE_SIZE_M };
-	if (beam !== null || (light.lossStops ?? 0) > 0) {
-		return { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, lossStops: light.lossStops ?? 0, sizeM: BARE_SIZE_M };
-	}
+	const front = frontFromScene(light);
+	const sized = (m: Modifier): Modifier => {
+		const out: Modifier = { ...m, beamAngleDeg: beam, ...front };
+		if (!front.emitterShape) delete out.emitterShape;
+		if (front.emitterShape !== 'rectangle' || out.heightM === undefined) delete out.heightM;
+		return out;
+	};
+	if (planModifier) return sameModifier(planModifier, sized(planModifier)) ? planModifier : sized(planModifier);
+	const bare = { name: SCENE_MODIFIER_NAME, beamAngleDeg: beam, sizeM: BARE_SIZE_M };
+	if (planModifier === null) return beam === null && !front.emitterShape ? null : sized({ ...bare, lossStops: 0 });
+	if (beam !== null || (light.lossStops ?? 0) > 0 || front.emitterShape) return sized({ ...bare, lossStops: light.lossStops ?? 0 });
 	return null;
+}
+
+type SceneEmitterFigures = { lossStops?: number; beamAngleDeg?: number; emitterWidthM?: number; emitterHeightM?: number; emitterDiameterM?: number };
+
+/** A scene light's front size as a modifier's shape and size (nothing: a point). */
+function frontFromScene(light: SceneEmitterFigures): Partial<Pick<Modifier, 'emitterShape' | 'sizeM' | 'heightM'>> {
+	if (light.emitterDiameterM !== undefined) return { emitterShape: 'disc', sizeM: light.emitterDiameterM };
+	if (light.emitterWidthM !== undefined && light.emitterHeightM !== undefined) {
+		return { emitterShape: 'rectangle', sizeM: light.emitterWidthM, ...(light.emitterHeightM !== light.emitterWidthM ? { heightM: light.emitterHeightM } : {}) };
+	}
+	return {};
+}
+
+function sameModifier(a: Modifier, b: Modifier): boolean {
+	return a.beamAngleDeg === b.beamAngleDeg && a.sizeM === b.sizeM && a.emitterShape === b.emitterShape && (a.heightM ?? a.sizeM) === (b.heightM ?? b.sizeM);
 }
 
 /** The scene of a setup that has nothing on it yet: a subject, a camera at 1:2, f/16, no light. */
@@ -89,7 +111,9 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 		yM: subjectPos[1],
 		heightM: subjectPos[2],
 		living: scene.subject.living ?? false,
-		normal: scene.subject.normal
+		facing: scene.subject.facing === 'up' ? 'up' : 'camera',
+		normal: scene.subject.normal,
+		...(scene.subject.depthMm !== undefined ? { depthM: keepDepth(subjectBase.depthM, scene.subject.depthMm) } : {})
 	};
 	if (!subject.normal) delete subject.normal;
 	elements[subject.id] = subject;
@@ -99,12 +123,12 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 	for (const el of Object.values(planElements)) {
 		if (el.kind === 'camera' || el.kind === 'diffuser' || el.kind === 'background') {
 			if (el.id in elements) continue;
-			elements[el.id] = el;
+			elements[el.id] = el.kind === 'camera' ? cameraFromScene(scene.camera, el) : el;
 			if (el.kind === 'diffuser') diffusers.push(el);
 		}
 	}
 	if (planEmpty) {
-		const u = layoutCameraDistanceM(scene.camera.magnification);
+		const u = layoutCameraDistanceM(scene.camera.magnification, scene.camera.focalLengthMm);
 		const camera: CameraElement = defaultElement('camera', {
 			id: 'camera',
 			label: KIND_LABELS.camera,
@@ -115,7 +139,9 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 			zIndex: nextZ()
 		});
 		camera.focalLengthMm = LAYOUT_FOCAL_LENGTH_MM;
-		elements[camera.id] = camera;
+		const placed = cameraFromScene(scene.camera, camera);
+		if (scene.camera.position) placed.rotationDeg = aimAngles(scene.camera.position as Vec3, subjectPos).rotationDeg;
+		elements[camera.id] = placed;
 	}
 
 	const byId = new Map(scene.lights.map((l) => [l.id, l]));
@@ -160,7 +186,7 @@ export function modelFromScene(scene: ExposureScene, planElements: Readonly<Reco
 
 	const model: EditorModel = {
 		elements,
-		camera: { ...scene.camera },
+		camera: settingsFromScene(scene.camera, Object.values(elements).some((e) => e.kind === 'camera')),
 		kept: EMPTY_KEPT_PLAN
 	};
 	// Reflectors the scene could not hold (no usable source) live in the plan only: keep them.
@@ -199,6 +225,32 @@ function keepTurn(planDeg: number, sceneDeg: number): number {
 	return Math.abs(normaliseDeg(planDeg - sceneDeg - 180)) < 1e-6 ? planDeg : sceneDeg;
 }
 
+/** What the camera element holds of the scene's camera (its place, focal length, sensor): the scene's figures win. */
+const CAMERA_ELEMENT_FIGURES = ['position', 'focalLengthMm', 'sensorWidthMm', 'sensorHeightMm'] as const;
+
+function cameraFromScene(camera: ExposureScene['camera'], el: CameraElement): CameraElement {
+	const p = camera.position;
+	return {
+		...el,
+		...(p ? { xM: p[0], yM: p[1], heightM: p[2] } : {}),
+		...(camera.focalLengthMm !== undefined ? { focalLengthMm: camera.focalLengthMm } : {}),
+		...(camera.sensorWidthMm !== undefined ? { sensorWidthMm: camera.sensorWidthMm } : {}),
+		...(camera.sensorHeightMm !== undefined ? { sensorHeightMm: camera.sensorHeightMm } : {})
+	};
+}
+
+/** The camera settings: the scene's camera, less what a camera element on the plan holds (it gives them back to the scene). */
+function settingsFromScene(camera: ExposureScene['camera'], hasCameraElement: boolean): EditorModel['camera'] {
+	const settings = { ...camera };
+	if (hasCameraElement) for (const key of CAMERA_ELEMENT_FIGURES) delete settings[key];
+	return settings;
+}
+
+/** The scene's depth in metres, but the plan's when they agree to a nanometre (mm to m is not exact in floating point). */
+function keepDepth(planM: number, sceneMm: number): number {
+	return Math.abs(planM * 1000 - sceneMm) < 1e-6 ? planM : depthMOf(sceneMm);
+}
+
 function emitterFromScene(
 	light: Extract<SceneLight, { kind: 'flash' | 'continuous' }>,
 	plan: FlashElement | ContinuousElement | undefined,
@@ -230,7 +282,17 @@ function emitterFromScene(
 	};
 	if (light.kind === 'flash') {
 		const base = (plan as FlashElement | undefined) ?? defaultElement('flash', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
-		return { ...base, ...common, guideNumber: light.guideNumber, calibrationOffsetStops: light.calibrationOffsetStops ?? 0, power: light.power, highSpeedSync: light.highSpeedSync ?? false, mainsPowered: light.mainsPowered ?? false };
+		return {
+			...base,
+			...common,
+			guideNumber: light.guideNumber,
+			power: light.power,
+			lowestPower: light.lowestPower !== undefined ? Math.max(LOWEST_POWER, light.lowestPower) : base.lowestPower,
+			zoomMm: light.zoomMm ?? base.zoomMm,
+			calibrationOffsetStops: light.calibrationOffsetStops ?? 0,
+			highSpeedSync: light.highSpeedSync ?? false,
+			mainsPowered: light.mainsPowered ?? false
+		};
 	}
 	const base = (plan as ContinuousElement | undefined) ?? defaultElement('continuous', { id: light.id, label, xM: 0, yM: 0, zIndex: nextZ() });
 	return { ...base, ...common, luxAt1m: light.luxAt1m, runsHot: light.runsHot ?? true };

@@ -91,7 +91,9 @@ describe('toExposureScene', () => {
 	});
 
 	it('a card gets its normal from its facing; turned away from the subject it returns nothing', () => {
-		const withCard = run(quartzModel(), addElement('reflector', { xM: 0.3, yM: 0 }));
+		// The subject's face turned to the card (the card fills the side away from the key).
+		const turned = run(quartzModel(), setElementProperties('subject', { normal: [1, 0, 0] }));
+		const withCard = run(turned, addElement('reflector', { xM: 0.3, yM: 0 }));
 		const card = Object.values(withCard.elements).find((e) => e.kind === 'reflector')!;
 		expect(card.kind === 'reflector' && card.source).toBe('key');
 		const facingSubject = run(withCard, setElementProperties(card.id, { rotationDeg: 180, tiltDeg: 0 }));

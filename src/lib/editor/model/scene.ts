@@ -4,14 +4,18 @@
  * subject crosses in plan), its beam aimed along its rotation and tilt, each reflector with its area
  * and (when its facing is set) its normal; each flag as its plan segment; the ambient element as the
  * scene's ambient (its EV at ISO 100 and kelvin; where it stands and the way it faces are the plan's).
- * Cameras, diffusers and backgrounds are drawing and loss only: the scene has no place for them.
+ * The camera element gives the scene's camera its position (so the subject faces it: Lambert's cosine
+ * law at the subject), its focal length (thin-lens depth of field) and its sensor (circle of
+ * confusion); the subject gives its facing and its depth; a light whose modifier has a front that
+ * glows evenly gives that front's size (an extended source close up). Diffusers and backgrounds are
+ * drawing and loss only: the scene has no place for them.
  */
 import { segmentsIntersect } from '$lib/light/geometry';
 import type { ExposureScene, Flag, SceneLight } from '$lib/light/schema';
 import { direction3, panelSegment } from './geometry';
-import type { DiffuserElement, EditorElement, EmitterElement, ReflectorElement } from './schema';
+import type { DiffuserElement, EditorElement, EmitterElement, Modifier, ReflectorElement, SubjectElement } from './schema';
 import type { EditorModel, Vec2, Vec3 } from './types';
-import { ambientOf, elementsInOrder, subjectOf } from './types';
+import { ambientOf, cameraOf, elementsInOrder, subjectOf } from './types';
 
 /** The subject's position when a plan has none yet (the scene needs one). */
 export const ORIGIN: Vec3 = [0, 0, 0];
@@ -53,6 +57,17 @@ export function excludedElements(model: EditorModel): ExcludedElement[] {
 	return out;
 }
 
+/** The scene's largest emitter side (`emitterWidthM` and the like). */
+const MAX_EMITTER_M = 20;
+
+/** The size of a modifier's front that glows evenly, as the scene's emitter fields (none: a point). */
+export function emitterSizeOf(modifier: Modifier | null): { emitterWidthM: number; emitterHeightM: number } | { emitterDiameterM: number } | Record<string, never> {
+	if (!modifier?.emitterShape) return {};
+	const side = (m: number) => Math.min(MAX_EMITTER_M, m);
+	if (modifier.emitterShape === 'disc') return { emitterDiameterM: side(modifier.sizeM) };
+	return { emitterWidthM: side(modifier.sizeM), emitterHeightM: side(modifier.heightM ?? modifier.sizeM) };
+}
+
 function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElement[]): SceneLight {
 	const position = pos3(el);
 	const loss = (el.modifier?.lossStops ?? 0) + el.otherLossStops + diffuserLossStops(diffusers, [el.xM, el.yM], [subject[0], subject[1]]);
@@ -76,7 +91,10 @@ function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElem
 			...(el.calibrationOffsetStops !== 0 ? { calibrationOffsetStops: el.calibrationOffsetStops } : {}),
 			power: el.power,
 			...(lossStops > 0 ? { lossStops } : {}),
+			lowestPower: el.lowestPower,
+			...(el.zoomMm !== null ? { zoomMm: el.zoomMm } : {}),
 			...beam,
+			...emitterSizeOf(el.modifier),
 			...colour,
 			...(el.highSpeedSync ? { highSpeedSync: true } : {}),
 			...(el.mainsPowered ? { mainsPowered: true } : {})
@@ -89,6 +107,7 @@ function emitterLight(el: EmitterElement, subject: Vec3, diffusers: DiffuserElem
 		luxAt1m: el.luxAt1m,
 		...(lossStops > 0 ? { lossStops } : {}),
 		...beam,
+		...emitterSizeOf(el.modifier),
 		...colour,
 		runsHot: el.runsHot
 	};
@@ -124,15 +143,46 @@ export function toExposureScene(model: EditorModel): ExposureScene {
 			flags.push({ id: el.id, from: [from[0], from[1]], to: [to[0], to[1]] });
 		}
 	}
+	const camera = sceneCamera(model);
 	return {
-		camera: { ...model.camera },
-		subject: {
-			position: [subject[0], subject[1], subject[2]],
-			...(subjectEl?.living ? { living: true } : {}),
-			...(subjectEl?.normal ? { normal: [...subjectEl.normal] as [number, number, number] } : {})
-		},
+		camera,
+		subject: { position: [subject[0], subject[1], subject[2]], ...(subjectEl ? subjectFields(subjectEl, camera.position !== undefined) : {}) },
 		...(ambient ? { ambient: { ev100: ambient.ev100, ...(ambient.kelvin !== null ? { kelvin: ambient.kelvin } : {}) } } : {}),
 		lights,
 		...(flags.length ? { flags } : {})
 	};
 }
+
+/** The scene's camera: the settings, with the camera element's place, focal length and sensor when the plan has one. */
+function sceneCamera(model: EditorModel): ExposureScene['camera'] {
+	const el = cameraOf(model);
+	if (!el) return { ...model.camera };
+	return {
+		...model.camera,
+		position: [el.xM, el.yM, el.heightM],
+		focalLengthMm: el.focalLengthMm,
+		sensorWidthMm: el.sensorWidthMm,
+		sensorHeightMm: el.sensorHeightMm
+	};
+}
+
+/** The scene's deepest subject, mm. */
+const MAX_DEPTH_MM = 10_000;
+
+/**
+ * The subject's figures beyond its place: living, its face (a set direction as its normal; else up, or
+ * toward the camera when the camera has a place: the engine refuses "camera" without one) and its depth.
+ */
+function subjectFields(el: SubjectElement, cameraPlaced: boolean): Partial<ExposureScene['subject']> {
+	const facing = el.normal ? {} : el.facing === 'up' ? { facing: 'up' as const } : cameraPlaced ? { facing: 'camera' as const } : {};
+	return {
+		...(el.living ? { living: true } : {}),
+		...(el.normal ? { normal: [...el.normal] as [number, number, number] } : {}),
+		...facing,
+		depthMm: Math.min(MAX_DEPTH_MM, depthMmOf(el.depthM))
+	};
+}
+
+/** Metres to millimetres and back, rounded to a nanometre so a saved depth reads back as typed. */
+export const depthMmOf = (m: number) => Math.round(m * 1e9) / 1e6;
+export const depthMOf = (mm: number) => Math.round(mm * 1e6) / 1e9;

@@ -45,6 +45,8 @@ const base = {
 	zIndex: z.number({ error: 'must be a number' }).finite('must be finite')
 };
 
+export const EMITTER_SHAPES = ['rectangle', 'disc'] as const;
+
 export const modifierSchema = z.object({
 	name: z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(80, 'must be at most 80 characters'),
 	/** Full beam angle at half intensity; null: the modifier spreads light evenly (no beam). */
@@ -52,6 +54,14 @@ export const modifierSchema = z.object({
 	lossStops: lossStopsField,
 	/** Width of the front (a softbox's face, a snoot's opening), for the drawing. */
 	sizeM: sizeM,
+	/**
+	 * The shape of a front that glows evenly (a softbox's face, a dome): close to the subject the light
+	 * is then an extended source of that size (the scene's `emitterWidthM` × `emitterHeightM`, or
+	 * `emitterDiameterM`); absent, a point (a bare head, a snoot, a grid).
+	 */
+	emitterShape: z.enum(EMITTER_SHAPES, { error: 'must be "rectangle" or "disc"' }).optional(),
+	/** A rectangular front's height (absent: as tall as it is wide). */
+	heightM: range(0.001, 20, 'm').optional(),
 	/** The gear-shelf item it came from; the server copies that item into the revision's gear. */
 	gearId: z.uuid({ error: 'must be the id of an item on the gear shelf' }).optional()
 });
@@ -66,6 +76,8 @@ const gearName = z.string({ error: 'must be a string' }).min(1, 'must not be emp
 export const lensSchema = z.object({ name: gearName, gearId, pupilMagnification: pupilMagnificationField.optional() });
 export type Lens = z.infer<typeof lensSchema>;
 
+export const SUBJECT_FACINGS = ['camera', 'up'] as const;
+
 export const subjectElementSchema = z.object({
 	...base,
 	kind: z.literal('subject'),
@@ -74,7 +86,13 @@ export const subjectElementSchema = z.object({
 	depthM: sizeM,
 	/** A person or an animal (for the short-range flash caution). */
 	living: z.boolean({ error: 'must be true or false' }),
-	/** The subject's surface normal, kept from a scene that gives one. */
+	/**
+	 * Which way its face looks when no `normal` is set: toward the camera (the scene's default when the
+	 * plan has a camera) or up (a face-up flat specimen, a section). Lambert's cosine law at the subject
+	 * follows it (`subjectFacing` in `$lib/light/light-field`).
+	 */
+	facing: z.enum(SUBJECT_FACINGS, { error: 'must be "camera" or "up"' }),
+	/** The face's direction when set (a direction chosen in the inspector, or a scene's normal); it wins over `facing`. */
 	normal: vec3.optional()
 });
 

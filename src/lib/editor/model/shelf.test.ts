@@ -6,7 +6,16 @@ const SOFTBOX = { id: '7d0f7c39-2a1e-4c55-9a40-4f5b3c2d1e01', kind: 'modifier', 
 
 describe('gear-shelf modifiers in the editor', () => {
 	it('carry the shelf figures and the gear id', () => {
-		expect(modifierFromShelf(SOFTBOX)).toEqual({ name: 'Larkspur 30 cm softbox', beamAngleDeg: 90, lossStops: 1.7, sizeM: 0.3, gearId: SOFTBOX.id });
+		expect(modifierFromShelf(SOFTBOX)).toEqual({ name: 'Larkspur 30 cm softbox', beamAngleDeg: 90, lossStops: 1.7, sizeM: 0.3, emitterShape: 'rectangle', gearId: SOFTBOX.id });
+	});
+
+	it('a softbox or a panel glows as a rectangle its size, a dome or an umbrella as a disc; a snoot is a point', () => {
+		const panel = { ...SOFTBOX, spec: { shape: 'diffusion panel', lossStops: 1, beamAngleDeg: 120, widthM: 0.6, heightM: 0.4 } };
+		expect(modifierFromShelf(panel)).toMatchObject({ emitterShape: 'rectangle', sizeM: 0.6, heightM: 0.4 });
+		const dome = { ...SOFTBOX, spec: { shape: 'dome', lossStops: 1.5, beamAngleDeg: 150 } };
+		expect(modifierFromShelf(dome)).toMatchObject({ emitterShape: 'disc', sizeM: 0.08 });
+		const snoot = { ...SOFTBOX, spec: { shape: 'snoot', lossStops: 1, beamAngleDeg: 20 } };
+		expect(modifierFromShelf(snoot)).not.toHaveProperty('emitterShape');
 	});
 
 	it('take a front width from the shape when the shelf gives none', () => {

@@ -26,6 +26,14 @@ const FRONT_WIDTH_M: Record<string, number> = {
 	other: 0.1
 };
 
+/** Modifiers whose front glows evenly, and its shape: close up they are extended sources (the rest are points). */
+const EMITTER_SHAPE: Record<string, Modifier['emitterShape']> = {
+	softbox: 'rectangle',
+	'diffusion panel': 'rectangle',
+	umbrella: 'disc',
+	dome: 'disc'
+};
+
 const MAX_NAME = 80;
 
 /** The modifier a shelf item makes, or null when it is not a modifier or its figures do not pass. */
@@ -35,7 +43,9 @@ export function modifierFromShelf(item: ShelfItem): Modifier | null {
 	const shape = typeof spec.shape === 'string' ? spec.shape : 'other';
 	const width = typeof spec.widthM === 'number' ? spec.widthM : (FRONT_WIDTH_M[shape] ?? FRONT_WIDTH_M.other);
 	const name = item.name.length > MAX_NAME ? `${item.name.slice(0, MAX_NAME - 1)}…` : item.name;
-	const parsed = modifierSchema.safeParse({ name, beamAngleDeg: spec.beamAngleDeg, lossStops: spec.lossStops, sizeM: width, gearId: item.id });
+	const emitterShape = EMITTER_SHAPE[shape];
+	const height = emitterShape === 'rectangle' && typeof spec.heightM === 'number' && spec.heightM !== width ? { heightM: spec.heightM } : {};
+	const parsed = modifierSchema.safeParse({ name, beamAngleDeg: spec.beamAngleDeg, lossStops: spec.lossStops, sizeM: width, ...(emitterShape ? { emitterShape } : {}), ...height, gearId: item.id });
 	return parsed.success ? parsed.data : null;
 }
 

@@ -2,7 +2,7 @@
  * The power each flash would need for a correct exposure at the set aperture on its own, rounded to
  * the flash's real steps: shown by the exposure strip and the full exposure panel.
  */
-import { nearestPowerStep } from '$lib/light/flash';
+import { nearestPowerStep, powerWithinRange } from '$lib/light/flash';
 import type { ExposureResult } from '$lib/light/scene';
 import type { ExposureScene } from '$lib/light/schema';
 
@@ -25,8 +25,9 @@ export function flashPowersNeeded(scene: ExposureScene, result: ExposureResult, 
 		if (!r || r.blocked || !(r.x > 0)) continue;
 		// X scales with power (/api/v1/openapi.json: X = (GN·√power… / (d·N_w))², so X ∝ power).
 		const required = light.power / r.x;
-		const step = nearestPowerStep(required);
-		out.push({ id: light.id, label: labels[light.id] ?? light.id, power: required, stepLabel: step.label, residual: step.residualStops, within: required <= 1 && required >= 1 / 256 });
+		// The ladder ends at this flash's lowest step (the shelf's), not at the lowest any flash has.
+		const step = nearestPowerStep(required, light.lowestPower);
+		out.push({ id: light.id, label: labels[light.id] ?? light.id, power: required, stepLabel: step.label, residual: step.residualStops, within: powerWithinRange(required, light.lowestPower) });
 	}
 	return out;
 }

@@ -39,13 +39,18 @@ function snapshot(g: DemoGear, at: string): GearSnapshot {
 	return { id: g.id, kind: g.kind, name: g.name, spec: g.spec, copiedAt: at };
 }
 
-/** A document whose gear copies are those the plan names, copied at `at`. */
+/**
+ * A document whose gear copies are those the plan names, copied at `at`. The scene's camera stands where
+ * the plan draws it, as a save from the editor puts it: the subject's face is then turned the way the
+ * engine reads it (Lambert's cosine), and opening the setup in the editor changes none of its numbers.
+ */
 function doc(scene: ExposureSceneInput, plan: Plan, notes: string, at: string): SetupDocumentInput {
 	const all = Object.values(DEMO_GEAR) as DemoGear[];
 	const ids = new Set(Object.values(plan.elements ?? {}).map((e) => e.gearId).filter(Boolean));
+	const cameraAt = plan.elements?.camera?.position;
 	return {
 		schemaVersion: CURRENT_SCHEMA_VERSION,
-		scene,
+		scene: cameraAt ? { ...scene, camera: { ...scene.camera, position: cameraAt } } : scene,
 		plan,
 		notes,
 		gear: all.filter((g) => ids.has(g.id)).map((g) => snapshot(g, at))
@@ -58,12 +63,10 @@ const G = DEMO_GEAR;
 // The Corvid M2 (36 × 24 mm: d/1500 = 0.029 mm) with the Heron 100 mm macro (pupil magnification 0.6).
 const corvidM2 = { cocMm: 0.029, syncSpeed: 1 / 200 };
 const quartzCamera = (iso: number) => ({ iso, aperture: 16, shutter: 1 / 200, magnification: 0.4, pupilMagnification: 0.6, ...corvidM2, minAperture: 5.6, maxAperture: 32 });
-/**
- * The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom. Its calibration (−0.3 stop), lowest step
- * and zoom, the softbox's size and the subjects' facing join these scenes once the editor carries them.
- */
+/** The Kestrel 40 as the shelf holds it: GN 28 at its 35 mm zoom (its calibration comes from the shelf copy). */
 const kestrelAt35 = { guideNumber: 28 };
-const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number] });
+/** The cluster lies on the velvet with its terminations up, toward the softbox above it: its face is taken as up. */
+const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, number], facing: 'up' as const });
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
@@ -240,7 +243,7 @@ const ammonitePlan = (withSilver: boolean): Plan => ({
 });
 const ammoniteScene = (flashPos: [number, number, number], power: number, withSilver: boolean, iso: number) => ({
 	camera: ammoniteCamera(iso),
-	subject: { position: [0, 0, 0.015] as [number, number, number] },
+	subject: { position: [0, 0, 0.015] as [number, number, number], facing: 'up' as const },
 	lights: withSilver ? [rake(flashPos, power), silver] : [rake(flashPos, power)],
 	flags: [{ id: 'shade', from: [-0.25, -0.12] as [number, number], to: [-0.1, -0.2] as [number, number] }]
 });
@@ -263,21 +266,21 @@ const ammonite: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-08T18:30:00Z',
-			message: 'Raking flash from the left at 1/8',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, false, 100), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
+			message: 'Raking flash from the left at 1/2: at 8 cm it meets the polished face at a glancing angle, so it needs more power than its distance says',
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 2, false, 100), ammonitePlan(false), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'tobias',
 			at: '2026-10-08T19:00:00Z',
 			message: 'Silver reflector on the right lifts the shadows of the ribs',
-			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 8, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
+			document: doc(ammoniteScene([-0.45, 0, 0.08], 1 / 2, true, 100), ammonitePlan(true), ammoniteNotes, '2026-10-08T18:30:00Z')
 		},
 		{
 			author: 'mara',
 			at: '2026-10-15T19:15:00Z',
-			message: 'Flash lowered to 5 cm for a lower rake',
+			message: 'Flash lowered to 5 cm for a lower rake, and up to full power: the lower the rake, the less of it the face takes',
 			document: doc(
-				ammoniteScene([-0.45, 0, 0.05], 1 / 8, true, 100),
+				ammoniteScene([-0.45, 0, 0.05], 1, true, 100),
 				ammonitePlan(true),
 				`${ammoniteNotes}\n\nAt 5 cm the rake picks out the growth lines; check the far edge is not lost in shadow.`,
 				'2026-10-08T18:30:00Z'

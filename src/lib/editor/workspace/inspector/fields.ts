@@ -8,8 +8,11 @@ import { SKY_PRESET_NAMES, SKY_PRESETS, type SkyPreset } from '$lib/light/ambien
 import { roundSig } from '$lib/light/format';
 import { plainNumber } from '$lib/light/number-text';
 import { finishOf, REFLECTOR_FINISHES } from '../../model/defaults';
+import { aimAngles, direction3 } from '../../model/geometry';
 import { formatPower, parsePower } from '../../model/power-notation';
-import type { EditorElement, ReflectorFinish } from '../../model/schema';
+import type { EditorElement, Modifier, ReflectorFinish } from '../../model/schema';
+import type { ShelfGear } from '../../model/shelf';
+import { flashFiguresFromShelf } from '../../commands-gear';
 
 export { finishOf };
 
@@ -28,7 +31,7 @@ interface Common {
 }
 export type InspectorField =
 	| (Common & { type: 'text'; text: string; read: (text: string) => Reading; hint?: string })
-	| (Common & { type: 'length'; valueM: number; key: string })
+	| (Common & { type: 'length'; valueM: number; key: string; toPatch?: (valueM: number) => Patch })
 	| (Common & { type: 'select'; value: string; options: { value: string; label: string }[]; choose: (value: string) => Patch })
 	| (Common & { type: 'toggle'; checked: boolean });
 
@@ -70,21 +73,91 @@ const kelvinField = (kelvin: number | null): InspectorField => ({
 
 export const POWER_FIELD_HINT = 'e.g. 1/32, 1/8 +0.3, 0.25, -3 EV';
 
-function powerField(power: number): InspectorField {
+function powerField(power: number, key = 'power', label = 'Power', hint = POWER_FIELD_HINT): InspectorField {
 	return {
 		type: 'text',
-		key: 'power',
-		label: 'Power',
+		key,
+		label,
 		text: formatPower(power),
-		hint: POWER_FIELD_HINT,
+		hint,
 		read: (t) => {
 			const r = parsePower(t);
-			return r.ok ? { ok: true, patch: { power: r.power } } : { ok: false, message: r.message };
+			return r.ok ? { ok: true, patch: { [key]: r.power } } : { ok: false, message: r.message };
 		}
 	};
 }
 
-function emitterFields(el: Extract<EditorElement, { kind: 'flash' | 'continuous' }>): InspectorField[] {
+/**
+ * The zoom head: a choice of the shelf flash's zoom positions (each with its guide number, taken with
+ * the flash's calibration as the shelf flash is), or typed when the flash is not from the shelf or the
+ * shelf lists no positions.
+ */
+function zoomField(el: Extract<EditorElement, { kind: 'flash' }>, shelfFlash: ShelfGear<'flash'> | undefined): InspectorField {
+	const positions = el.gearId && shelfFlash?.id === el.gearId ? (shelfFlash.spec.guideNumbersByZoom ?? []) : [];
+	if (positions.length) {
+		const listed = positions.some((p) => p.zoomMm === el.zoomMm);
+		return {
+			type: 'select',
+			key: 'zoomMm',
+			label: 'Zoom head (guide number there)',
+			value: el.zoomMm === null ? '' : String(el.zoomMm),
+			options: [
+				...(listed ? [] : [{ value: el.zoomMm === null ? '' : String(el.zoomMm), label: el.zoomMm === null ? 'Not set' : `${shown(el.zoomMm)} mm (as saved)` }]),
+				...[...positions].sort((a, b) => a.zoomMm - b.zoomMm).map((p) => ({ value: String(p.zoomMm), label: `${shown(p.zoomMm)} mm (GN ${shown(p.guideNumberM)})` }))
+			],
+			choose: (v) => {
+				if (v === '') return {};
+				const figures = flashFiguresFromShelf(shelfFlash!, Number(v));
+				return { zoomMm: figures.zoomMm, guideNumber: figures.guideNumber };
+			}
+		};
+	}
+	return {
+		type: 'text',
+		key: 'zoomMm',
+		label: 'Zoom head (mm)',
+		text: el.zoomMm === null ? '' : shown(el.zoomMm),
+		read: (t) => optionalNumber('zoomMm', t),
+		hint: 'empty: no zoom head'
+	};
+}
+
+const EMITTER_POINT = 'point';
+
+/**
+ * A modifier's front: a point (a bare head, a snoot, a grid) or a front that glows evenly, a rectangle
+ * or a disc of its size, which close to the subject is an extended source (the engine's configuration
+ * factors, `$lib/light/extended-source`).
+ */
+function modifierFrontFields(modifier: Modifier): InspectorField[] {
+	const set = (patch: Partial<Modifier>): Patch => {
+		const next: Modifier = { ...modifier, ...patch };
+		if (!next.emitterShape) delete next.emitterShape;
+		if (next.emitterShape !== 'rectangle') delete next.heightM;
+		return { modifier: next };
+	};
+	const out: InspectorField[] = [
+		{
+			type: 'select',
+			key: 'emitterShape',
+			label: 'Its front',
+			value: modifier.emitterShape ?? EMITTER_POINT,
+			options: [
+				{ value: EMITTER_POINT, label: 'A point (bare head, snoot, grid)' },
+				{ value: 'rectangle', label: 'Glows evenly: a rectangle (softbox, panel)' },
+				{ value: 'disc', label: 'Glows evenly: a disc (dome, umbrella)' }
+			],
+			choose: (v) => set({ emitterShape: v === EMITTER_POINT ? undefined : (v as Modifier['emitterShape']) })
+		},
+		{ type: 'length', key: 'modifierSizeM', label: modifier.emitterShape === 'disc' ? 'Front diameter' : 'Front width', valueM: modifier.sizeM, toPatch: (m) => set({ sizeM: m }) }
+	];
+	if (modifier.emitterShape === 'rectangle') {
+		out.push({ type: 'length', key: 'modifierHeightM', label: 'Front height', valueM: modifier.heightM ?? modifier.sizeM, toPatch: (m) => set({ heightM: m }) });
+	}
+	return out;
+}
+
+function emitterFields(el: Extract<EditorElement, { kind: 'flash' | 'continuous' }>, shelfFlash: ShelfGear<'flash'> | undefined): InspectorField[] {
 	const out: InspectorField[] = [];
 	if (el.kind === 'flash') {
 		const guideNumber: InspectorField = {
@@ -95,14 +168,7 @@ function emitterFields(el: Extract<EditorElement, { kind: 'flash' | 'continuous'
 				return r.ok && el.gearId ? { ok: true, patch: { ...r.patch, gearId: undefined } } : r;
 			}
 		} as InspectorField;
-		out.push(guideNumber, powerField(el.power), {
-			type: 'text',
-			key: 'zoomMm',
-			label: 'Zoom head (mm)',
-			text: el.zoomMm === null ? '' : shown(el.zoomMm),
-			read: (t) => optionalNumber('zoomMm', t),
-			hint: 'empty: no zoom head'
-		});
+		out.push(guideNumber, powerField(el.power), powerField(el.lowestPower, 'lowestPower', 'Lowest power (its last step)', 'e.g. 1/128; the power ladder ends there'), zoomField(el, shelfFlash));
 	} else {
 		out.push(numberField('luxAt1m', 'Output (lux at 1 m)', el.luxAt1m));
 	}
@@ -119,7 +185,7 @@ function emitterFields(el: Extract<EditorElement, { kind: 'flash' | 'continuous'
 				const n = plainNumber(t);
 				return n === null ? { ok: false, message: 'must be a number' } : { ok: true, patch: { modifier: { ...modifier, beamAngleDeg: n } } };
 			}
-		});
+		}, ...modifierFrontFields(modifier));
 	}
 	out.push(kelvinField(el.kelvin), numberField('gelMired', 'Gel (mired, + warmer)', el.gelMired), numberField('otherLossStops', 'Other losses (stops)', el.otherLossStops), angleField('tiltDeg', 'Tilt (°, up +)', el.tiltDeg));
 	if (el.kind === 'continuous') out.push({ type: 'toggle', key: 'runsHot', label: 'Runs hot (tungsten, halogen)', checked: el.runsHot });
@@ -206,8 +272,54 @@ function cameraFields(el: Extract<EditorElement, { kind: 'camera' }>): Inspector
 	];
 }
 
+const FACING_DIRECTION = 'direction';
+
+/**
+ * The subject's face: toward the camera, up (a face-up specimen, a section) or a direction set here
+ * (its normal, as an angle on the plan and a tilt). Lambert's cosine law at the subject follows it.
+ */
+function subjectFacingFields(el: Extract<EditorElement, { kind: 'subject' }>): InspectorField[] {
+	const normal = el.normal;
+	const out: InspectorField[] = [
+		{
+			type: 'select',
+			key: 'facing',
+			label: 'Its face looks',
+			value: normal ? FACING_DIRECTION : el.facing,
+			options: [
+				{ value: 'camera', label: 'Toward the camera' },
+				{ value: 'up', label: 'Up (a face-up specimen, a section)' },
+				{ value: FACING_DIRECTION, label: 'A direction (set below)' }
+			],
+			choose: (v) => (v === FACING_DIRECTION ? { normal: normal ?? direction3(el.rotationDeg, 0) } : { facing: v, normal: undefined })
+		}
+	];
+	if (normal) {
+		const angles = aimAngles([0, 0, 0], normal);
+		const toNormal = (rotationDeg: number, tiltDeg: number) => ({ normal: direction3(rotationDeg, tiltDeg).map((v) => Math.round(v * 1e12) / 1e12) });
+		out.push(
+			{ type: 'text', key: 'faceRotationDeg', label: 'Face turned toward (°, clockwise from right)', text: String(Math.round(angles.rotationDeg)), read: (t) => readAngle(t, 360, (n) => toNormal(n, angles.tiltDeg)) },
+			{ type: 'text', key: 'faceTiltDeg', label: 'Face tilt (°, up +)', text: String(Math.round(angles.tiltDeg)), read: (t) => readAngle(t, 90, (n) => toNormal(angles.rotationDeg, n)) }
+		);
+	}
+	return out;
+}
+
+/** A typed angle within ±`limitDeg`, made into a patch. */
+function readAngle(text: string, limitDeg: number, toPatch: (deg: number) => Patch): Reading {
+	const n = plainNumber(text);
+	if (n === null) return { ok: false, message: 'must be a number' };
+	if (Math.abs(n) > limitDeg) return { ok: false, message: `must be from −${limitDeg}° to ${limitDeg}°` };
+	return { ok: true, patch: toPatch(n) };
+}
+
+/** What the inspector knows beside the element: the shelf flash it came from (for its zoom positions). */
+export interface FieldContext {
+	shelfFlash?: ShelfGear<'flash'>;
+}
+
 /** Every field of the element, in the order the inspector shows them (label and height come first, always). */
-export function inspectorFields(el: EditorElement): InspectorField[] {
+export function inspectorFields(el: EditorElement, context: FieldContext = {}): InspectorField[] {
 	const facing = el.kind === 'ambient' ? 'Light travels toward (°, clockwise from right)' : 'Facing (°, clockwise from right)';
 	const common: InspectorField[] = [
 		{ type: 'length', key: 'heightM', label: el.kind === 'ambient' ? 'Height of the window’s middle' : 'Height above the table', valueM: el.heightM }
@@ -216,7 +328,7 @@ export function inspectorFields(el: EditorElement): InspectorField[] {
 	switch (el.kind) {
 		case 'flash':
 		case 'continuous':
-			return [...common, ...emitterFields(el)];
+			return [...common, ...emitterFields(el, context.shelfFlash)];
 		case 'reflector':
 		case 'diffuser':
 		case 'flag':
@@ -229,7 +341,8 @@ export function inspectorFields(el: EditorElement): InspectorField[] {
 			return [
 				...common,
 				{ type: 'length', key: 'widthM', label: 'Width', valueM: el.widthM },
-				{ type: 'length', key: 'depthM', label: 'Depth', valueM: el.depthM },
+				{ type: 'length', key: 'depthM', label: 'Depth (front to back)', valueM: el.depthM },
+				...subjectFacingFields(el),
 				{ type: 'toggle', key: 'living', label: 'A person or an animal', checked: el.living }
 			];
 		case 'background':
