@@ -1,6 +1,6 @@
 // The demo notebook must be data the product accepts: every revision passes today's checks, its gear
 // copies are exactly the gear its plan names, and the latest revisions are exposures a club member would
-// keep (within a stop and a half; the geode is a stop over on purpose, its message says so).
+// keep (within a stop and a half; the geode is a third of a stop over on purpose, its message says so).
 import { describe, expect, it } from 'vitest';
 import { computeExposure } from '$lib/light/scene';
 import { referencedGearIds } from '$lib/scene/document';

@@ -70,7 +70,7 @@ const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, 
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
-	position: [-0.3, 0.2, 0.35] as [number, number, number],
+	position: [-0.2, 0.15, 0.4] as [number, number, number],
 	...kestrelAt35,
 	power,
 	lossStops: 1.7,
@@ -186,7 +186,7 @@ const amethyst: DemoSetup = {
 		{
 			author: 'tobias',
 			at: '2026-10-27T19:35:00Z',
-			message: 'The geode is darker than the quartz: flash up to 1/2, a stop over the reading on purpose',
+			message: 'The geode is darker than the quartz: flash up to 1/2, a third of a stop over the reading on purpose',
 			document: doc(
 				{ camera: quartzCamera(200), subject: quartzSubject(0.05), lights: [quartzKey(1 / 2), quartzCard([0.15, -0.05, 0.08])] },
 				{
