@@ -115,6 +115,11 @@ describe('steps', () => {
 		const w = await makeWorkshopWorld();
 		const other = await ws.addLesson(w.owner, w.workshopId, lessonSchema.parse({ title: 'Second lesson' }));
 		const foreign = await ws.addStep(w.owner, w.workshopId, other.id, stepCreateSchema.parse({ setupId: w.setupId }));
+		// The workshop page counts each lesson's own steps.
+		expect((await ws.workshopOverview(w.owner, w.workshopId)).lessons.map((l) => [l.title, l.stepCount]).sort()).toEqual([
+			['Second lesson', 1],
+			[(await ws.lessonForViewer(w.owner, w.workshopId, w.lessonId)).lesson.title, 2]
+		].sort());
 		const [a, b] = w.stepIds;
 		for (const order of [[b, foreign.id], [a, b, foreign.id], [a], [a, a]]) {
 			const e = await ruleField(() => ws.reorderSteps(w.owner, w.workshopId, w.lessonId, order));

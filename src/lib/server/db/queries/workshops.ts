@@ -131,10 +131,12 @@ export async function listLessons(workshopId: string) {
 			id: workshopLessons.id,
 			position: workshopLessons.position,
 			title: workshopLessons.title,
-			stepCount: sql<number>`(select count(*) from ${workshopSteps} where ${workshopSteps.lessonId} = ${workshopLessons.id})`.mapWith(Number)
+			stepCount: count(workshopSteps.id)
 		})
 		.from(workshopLessons)
+		.leftJoin(workshopSteps, eq(workshopSteps.lessonId, workshopLessons.id))
 		.where(eq(workshopLessons.workshopId, workshopId))
+		.groupBy(workshopLessons.id)
 		.orderBy(asc(workshopLessons.position), asc(workshopLessons.createdAt));
 }
 
