@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { cameraLine, lightLine, lightRows } from './title-block';
+import { cameraLine, lightLine, lightRows, planNames } from './title-block';
 import type { ExposureScene } from '$lib/light/schema';
 
 const scene: ExposureScene = {
@@ -23,5 +23,19 @@ describe('the title block and the sheet’s light table', () => {
 	});
 	it('writes the camera settings on one line', () => {
 		expect(cameraLine(scene.camera)).toBe('ISO 100 · f/16 · 1/160 s · 0.5× (1:2)');
+	});
+	it('reads a stored plan’s modifier from the light or from a modifier or diffuser fitted to it', () => {
+		const names = planNames({
+			elements: {
+				key: { kind: 'flash', label: 'Key' },
+				box: { kind: 'modifier', label: 'Larkspur 30 cm softbox', attachedTo: 'key' },
+				fill: { kind: 'flash', label: 'Fill', modifier: { name: 'Opal dome' } },
+				card: { kind: 'reflector', label: 'White card' }
+			}
+		});
+		expect(names.key?.modifier?.name).toBe('Larkspur 30 cm softbox');
+		expect(names.fill?.modifier?.name).toBe('Opal dome');
+		expect(names.card?.modifier).toBeNull();
+		expect(lightRows(scene, names, 'metric')[0].modifier).toBe('Larkspur 30 cm softbox');
 	});
 });

@@ -22,6 +22,27 @@ export interface LightRow {
 /** What the plan knows of a light beyond the scene: its label and its modifier's name. */
 export type PlanNames = Record<string, { label?: string; modifier?: { name: string } | null } | undefined>;
 
+type StoredPlanElement = { label?: string; modifier?: unknown; kind?: string; attachedTo?: string };
+
+/**
+ * A stored plan's names for the lights table: each element's label and, for a light, its modifier's name,
+ * whether the light carries it (`modifier`) or a modifier or diffuser element is fitted to it (`attachedTo`).
+ */
+export function planNames(plan: { elements?: Record<string, StoredPlanElement> }): PlanNames {
+	const elements = Object.entries(plan.elements ?? {});
+	const nameOf = (v: unknown) => {
+		const name = (v as { name?: unknown } | null | undefined)?.name;
+		return typeof name === 'string' && name ? name : null;
+	};
+	return Object.fromEntries(
+		elements.map(([id, el]) => {
+			const fitted = elements.find(([, other]) => other.attachedTo === id && (other.kind === 'modifier' || other.kind === 'diffuser'))?.[1];
+			const name = nameOf(el.modifier) ?? (fitted ? fitted.label?.trim() || null : null);
+			return [id, { label: el.label ?? id, modifier: name ? { name } : null }];
+		})
+	);
+}
+
 export function lightRows(scene: ExposureScene, plan: PlanNames, system: UnitSystem): LightRow[] {
 	const s = scene.subject.position;
 	return scene.lights.map((light) => {

@@ -21,9 +21,8 @@ export const DEMO_STUDENT = { email: 'pebble.finch@fernhill.example', name: 'Peb
 const SUMMARY = [
 	'An evening at the community hall for members who photograph the collection, or want to.',
 	'',
-	'We light one quartz cluster on black velvet with **one small flash**, a white card and a black flag,',
-	'and watch what each adds on the projector. Bring a camera with a macro lens if you have one;',
-	'the club lends tripods and flashes.'
+	// One line per paragraph: the notes render a single line break as a break.
+	'We light one quartz cluster on black velvet with **one small flash**, a white card and a black flag, and watch what each adds on the projector. Bring a camera with a macro lens if you have one; the club lends tripods and flashes.'
 ].join('\n');
 
 const STUDENT_NOTES = [
