@@ -179,13 +179,14 @@ async function dragFrames(page, plan, ms) {
 	});
 	// The drag must really have moved the key light (else the figures measure an idle plan).
 	const row = page.getByTestId('element-list').getByRole('button', { name: /^Key flash, Flash, at / });
-	const at = await row.getAttribute('aria-label');
+	// The row is named by its visible words ("Key flash, Flash, at 45 cm, 0 cm").
+	const at = await row.textContent();
 	if (!at || at.includes('at 45 cm, 0 cm')) throw new Error(`the drag did not move the key light (${at})`);
 	// Put the light back (one undo step), so every round starts from the same plan.
 	await plan.focus();
 	await page.keyboard.press('Control+Z');
 	await page.waitForTimeout(600);
-	const back = await row.getAttribute('aria-label');
+	const back = await row.textContent();
 	if (!back?.includes('at 45 cm, 0 cm')) throw new Error(`undo did not put the key light back (${back})`);
 	return { frames, moves, longTasks, textMs };
 }
