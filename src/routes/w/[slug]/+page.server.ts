@@ -1,5 +1,7 @@
+import { redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
-import { askToJoin, publicWorkshop } from '$lib/server/workshops';
+import { runAction } from '$lib/server/actions';
+import { askToJoin, bookSeat, publicWorkshop } from '$lib/server/workshops';
 import { formAction, text } from '$lib/server/workshops/forms';
 import { joinRequestSchema } from '$lib/workshops/inputs';
 
@@ -16,5 +18,12 @@ export const actions = {
 			await askToJoin(locals.user, params.slug, input.message);
 			return { action: 'ask', asked: true };
 		}, raw);
+	},
+	/** "Book a seat": a seat is held and the buyer sent to the hosted checkout (a plain form post, so the browser follows). */
+	book: async ({ locals, params, url }) => {
+		requireUser(locals.user, url);
+		const result = await runAction('book', () => bookSeat(locals.user, params.slug, { origin: url.origin }));
+		if (result && 'checkoutUrl' in result) redirect(303, result.checkoutUrl);
+		return result;
 	}
 };
