@@ -226,7 +226,8 @@ export async function handlePaymentWebhook(payload: string, signature: string | 
 	try {
 		event = verifiedEvent(payload, signature);
 	} catch (e) {
-		console.warn(`[payments] webhook refused from ${from}: ${e instanceof Error ? e.message : String(e)}`);
+		// The SDK's message runs to several lines of advice; the first says what was wrong.
+		console.warn(`[payments] webhook refused from ${from}: ${(e instanceof Error ? e.message : String(e)).split('\n')[0]}`);
 		return { status: 400, message: 'The signature of this event could not be verified.' };
 	}
 	const ref = { id: event.id, type: event.type };
