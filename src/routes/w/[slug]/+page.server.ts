@@ -1,4 +1,3 @@
-import { redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
 import { runAction } from '$lib/server/actions';
 import { askToJoin, bookSeat, publicWorkshop } from '$lib/server/workshops';
@@ -19,11 +18,13 @@ export const actions = {
 			return { action: 'ask', asked: true };
 		}, raw);
 	},
-	/** "Book a seat": a seat is held and the buyer sent to the hosted checkout (a plain form post, so the browser follows). */
+	/**
+	 * "Book a seat": a seat is held and the checkout's address handed back. The page sends the browser
+	 * there by script (the content security policy keeps form posts, and their redirects, on this site);
+	 * without JavaScript it shows a link to it.
+	 */
 	book: async ({ locals, params, url }) => {
 		requireUser(locals.user, url);
-		const result = await runAction('book', () => bookSeat(locals.user, params.slug, { origin: url.origin }));
-		if (result && 'checkoutUrl' in result) redirect(303, result.checkoutUrl);
-		return result;
+		return runAction('book', async () => ({ action: 'book', ...(await bookSeat(locals.user, params.slug, { origin: url.origin })) }));
 	}
 };
