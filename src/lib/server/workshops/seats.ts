@@ -66,6 +66,7 @@ export async function bookSeat(user: SessionUser | null, slug: string, context: 
 	if (held.outcome === 'gone') error(404, 'No such workshop.');
 	if (held.outcome === 'not-open') throw new RuleViolation(STATE_REFUSALS[held.state] ?? 'This workshop is not open for booking.', 'state', 409);
 	if (held.outcome === 'free') throw new RuleViolation('This workshop is free: ask to join instead.', 'price');
+	if (held.outcome === 'opening') throw new RuleViolation('Your seat is held and its payment page is being opened: try again in a moment.', 'form', 409);
 	if (held.outcome === 'member') throw new RuleViolation('You are already in this workshop.', 'form', 409);
 	if (held.outcome === 'full') throw new RuleViolation(FULL_MESSAGE, 'form', 409);
 	if (held.outcome === 'held') return { bookingId: held.booking.id, checkoutUrl: held.booking.checkoutUrl! };

@@ -23,6 +23,7 @@ export type HoldOutcome =
 	| { outcome: 'new'; booking: SeatBooking }
 	| { outcome: 'held'; booking: SeatBooking }
 	| { outcome: 'not-open'; state: string }
+	| { outcome: 'opening' }
 	| { outcome: 'free' }
 	| { outcome: 'member' }
 	| { outcome: 'full' }
@@ -46,8 +47,11 @@ export async function holdSeat(workshopId: string, userId: string, holdMs: numbe
 			.where(and(eq(seatBookings.workshopId, workshopId), eq(seatBookings.userId, userId), inArray(seatBookings.state, ['held', 'confirmed'])))
 			.for('update');
 		if (active?.state === 'confirmed') return { outcome: 'member' as const };
-		if (active && active.holdExpiresAt.getTime() > Date.now() && active.checkoutUrl) return { outcome: 'held' as const, booking: active };
-		// A hold that ran out (or whose checkout never started) makes way for the new one.
+		if (active && active.holdExpiresAt.getTime() > Date.now()) {
+			// A running hold: its checkout, or (a second click while the first is still being made) a wait.
+			return active.checkoutUrl ? { outcome: 'held' as const, booking: active } : { outcome: 'opening' as const };
+		}
+		// A hold that ran out makes way for the new one.
 		if (active) await tx.update(seatBookings).set({ state: 'released', updatedAt: new Date() }).where(eq(seatBookings.id, active.id));
 		if ((await countSeatsTaken(workshopId, tx)).taken >= w.capacity) return { outcome: 'full' as const };
 		const [booking] = await tx
