@@ -1,4 +1,5 @@
-// The part of the set-up that needs npm packages: database, migrations, seed, mail fake, build, serve.
+// The part of the set-up that needs npm packages: database, migrations, seed, mail, storage and payment
+// fakes, build, serve.
 import fs from 'node:fs';
 import path from 'node:path';
 import { clusterCommands, ensureCluster, loadSecrets, log, portInUse, root, run, startChild, waitForHttp } from './bootstrap.mjs';
@@ -11,6 +12,7 @@ export const profiles = {
 		smtpPort: Number(process.env.SQUARELAW_SMTP_PORT ?? 2525),
 		mailHttpPort: Number(process.env.SQUARELAW_MAIL_HTTP_PORT ?? 2580),
 		s3Port: Number(process.env.SQUARELAW_S3_PORT ?? 2600),
+		stripePort: Number(process.env.SQUARELAW_STRIPE_PORT ?? 2700),
 		name: 'dev'
 	},
 	test: {
@@ -20,6 +22,7 @@ export const profiles = {
 		smtpPort: Number(process.env.SQUARELAW_TEST_SMTP_PORT ?? 2535),
 		mailHttpPort: Number(process.env.SQUARELAW_TEST_MAIL_HTTP_PORT ?? 2590),
 		s3Port: Number(process.env.SQUARELAW_TEST_S3_PORT ?? 2610),
+		stripePort: Number(process.env.SQUARELAW_TEST_STRIPE_PORT ?? 2710),
 		name: 'test'
 	},
 	bench: {
@@ -29,6 +32,7 @@ export const profiles = {
 		smtpPort: Number(process.env.SQUARELAW_BENCH_SMTP_PORT ?? 2545),
 		mailHttpPort: Number(process.env.SQUARELAW_BENCH_MAIL_HTTP_PORT ?? 2595),
 		s3Port: Number(process.env.SQUARELAW_BENCH_S3_PORT ?? 2620),
+		stripePort: Number(process.env.SQUARELAW_BENCH_STRIPE_PORT ?? 2720),
 		name: 'bench'
 	}
 };
@@ -144,6 +148,25 @@ export async function startStorage(profile) {
 	return fake;
 }
 
+/**
+ * The payment fake, unless STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET name a real account (README,
+ * "Past one machine"). It sends its webhook events to the app this profile serves.
+ */
+export async function startPayments(profile) {
+	if (process.env.STRIPE_SECRET_KEY && process.env.STRIPE_WEBHOOK_SECRET) return null;
+	const { randomBytes } = await import('node:crypto');
+	const { startPaymentFake } = await import('./payment-fake.mjs');
+	// The app may listen on every interface (HOST=0.0.0.0); the fake reaches it on loopback.
+	const appHost = ['0.0.0.0', '::', ''].includes(profile.host) ? '127.0.0.1' : profile.host;
+	const fake = await startPaymentFake({
+		port: profile.stripePort,
+		webhookUrl: `http://${appHost}:${profile.port}/payments/webhook`,
+		webhookSecret: `whsec_${randomBytes(24).toString('hex')}`
+	});
+	log(`payment fake: ${fake.endpoint} (checkout pages at ${fake.endpoint}/pay/…)`);
+	return fake;
+}
+
 export function build() {
 	log('building (vite build)…');
 	// The seed's Vite server sets NODE_ENV=development in this process; inherited, the build would ship
@@ -151,7 +174,7 @@ export function build() {
 	run('npx', ['vite', 'build', '--logLevel', 'warn'], { env: { ...process.env, NODE_ENV: 'production' } });
 }
 
-export function appEnv(profile, { url, secrets, mail, storage = null }) {
+export function appEnv(profile, { url, secrets, mail, storage = null, payments = null }) {
 	const origin = `http://${profile.host}:${profile.port}`;
 	return {
 		NODE_ENV: 'production',
@@ -164,7 +187,8 @@ export function appEnv(profile, { url, secrets, mail, storage = null }) {
 		EMAIL_FROM: process.env.EMAIL_FROM ?? 'Squarelaw <no-reply@squarelaw.localhost>',
 		DEV_MAIL_URL: mail ? mail.httpUrl : '',
 		BODY_SIZE_LIMIT: process.env.BODY_SIZE_LIMIT ?? '64M',
-		...(storage ? storage.env : {})
+		...(storage ? storage.env : {}),
+		...(payments ? payments.env : {})
 	};
 }
 
@@ -226,9 +250,11 @@ export async function startStack(profile, stop, { fresh = false, mail = true, bu
 	if (mailFake) stop.add(() => mailFake.stop());
 	const storage = await startStorage(profile);
 	if (storage) stop.add(() => storage.stop());
+	const payments = await startPayments(profile);
+	if (payments) stop.add(() => payments.stop());
 	if (buildFirst) build();
-	const env = appEnv(profile, { ...db, mail: mailFake, storage });
+	const env = appEnv(profile, { ...db, mail: mailFake, storage, payments });
 	const { child, origin } = await serve(profile, env, { quiet });
 	stop.add(() => stopChild(child));
-	return { db, seeded, env, child, origin, mail: mailFake, storage };
+	return { db, seeded, env, child, origin, mail: mailFake, storage, payments };
 }

@@ -9,7 +9,7 @@ export class RuleViolation extends Error {
 	constructor(
 		message: string,
 		readonly field: string | null = null,
-		readonly status: 400 | 409 | 410 | 429 = 400,
+		readonly status: 400 | 409 | 410 | 429 | 503 = 400,
 		issues?: { path: string[]; message: string }[]
 	) {
 		super(message);

@@ -55,3 +55,33 @@ export function workshopInvitationLetter(
 		html: letterHtml(lines, { href: url, label: 'Join the workshop' }, footer)
 	};
 }
+
+export function seatReceiptLetter(to: string, workshopTitle: string, amount: string, paidAt: Date, bookingId: string, url: string): Letter {
+	const lines = [
+		`Thank you: your seat in the workshop "${workshopTitle}" is booked, and you are now one of its students.`,
+		`Paid: ${amount} on ${paidAt.toUTCString()}.`,
+		`Booking reference: ${bookingId}.`
+	];
+	const footer = 'Keep this message as your receipt. If the instructor cancels your booking, the payment is returned in full.';
+	return {
+		to,
+		subject: `Receipt: your seat in "${workshopTitle}"`,
+		text: `${lines.join('\n')}\n\nOpen the workshop: ${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: 'Open the workshop' }, footer)
+	};
+}
+
+export function seatRefundLetter(to: string, workshopTitle: string, amount: string, reason: string, bookingId: string, url: string): Letter {
+	const lines = [
+		`Your payment of ${amount} for a seat in the workshop "${workshopTitle}" has been refunded in full.`,
+		`Why: ${reason}`,
+		`Booking reference: ${bookingId}. The money reaches your account in the payment provider's usual time.`
+	];
+	const footer = 'Nothing else is charged. Reply to the instructor if you have a question.';
+	return {
+		to,
+		subject: `Refund: your seat in "${workshopTitle}"`,
+		text: `${lines.join('\n')}\n\nThe workshop's page: ${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: "The workshop's page" }, footer)
+	};
+}

@@ -3,3 +3,4 @@ export * from './workshops';
 export * from './lessons';
 export * from './live-position';
 export * from './students';
+export * from './seats';

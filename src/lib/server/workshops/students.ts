@@ -13,7 +13,7 @@ import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
 import {
 	addMember,
 	consumeWorkshopInvitation,
-	countStudents,
+	countSeatsTaken,
 	decideJoinRequest,
 	deleteMemberRow,
 	findOpenJoinRequest,
@@ -119,16 +119,17 @@ export interface RosterEntry {
 /** The roster with open invitations and requests to join, for those who keep it. */
 export async function workshopRoster(user: SessionUser | null, workshopId: string) {
 	const access = await authorizeWorkshop(user, workshopId, 'workshop.roster');
-	const [people, invitations, requests, enrolled] = await Promise.all([
+	const [people, invitations, requests, seats] = await Promise.all([
 		listRoster(access.workshop.id),
 		listOpenWorkshopInvitations(access.workshop.id),
 		listOpenJoinRequests(access.workshop.id),
-		countStudents(access.workshop.id)
+		countSeatsTaken(access.workshop.id)
 	]);
 	return {
 		access,
-		enrolled,
-		seatsLeft: Math.max(0, access.workshop.capacity - enrolled),
+		enrolled: seats.students,
+		held: seats.held,
+		seatsLeft: Math.max(0, access.workshop.capacity - seats.taken),
 		people: people.map(
 			(p): RosterEntry => ({
 				id: p.id,
@@ -197,7 +198,8 @@ export async function askToJoin(user: SessionUser | null, slug: string, message:
 	if (!row) error(404, 'No such workshop.');
 	const roles = await memberRolesByEmail(row.workshop.id, [signedIn.email]);
 	if (roles.size) throw new RuleViolation('You are already in this workshop.', 'form');
-	if ((await countStudents(row.workshop.id)) >= row.workshop.capacity) {
+	if (row.workshop.priceMinor > 0) throw new RuleViolation('Seats in this workshop are paid: book a seat instead.', 'form');
+	if ((await countSeatsTaken(row.workshop.id)).taken >= row.workshop.capacity) {
 		throw new RuleViolation('The workshop is full.', 'form');
 	}
 	const request = await insertJoinRequest(row.workshop.id, signedIn.id, message);

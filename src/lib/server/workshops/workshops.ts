@@ -8,7 +8,7 @@ import { RuleViolation } from '$lib/server/errors';
 import type { SessionUser } from '$lib/server/session';
 import { renderNotes } from '$lib/notebook/markdown';
 import {
-	countStudents,
+	countSeatsTaken,
 	deleteSessionRow,
 	deleteWorkshopRow,
 	findPublishedWorkshopBySlug,
@@ -104,10 +104,15 @@ export interface WorkshopOverview {
 		slug: string;
 		studioId: string;
 		studioName: string;
+		/** A seat's price in minor units (0: free) and its currency. */
+		priceMinor: number;
+		currency: string;
 	};
 	sessions: SessionView[];
 	lessons: { id: string; position: number; title: string; stepCount: number }[];
 	enrolled: number;
+	/** Seats held for buyers at checkout. */
+	held: number;
 	seatsLeft: number;
 	live: LivePosition | null;
 }
@@ -126,7 +131,7 @@ export function sessionView(s: { id: string; startsAt: Date; endsAt: Date; place
 export async function workshopOverview(user: SessionUser | null, workshopId: string): Promise<WorkshopOverview> {
 	const access = await authorizeWorkshop(user, workshopId, 'workshop.follow');
 	const w = access.workshop;
-	const [sessions, lessons, enrolled] = await Promise.all([listSessions(w.id), listLessons(w.id), countStudents(w.id)]);
+	const [sessions, lessons, seats] = await Promise.all([listSessions(w.id), listLessons(w.id), countSeatsTaken(w.id)]);
 	if (access.workshopMemberId) await touchMember(access.workshopMemberId);
 	return {
 		access,
@@ -139,12 +144,15 @@ export async function workshopOverview(user: SessionUser | null, workshopId: str
 			state: w.state,
 			slug: w.slug,
 			studioId: w.studioId,
-			studioName: access.studioName
+			studioName: access.studioName,
+			priceMinor: w.priceMinor,
+			currency: w.currency
 		},
 		sessions: sessions.map(sessionView),
 		lessons,
-		enrolled,
-		seatsLeft: Math.max(0, w.capacity - enrolled),
+		enrolled: seats.students,
+		held: seats.held,
+		seatsLeft: Math.max(0, w.capacity - seats.taken),
 		live: w.liveUpdatedAt ? { lessonId: w.liveLessonId, stepId: w.liveStepId, updatedAt: w.liveUpdatedAt.toISOString() } : null
 	};
 }
@@ -154,8 +162,10 @@ export async function updateWorkshop(user: SessionUser | null, workshopId: strin
 	const access = await authorizeWorkshop(user, workshopId, 'workshop.run');
 	const outcome = await updateWorkshopDetails(access.workshop.id, input);
 	if (outcome.outcome === 'below-enrolled') {
+		const taken = outcome.enrolled + outcome.held;
+		const held = outcome.held ? ` and ${outcome.held} ${outcome.held === 1 ? 'seat is' : 'seats are'} held for buyers at checkout` : '';
 		throw new RuleViolation(
-			`${outcome.enrolled} ${outcome.enrolled === 1 ? 'student is' : 'students are'} already enrolled: the capacity cannot be below ${outcome.enrolled}. Remove students from the roster first.`,
+			`${outcome.enrolled} ${outcome.enrolled === 1 ? 'student is' : 'students are'} already enrolled${held}: the capacity cannot be below ${taken}. Remove students from the roster first.`,
 			'capacity'
 		);
 	}
@@ -193,6 +203,9 @@ export interface PublicWorkshop {
 	sessions: SessionView[];
 	capacity: number;
 	seatsLeft: number;
+	/** A seat's price in minor units (0: free, joined by asking) and its currency. */
+	priceMinor: number;
+	currency: string;
 	/** The signed-in visitor's standing, to offer the right button. */
 	viewer: 'anonymous' | 'member' | 'requested' | 'none';
 }
@@ -202,7 +215,7 @@ export async function publicWorkshop(user: SessionUser | null, slug: string): Pr
 	const row = slug.length <= 100 ? await findPublishedWorkshopBySlug(slug) : null;
 	if (!row) error(404, 'No such workshop.');
 	const w = row.workshop;
-	const [sessions, enrolled] = await Promise.all([listSessions(w.id), countStudents(w.id)]);
+	const [sessions, seats] = await Promise.all([listSessions(w.id), countSeatsTaken(w.id)]);
 	let viewer: PublicWorkshop['viewer'] = 'anonymous';
 	if (user) {
 		const member = await authorizeWorkshop(user, w.id, 'workshop.follow').then(
@@ -219,7 +232,9 @@ export async function publicWorkshop(user: SessionUser | null, slug: string): Pr
 		studioName: row.studioName,
 		sessions: sessions.map(sessionView),
 		capacity: w.capacity,
-		seatsLeft: Math.max(0, w.capacity - enrolled),
+		seatsLeft: Math.max(0, w.capacity - seats.taken),
+		priceMinor: w.priceMinor,
+		currency: w.currency,
 		viewer
 	};
 }

@@ -1,5 +1,6 @@
 import { requireUser } from '$lib/server/authz';
-import { askToJoin, publicWorkshop } from '$lib/server/workshops';
+import { runAction } from '$lib/server/actions';
+import { askToJoin, bookSeat, publicWorkshop } from '$lib/server/workshops';
 import { formAction, text } from '$lib/server/workshops/forms';
 import { joinRequestSchema } from '$lib/workshops/inputs';
 
@@ -16,5 +17,14 @@ export const actions = {
 			await askToJoin(locals.user, params.slug, input.message);
 			return { action: 'ask', asked: true };
 		}, raw);
+	},
+	/**
+	 * "Book a seat": a seat is held and the checkout's address handed back. The page sends the browser
+	 * there by script (the content security policy keeps form posts, and their redirects, on this site);
+	 * without JavaScript it shows a link to it.
+	 */
+	book: async ({ locals, params, url }) => {
+		requireUser(locals.user, url);
+		return runAction('book', async () => ({ action: 'book', ...(await bookSeat(locals.user, params.slug, { origin: url.origin })) }));
 	}
 };

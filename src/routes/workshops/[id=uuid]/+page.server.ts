@@ -7,16 +7,19 @@ import {
 	deleteWorkshop,
 	removeSession,
 	reorderLessons,
+	setWorkshopPrice,
 	updateWorkshop,
 	workshopOverview
 } from '$lib/server/workshops';
 import { formAction, localToIso, text } from '$lib/server/workshops/forms';
 import { lessonSchema, sessionSchema, workshopDetailsSchema } from '$lib/workshops/inputs';
+import { priceSchema } from '$lib/seats/inputs';
+import { paymentsConfigured } from '$lib/server/payments/provider';
 
 export async function load({ locals, params, url }) {
 	const user = requireUser(locals.user, url);
 	const { access, ...overview } = await workshopOverview(user, params.id);
-	return { ...overview, can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
+	return { ...overview, paymentsReady: paymentsConfigured(), can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
 }
 
 export const actions = {
@@ -26,6 +29,14 @@ export const actions = {
 		return formAction('details', workshopDetailsSchema, raw, async (input) => {
 			await updateWorkshop(locals.user, params.id, input);
 			return { action: 'details', saved: true };
+		}, raw);
+	},
+	price: async ({ locals, params, request }) => {
+		const form = await request.formData();
+		const raw = { amount: text(form, 'amount'), currency: text(form, 'currency') };
+		return formAction('price', priceSchema, raw, async (input) => {
+			await setWorkshopPrice(locals.user, params.id, input);
+			return { action: 'price', saved: true };
 		}, raw);
 	},
 	addSession: async ({ locals, params, request }) => {

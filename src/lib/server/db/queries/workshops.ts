@@ -3,6 +3,7 @@
 import { and, asc, count, desc, eq, gt, inArray, isNull, or, sql } from 'drizzle-orm';
 import { db, type Tx } from '../index';
 import {
+	seatBookings,
 	setupRevisions,
 	setups,
 	studios,
@@ -75,18 +76,41 @@ export async function countStudents(workshopId: string, run: Runner = db): Promi
 	return row?.n ?? 0;
 }
 
+/** Seats held for buyers at checkout whose hold has not run out (each keeps a seat until then). */
+export async function countActiveHolds(workshopId: string, run: Runner = db, exceptBookingId: string | null = null): Promise<number> {
+	const [row] = await run
+		.select({ n: count() })
+		.from(seatBookings)
+		.where(
+			and(
+				eq(seatBookings.workshopId, workshopId),
+				eq(seatBookings.state, 'held'),
+				gt(seatBookings.holdExpiresAt, sql`now()`),
+				exceptBookingId ? sql`${seatBookings.id} <> ${exceptBookingId}` : undefined
+			)
+		);
+	return row?.n ?? 0;
+}
+
+/** Seats taken: the students, and the seats held for buyers at checkout. */
+export async function countSeatsTaken(workshopId: string, run: Runner = db, exceptBookingId: string | null = null) {
+	const [students, held] = await Promise.all([countStudents(workshopId, run), countActiveHolds(workshopId, run, exceptBookingId)]);
+	return { students, held, taken: students + held };
+}
+
 /**
- * Changes a workshop's details, refusing a capacity below the students already enrolled: the count and
- * the update run in one transaction with the workshop row locked, so an acceptance cannot slip between.
+ * Changes a workshop's details, refusing a capacity below the seats already taken (students and seats
+ * held at checkout): the count and the update run in one transaction with the workshop row locked, so
+ * an acceptance or a booking cannot slip between.
  */
 export async function updateWorkshopDetails(
 	workshopId: string,
 	values: { title: string; summary: string; capacity: number; state: 'draft' | 'published' | 'archived' }
-): Promise<{ outcome: 'ok' } | { outcome: 'below-enrolled'; enrolled: number } | { outcome: 'no-sessions' }> {
+): Promise<{ outcome: 'ok' } | { outcome: 'below-enrolled'; enrolled: number; held: number } | { outcome: 'no-sessions' }> {
 	return db.transaction(async (tx) => {
 		await tx.select({ id: workshops.id }).from(workshops).where(eq(workshops.id, workshopId)).for('update');
-		const enrolled = await countStudents(workshopId, tx);
-		if (values.capacity < enrolled) return { outcome: 'below-enrolled' as const, enrolled };
+		const seats = await countSeatsTaken(workshopId, tx);
+		if (values.capacity < seats.taken) return { outcome: 'below-enrolled' as const, enrolled: seats.students, held: seats.held };
 		if (values.state === 'published') {
 			const [s] = await tx.select({ n: count() }).from(workshopSessions).where(eq(workshopSessions.workshopId, workshopId));
 			if (!s?.n) return { outcome: 'no-sessions' as const };
@@ -418,7 +442,7 @@ export async function addMember(
 		if (existing && (existing.role === role || existing.role === 'instructor')) {
 			return (await before(tx)) ? 'already' : 'gone';
 		}
-		if (role === 'student' && (await countStudents(workshopId, tx)) >= w.capacity) return 'full';
+		if (role === 'student' && (await countSeatsTaken(workshopId, tx)).taken >= w.capacity) return 'full';
 		if (!(await before(tx))) return 'gone';
 		if (existing) await tx.update(workshopMembers).set({ role }).where(eq(workshopMembers.id, existing.id));
 		else await tx.insert(workshopMembers).values({ workshopId, userId, role });

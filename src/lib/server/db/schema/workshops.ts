@@ -46,6 +46,10 @@ export const workshops = pgTable(
 		/** Students at most (instructors not counted). */
 		capacity: integer().notNull(),
 		state: text().$type<WorkshopState>().notNull().default('draft'),
+		/** A seat's price in the currency's minor units; 0 is a free workshop (joined by asking or invitation). */
+		priceMinor: integer().notNull().default(0),
+		/** ISO 4217 code in lower case, as the payment provider takes it (see $lib/seats/money). */
+		currency: text().notNull().default('eur'),
 		/** The live session's current position, moved by an instructor (setLiveStep); null when not live. */
 		liveLessonId: uuid().references((): AnyPgColumn => workshopLessons.id, { onDelete: 'set null' }),
 		liveStepId: uuid().references((): AnyPgColumn => workshopSteps.id, { onDelete: 'set null' }),
@@ -57,7 +61,8 @@ export const workshops = pgTable(
 	(t) => [
 		index('workshops_studio_idx').on(t.studioId),
 		check('workshops_state_check', inList(t.state, WORKSHOP_STATES)),
-		check('workshops_capacity_check', sql`${t.capacity} between 1 and 10000`)
+		check('workshops_capacity_check', sql`${t.capacity} between 1 and 10000`),
+		check('workshops_price_check', sql`${t.priceMinor} >= 0`)
 	]
 );
 

@@ -1,7 +1,15 @@
 import { fail } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
 import { runAction } from '$lib/server/actions';
-import { answerJoinRequest, inviteToWorkshop, removeFromWorkshop, revokeWorkshopInvitation, workshopRoster } from '$lib/server/workshops';
+import {
+	answerJoinRequest,
+	cancelBookingWithRefund,
+	inviteToWorkshop,
+	removeFromWorkshop,
+	revokeWorkshopInvitation,
+	workshopBookings,
+	workshopRoster
+} from '$lib/server/workshops';
 import { text } from '$lib/server/workshops/forms';
 import { mergeAddressLists, parseAddressCsv, parseAddressText } from '$lib/workshops/addresses';
 
@@ -10,8 +18,14 @@ const MAX_CSV_BYTES = 256 * 1024;
 
 export async function load({ locals, params, url }) {
 	const user = requireUser(locals.user, url);
+	const bookings = await workshopBookings(user, params.id);
 	const { access, ...roster } = await workshopRoster(user, params.id);
-	return { ...roster, workshop: { id: access.workshop.id, title: access.workshop.title, capacity: access.workshop.capacity }, canManage: access.can['workshop.manage'] };
+	return {
+		...roster,
+		bookings,
+		workshop: { id: access.workshop.id, title: access.workshop.title, capacity: access.workshop.capacity, priceMinor: access.workshop.priceMinor },
+		canManage: access.can['workshop.manage']
+	};
 }
 
 export const actions = {
@@ -45,6 +59,13 @@ export const actions = {
 		return runAction('remove', async () => {
 			await removeFromWorkshop(locals.user, params.id, id);
 			return { action: 'remove', done: true };
+		});
+	},
+	cancelBooking: async ({ locals, params, request }) => {
+		const id = text(await request.formData(), 'bookingId');
+		return runAction('cancelBooking', async () => {
+			const { refunded } = await cancelBookingWithRefund(locals.user, params.id, id);
+			return { action: 'cancelBooking', done: true, refunded };
 		});
 	},
 	answer: async ({ locals, params, request }) => {
