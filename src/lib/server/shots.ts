@@ -25,7 +25,7 @@ import type { SessionUser } from '$lib/server/session';
 import { RuleViolation } from '$lib/server/errors';
 import { offsetFromLuminance, offsetFromMeter } from '$lib/shots/measure';
 import type { ShotMeasureInput, ShotTyped, ShotUpdateInput } from '$lib/shots/types';
-import { formatBytes, makeVariants, measureRegionOf, readImageHeader, type ImageLimits } from './shots/image';
+import { formatBytes, measureRegionOf, processImage, type ImageLimits } from './shots/image';
 import { checkFileName } from './shots/names';
 import { predictShot, shotSettings, type ShotSettings } from './shots-exposure';
 import { objectStore, StorageUnavailable } from './storage';
@@ -216,32 +216,22 @@ export async function uploadShots(
 			continue;
 		}
 		const bytes = await file.bytes();
-		const header = await readImageHeader(bytes, limits);
-		if (!header.ok) {
-			result.failed.push({ fileName: shown, message: `${shown}: ${header.message}` });
+		const processed = await processImage(bytes, limits);
+		if (!processed.ok) {
+			result.failed.push({ fileName: shown, message: `${shown}: ${processed.message}` });
 			continue;
 		}
 		const id = randomUUID();
 		const keys = { originalKey: keyOf(setupId, id, 'original'), previewKey: keyOf(setupId, id, 'preview'), thumbnailKey: keyOf(setupId, id, 'thumbnail') };
-		// The original goes to storage while sharp decodes it for the preview: the two take about as long.
-		// Its outcome is read by allSettled below; the empty catch keeps it from counting as unhandled meanwhile.
-		const storingOriginal = (async () => objectStore().put(keys.originalKey, bytes, header.contentType))();
-		storingOriginal.catch(() => {});
-		const processed = await makeVariants(bytes, header, limits);
-		if (!processed.ok) {
-			await Promise.allSettled([storingOriginal]);
-			await removeQuietly([keys.originalKey]);
-			result.failed.push({ fileName: shown, message: `${shown}: ${processed.message}` });
-			continue;
-		}
-		const variants = [
-			[keys.previewKey, processed.preview],
-			[keys.thumbnailKey, processed.thumbnail]
+		const objects = [
+			[keys.originalKey, bytes, processed.contentType],
+			[keys.previewKey, processed.preview, 'image/jpeg'],
+			[keys.thumbnailKey, processed.thumbnail, 'image/jpeg']
 		] as const;
 		try {
 			const store = objectStore();
-			// The preview and thumbnail at once; if any of the three failed, every one is removed below (one that never arrived is no matter).
-			const puts = await Promise.allSettled([storingOriginal, ...variants.map(([key, body]) => store.put(key, body, 'image/jpeg'))]);
+			// All three at once; if one fails, every one is removed below (one that never arrived is no matter).
+			const puts = await Promise.allSettled(objects.map(([key, body, type]) => store.put(key, body, type)));
 			const failed = puts.find((p) => p.status === 'rejected');
 			if (failed) throw failed.reason;
 			const takenAt = processed.exif.takenAt ? new Date(`${processed.exif.takenAt}Z`) : null;
@@ -262,7 +252,7 @@ export async function uploadShots(
 			});
 			result.created.push(await viewOf(row));
 		} catch (e) {
-			await removeQuietly(Object.values(keys));
+			await removeQuietly(objects.map(([key]) => key));
 			const why = e instanceof StorageUnavailable ? 'storage is unreachable' : 'it could not be saved';
 			result.failed.push({ fileName: shown, message: `${shown}: not kept, ${why}; nothing of it was stored, try again` });
 		}

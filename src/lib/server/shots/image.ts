@@ -50,10 +50,7 @@ const options = (limits: Pick<ImageLimits, 'maxPixels'>): SharpOptions => ({
 	sequentialRead: true
 });
 
-/** What the header says (no pixels decoded): a kept format within the limits, or why not. */
-export type ImageHeader = { ok: true; contentType: string; meta: Metadata } | { ok: false; message: string };
-
-export async function readImageHeader(bytes: Uint8Array, limits: ImageLimits): Promise<ImageHeader> {
+export async function processImage(bytes: Uint8Array, limits: ImageLimits): Promise<ProcessedImage> {
 	if (bytes.byteLength === 0) return { ok: false, message: 'the file is empty' };
 	if (bytes.byteLength > limits.maxBytes) return { ok: false, message: `the file is larger than the limit of ${formatBytes(limits.maxBytes)}` };
 	let meta: Metadata;
@@ -69,11 +66,6 @@ export async function readImageHeader(bytes: Uint8Array, limits: ImageLimits): P
 	if (pixels > limits.maxPixels) {
 		return { ok: false, message: `the image is ${meta.width} × ${meta.height} pixels, more than the limit of ${Math.round(limits.maxPixels / 1e6)} megapixels` };
 	}
-	return { ok: true, contentType, meta };
-}
-
-/** Decodes a picture whose header passed: its upright size, EXIF, preview and thumbnail. */
-export async function makeVariants(bytes: Uint8Array, header: Extract<ImageHeader, { ok: true }>, limits: ImageLimits): Promise<ProcessedImage> {
 	try {
 		const upright = sharp(bytes, options(limits)).rotate();
 		// One decode, two sizes: the preview first, the thumbnail from the preview.
@@ -82,16 +74,11 @@ export async function makeVariants(bytes: Uint8Array, header: Extract<ImageHeade
 			.jpeg({ quality: 85 })
 			.toBuffer();
 		const thumbnail = await sharp(preview).resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 80 }).toBuffer();
-		return { ok: true, contentType: header.contentType, ...uprightSize(header.meta), exif: await readExif(bytes), thumbnail, preview };
+		return { ok: true, contentType, ...uprightSize(meta), exif: await readExif(bytes), thumbnail, preview };
 	} catch (e) {
 		const detail = e instanceof Error ? e.message.split('\n')[0] : '';
 		return { ok: false, message: `the image is truncated or corrupt and could not be decoded${detail ? ` (${detail})` : ''}` };
 	}
-}
-
-export async function processImage(bytes: Uint8Array, limits: ImageLimits): Promise<ProcessedImage> {
-	const header = await readImageHeader(bytes, limits);
-	return header.ok ? makeVariants(bytes, header, limits) : header;
 }
 
 export function formatBytes(n: number) {
