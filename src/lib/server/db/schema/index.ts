@@ -6,3 +6,4 @@ export * from './setups';
 export * from './gear';
 export * from './shots';
 export * from './workshops';
+export * from './exercises';
