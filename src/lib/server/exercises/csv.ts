@@ -2,7 +2,7 @@
 // needed). A cell that would start a spreadsheet formula is prefixed with an apostrophe.
 import type { Exercise, Workshop } from '$lib/server/db/schema';
 import { STATE_WORDS } from '$lib/exercises/states';
-import type { HandInRow } from './hand-ins';
+import type { HandInRow } from '$lib/exercises/types';
 
 export function csvCell(value: string | number | boolean | null): string {
 	if (value === null) return '';

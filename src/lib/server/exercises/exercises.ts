@@ -27,28 +27,10 @@ import { LESSON_NOT_FOUND, pinnableRevision } from '$lib/server/workshops/lesson
 import { askedText, type Target } from '$lib/light/targets';
 import type { SetupDocument } from '$lib/scene/document';
 import type { ExerciseCreateInput, ExerciseUpdateInput } from '$lib/exercises/inputs';
-import type { HandInState } from '$lib/exercises/states';
+import type { ExerciseSummary } from '$lib/exercises/types';
 import { isUuid } from '$lib/uuid';
 
-export interface ExerciseSummary {
-	id: string;
-	workshopId: string;
-	lessonId: string;
-	lessonTitle: string;
-	title: string;
-	brief: string;
-	briefHtml: string;
-	dueAt: string;
-	/** The due date has passed: a hand-in now is marked late. */
-	pastDue: boolean;
-	setupId: string;
-	revisionNumber: number;
-	targets: Target[];
-	/** Each target in words ("Lighting ratio: 2.5:1 to 4:1"). */
-	targetWords: string[];
-	/** For a student: their copy (null until started) and their latest hand-in. */
-	mine: { setupId: string | null; latest: { id: string; version: number; state: HandInState; late: boolean } | null } | null;
-}
+export type { ExerciseSummary };
 
 export function exerciseSummary(e: Exercise, lessonTitle: string, mine: ExerciseSummary['mine'] = null): ExerciseSummary {
 	return {

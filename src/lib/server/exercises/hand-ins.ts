@@ -29,6 +29,7 @@ import type { SetupDocument } from '$lib/scene/document';
 import type { HandInInput, ReviewInput } from '$lib/exercises/inputs';
 import { STATE_WORDS, type HandInState } from '$lib/exercises/states';
 import { exerciseSummary, startingDocument, type ExerciseSummary } from './exercises';
+import type { HandInRow } from '$lib/exercises/types';
 
 export const handInPath = (h: Pick<HandIn, 'id' | 'exerciseId'>, workshopId: string) => `/workshops/${workshopId}/exercises/${h.exerciseId}/hand-ins/${h.id}`;
 
@@ -81,19 +82,7 @@ export async function handIn(user: SessionUser | null, exerciseId: string, input
 
 // ---------- reading ----------
 
-export interface HandInRow {
-	userId: string;
-	name: string | null;
-	email: string;
-	/** Null: not handed in yet. */
-	handInId: string | null;
-	version: number | null;
-	handedInAt: string | null;
-	late: boolean;
-	targetsMet: number | null;
-	targetsTotal: number | null;
-	state: HandInState | null;
-}
+export type { HandInRow };
 
 function rowsOf(exercise: Exercise, students: { userId: string; name: string | null; email: string }[], all: Awaited<ReturnType<typeof listHandIns>>): HandInRow[] {
 	const latest = new Map<string, HandIn>();

@@ -11,12 +11,14 @@ import {
 	workshopOverview
 } from '$lib/server/workshops';
 import { formAction, localToIso, text } from '$lib/server/workshops/forms';
+import { listExercisesFor } from '$lib/server/exercises';
 import { lessonSchema, sessionSchema, workshopDetailsSchema } from '$lib/workshops/inputs';
 
 export async function load({ locals, params, url }) {
 	const user = requireUser(locals.user, url);
 	const { access, ...overview } = await workshopOverview(user, params.id);
-	return { ...overview, can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
+	const exercises = await listExercisesFor(user, params.id);
+	return { ...overview, exercises, can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
 }
 
 export const actions = {
