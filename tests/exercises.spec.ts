@@ -115,5 +115,12 @@ test('set an exercise, start it, meet the lighting ratio live, hand in, review, 
 	await visit(student, new URL(firstLink(mail.text)).pathname);
 	await expect(student.getByTestId('hand-in-state')).toHaveText('Another try');
 	await expect(student.getByTestId('feedback-text').locator('strong')).toHaveText('feather');
+
+	// At phone width nothing runs off the side; printed, the page drops its navigation.
+	await student.setViewportSize({ width: 390, height: 844 });
+	await expect.poll(() => student.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+	await student.emulateMedia({ media: 'print' });
+	await expect(student.getByRole('navigation', { name: 'Breadcrumb' })).toBeHidden();
+	await expect(student.getByTestId('feedback-text')).toBeVisible();
 	await studentContext.close();
 });
