@@ -29,7 +29,7 @@ describe('exposure offset at the marked aperture', () => {
 		expect(r.met).toBe(false);
 		expect(r.value).toBeCloseTo(-2, 9);
 		expect(r.missedBy).toBeCloseTo(5 / 3, 9);
-		expect(r.text).toMatch(/not met, 1\.67 stops too low/);
+		expect(r.text).toBe('−2 stops: not met, 1.67 stops below the range.');
 	});
 
 	it('no light at the subject cannot be evaluated, and says why', () => {

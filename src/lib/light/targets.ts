@@ -68,6 +68,14 @@ function show(kind: TargetKind, v: number): string {
 	}
 }
 
+/** How far outside a range, in the target's unit: "1.67 stops", "0.45", "15°", "1 light". */
+function distance(kind: TargetKind, v: number): string {
+	if (kind === 'exposureOffset') return `${round(v, 2)} stops`;
+	if (kind === 'keyLightAngle') return `${round(v, 0)}°`;
+	if (kind === 'lightCount') return `${v} ${v === 1 ? 'light' : 'lights'}`;
+	return `${round(v, 2)}`;
+}
+
 /** "f/11 to f/22", "at most 2 lights", "at least 2.5:1". */
 export function askedText(target: Target): string {
 	const { name, ranged } = TARGET_LABELS[target.kind];
@@ -100,10 +108,8 @@ function ranged(target: Target, value: number | null, reason: string): TargetRes
 	if (value === null) return { kind: target.kind, asked, value: null, met: null, missedBy: null, unit, text: reason };
 	const missedBy = outsideBy(value, target.min, target.max);
 	const shown = show(target.kind, value);
-	const text =
-		missedBy === 0
-			? `${shown}: met.`
-			: `${shown}: not met, ${show(target.kind, missedBy).replace(/^[+±]/, '')} ${target.min !== undefined && value < target.min ? 'too low' : 'too high'}.`;
+	const below = target.min !== undefined && value < target.min;
+	const text = missedBy === 0 ? `${shown}: met.` : `${shown}: not met, ${distance(target.kind, missedBy)} ${below ? 'below' : 'above'} the range.`;
 	return { kind: target.kind, asked, value, met: missedBy === 0, missedBy, unit, text };
 }
 

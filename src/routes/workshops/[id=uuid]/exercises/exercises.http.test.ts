@@ -107,7 +107,7 @@ describe('form actions', () => {
 		const made = await postAction(path, { ...form, title: 'Raking light', 'target-lightingRatio-min': '2.5', 'target-lightingRatio-max': '4' }, who.owner);
 		expect(made.type).toBe('redirect');
 		expect(made.location).toMatch(new RegExp(`^/workshops/${w.workshopId}/exercises/[0-9a-f-]{36}\\?set$`));
-		expect((await postAction(path, { ...form, title: 'x' }, who.student)).status).toBe(403);
+		expect((await postAction(path, { ...form, title: 'x', 'target-lightingRatio-min': '2.5', 'target-lightingRatio-max': '4' }, who.student)).status).toBe(403);
 	});
 
 	it('start and hand in: students only; a bad setup is named; review: reviewers only, a bad state named', async () => {
