@@ -34,10 +34,10 @@ test('set an exercise, start it, meet the lighting ratio live, hand in, review, 
 	await page.getByLabel('Brief (Markdown)').fill('Bring the card in until the key is about **3:1** over the fill.');
 	await page.getByLabel('Due').fill('2030-06-01T21:00');
 	// An inverted range is named beside its field and nothing is lost.
-	await page.getByLabel(/^Lighting ratio/).check();
+	await page.getByRole('checkbox', { name: 'Lighting ratio (key to the next light)' }).check();
 	await page.locator('#target-lightingRatio-min').fill('4');
 	await page.locator('#target-lightingRatio-max').fill('2.5');
-	await page.getByLabel(/^Number of lights/).check();
+	await page.getByRole('checkbox', { name: 'Number of lights (flashes and continuous)' }).check();
 	await page.locator('#target-lightCount-max').fill('2');
 	await page.getByRole('button', { name: 'Set the exercise' }).click();
 	await expect(page.locator('#target-lightingRatio-max-error')).toContainText('the range is inverted');
