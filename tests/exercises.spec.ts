@@ -88,7 +88,7 @@ test('set an exercise, start it, meet the lighting ratio live, hand in, review, 
 
 	// Hand in revision 2 with the shot and a note.
 	await visit(student, exerciseUrl);
-	await expect(student.getByLabel('Revision')).toHaveValue('2');
+	await expect(student.getByLabel('Revision', { exact: true })).toHaveValue('2');
 	await expect(student.getByRole('checkbox', { name: /quartz-test\.jpg/ })).toBeChecked();
 	await student.getByLabel('Note for your instructor (Markdown)').fill('Moved the card 5 cm in.');
 	await student.getByRole('button', { name: 'Hand in' }).click();
