@@ -16,7 +16,7 @@ async function copyOf(user: SessionUser, setupId: string | null) {
 		const [revisions, shots] = await Promise.all([listSetupRevisions(user, setupId), listShots(user, setupId)]);
 		return {
 			setupId,
-			revisions: revisions.map((r) => ({ number: r.number, createdAt: r.createdAt, message: r.message })).reverse(),
+			revisions: revisions.map((r) => ({ number: r.number, createdAt: r.createdAt, message: r.message })).sort((a, b) => b.number - a.number),
 			shots: shots.shots.map((s) => ({ id: s.id, fileName: s.fileName, revisionNumber: s.revisionNumber, thumbnail: s.images.thumbnail }))
 		};
 	} catch (e) {
