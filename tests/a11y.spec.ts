@@ -57,6 +57,9 @@ const SIGNED_IN: [string, string][] = [
 	['a step', `${WORKSHOP}/steps/7b2c4e90-1a3f-4d6b-8e25-6c0f00000202`],
 	['a roster', `${WORKSHOP}/roster`],
 	['a lesson handout', `${LESSON}/handout`],
+	['an exercise with its hand-ins', `${WORKSHOP}/exercises/7b2c4e90-1a3f-4d6b-8e25-6c0f00000301`],
+	['setting an exercise', `${LESSON}/exercises/new`],
+	['a gradebook', `${WORKSHOP}/gradebook`],
 	['error page (404)', '/setups/00000000-0000-4000-8000-000000000000']
 ];
 

@@ -31,7 +31,10 @@ const EXPECTED: Record<Capability, Record<Caller, Outcome>> = {
 	'workshop.presenterNotes': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 'ok', student: 403 },
 	'workshop.run': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 'ok', student: 403 },
 	'workshop.roster': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 'ok', student: 403 },
-	'workshop.manage': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 403, student: 403 }
+	'workshop.manage': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 403, student: 403 },
+	// Issue 17: those who run a workshop review its hand-ins; only its students hand in.
+	'workshop.review': { stranger: 404, otherStudent: 404, viewer: 403, editor: 'ok', owner: 'ok', admin: 'ok', instructor: 'ok', student: 403 },
+	'workshop.handIn': { stranger: 404, otherStudent: 404, viewer: 403, editor: 403, owner: 403, admin: 'ok', instructor: 403, student: 'ok' }
 };
 
 async function world() {

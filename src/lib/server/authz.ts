@@ -1,5 +1,5 @@
 // The one place that decides who may do what. Every load, action and API route asks here first.
-import { error, redirect } from '@sveltejs/kit';
+import { error, isHttpError, redirect } from '@sveltejs/kit';
 import { and, eq, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import {
@@ -17,6 +17,7 @@ import {
 import { findGearRow } from '$lib/server/db/queries/gear';
 import type { StudioFilter } from '$lib/server/db/queries/visibility';
 import { findShotRow } from '$lib/server/db/queries/shots';
+import { findExerciseRow, findHandInRow } from '$lib/server/db/queries/exercises';
 import type { SessionUser } from '$lib/server/session';
 import { isUuid } from '$lib/uuid';
 
@@ -231,12 +232,17 @@ export const WORKSHOP_CAPABILITIES = [
 	/** Invitations, the roster and requests to join. */
 	'workshop.roster',
 	/** Adding and removing instructors; deleting the workshop. */
-	'workshop.manage'
+	'workshop.manage',
+	/** Every student's hand-ins of the workshop's exercises: reading them, feedback, the gradebook. */
+	'workshop.review',
+	/** Starting an exercise and handing in: students only (their own hand-ins). */
+	'workshop.handIn'
 ] as const;
 export type WorkshopCapability = (typeof WORKSHOP_CAPABILITIES)[number];
 
 const follower: WorkshopCapability[] = ['workshop.follow'];
-const instructor: WorkshopCapability[] = [...follower, 'workshop.presenterNotes', 'workshop.run', 'workshop.roster'];
+const instructor: WorkshopCapability[] = [...follower, 'workshop.presenterNotes', 'workshop.run', 'workshop.roster', 'workshop.review'];
+const runner = WORKSHOP_CAPABILITIES.filter((c) => c !== 'workshop.handIn');
 
 /**
  * What each role may do in a workshop. Studio roles reach every workshop of their studio: owners and
@@ -246,10 +252,10 @@ const instructor: WorkshopCapability[] = [...follower, 'workshop.presenterNotes'
  */
 export const WORKSHOP_ROLE_CAPABILITIES: Record<StudioRole | WorkshopRole, ReadonlySet<WorkshopCapability>> = {
 	viewer: new Set(follower),
-	editor: new Set(WORKSHOP_CAPABILITIES),
-	owner: new Set(WORKSHOP_CAPABILITIES),
+	editor: new Set(runner),
+	owner: new Set(runner),
 	instructor: new Set(instructor),
-	student: new Set(follower)
+	student: new Set([...follower, 'workshop.handIn'])
 };
 
 export const WORKSHOP_NOT_FOUND = 'No such workshop.';
@@ -310,6 +316,58 @@ export async function authorizeWorkshop(
 	}
 	const can = Object.fromEntries(WORKSHOP_CAPABILITIES.map((c) => [c, canInWorkshop(access, c)])) as Record<WorkshopCapability, boolean>;
 	return { ...access, can };
+}
+
+// ---------- exercises and hand-ins ----------
+
+export const EXERCISE_NOT_FOUND = 'No such exercise.';
+export const HAND_IN_NOT_FOUND = 'No such hand-in.';
+
+/**
+ * One exercise through its workshop: 404 for an exercise that does not exist, is not of `workshopId`
+ * (when given: a URL names both), or whose workshop the caller may not follow; then the workshop's
+ * answer for `capability`.
+ */
+export async function authorizeExercise(user: SessionUser | null, exerciseId: string, capability: WorkshopCapability, workshopId?: string) {
+	const signedIn = requireUser(user);
+	const exercise = isUuid(exerciseId) ? await findExerciseRow(exerciseId) : null;
+	if (!exercise || (workshopId !== undefined && exercise.workshopId !== workshopId)) error(404, EXERCISE_NOT_FOUND);
+	let access;
+	try {
+		access = await authorizeWorkshop(signedIn, exercise.workshopId, capability);
+	} catch (e) {
+		if (isHttpError(e) && e.status === 404) error(404, EXERCISE_NOT_FOUND);
+		throw e;
+	}
+	return { exercise, access };
+}
+
+/**
+ * One hand-in: its student reads their own; those who may review the workshop read and review every
+ * hand-in of it. Anyone else, another student included, gets the same 404 as for a hand-in that does
+ * not exist, and so does a hand-in asked for under another exercise or workshop than its own.
+ */
+export async function authorizeHandIn(
+	user: SessionUser | null,
+	handInId: string,
+	want: 'read' | 'review',
+	place: { workshopId?: string; exerciseId?: string } = {}
+) {
+	const signedIn = requireUser(user);
+	const handIn = isUuid(handInId) ? await findHandInRow(handInId) : null;
+	if (!handIn || (place.exerciseId !== undefined && handIn.exerciseId !== place.exerciseId)) error(404, HAND_IN_NOT_FOUND);
+	let found;
+	try {
+		found = await authorizeExercise(signedIn, handIn.exerciseId, 'workshop.follow', place.workshopId);
+	} catch (e) {
+		if (isHttpError(e) && e.status === 404) error(404, HAND_IN_NOT_FOUND);
+		throw e;
+	}
+	const reviews = found.access.can['workshop.review'];
+	const own = handIn.userId === signedIn.id;
+	if (!reviews && !own) error(404, HAND_IN_NOT_FOUND);
+	if (want === 'review' && !reviews) error(403, 'Your role in this workshop does not allow that (workshop.review).');
+	return { handIn, exercise: found.exercise, access: found.access, own, canReview: reviews };
 }
 
 /** The studios where the caller may run workshops (create one): owners and editors, or every studio for an admin. */

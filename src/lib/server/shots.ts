@@ -5,10 +5,11 @@ import { randomUUID } from 'node:crypto';
 import { error } from '@sveltejs/kit';
 import { and, eq, inArray } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
-import { authorizeSetup, authorizeShot } from '$lib/server/authz';
+import { authorizeSetup, authorizeShot, SHOT_NOT_FOUND } from '$lib/server/authz';
 import { db } from '$lib/server/db';
 import { setupRevisions, type Shot, type ShotMeasure } from '$lib/server/db/schema';
 import {
+	findShotRow,
 	findSessionRow,
 	forgetLeftovers,
 	insertMeasure,
@@ -329,6 +330,24 @@ export async function shotImage(user: SessionUser | null, setupId: string, shotI
 	const key = variant === 'original' ? shot.originalKey : variant === 'preview' ? shot.previewKey : shot.thumbnailKey;
 	const bytes = await readObject(key);
 	return { bytes, contentType: variant === 'original' ? shot.contentType : 'image/jpeg', fileName: shot.fileName };
+}
+
+/**
+ * Shots of a setup by id, for a reader whose right comes from elsewhere (an exercise's hand-in names
+ * them): the views in the order asked, trashed shots included, missing ones left out.
+ */
+export async function shotViewsFor(setupId: string, shotIds: string[]): Promise<ShotView[]> {
+	const rows = (await Promise.all(shotIds.map((id) => findShotRow(setupId, id)))).filter((r): r is Shot => r !== null);
+	return viewsOf(setupId, rows);
+}
+
+/** One image of a shot, for a reader whose right comes from elsewhere (as shotViewsFor). */
+export async function shotImageFor(setupId: string, shotId: string, variant: string) {
+	if (!(IMAGE_VARIANTS as readonly string[]).includes(variant)) error(404, `No such image: ask for ${IMAGE_VARIANTS.join(', ')}.`);
+	const shot = await findShotRow(setupId, shotId);
+	if (!shot) error(404, SHOT_NOT_FOUND);
+	const key = variant === 'original' ? shot.originalKey : variant === 'preview' ? shot.previewKey : shot.thumbnailKey;
+	return { bytes: await readObject(key), contentType: variant === 'original' ? shot.contentType : 'image/jpeg', fileName: shot.fileName };
 }
 
 async function readObject(key: string) {

@@ -17,7 +17,7 @@ const title = (what: string) =>
 		.min(1, `Give the ${what} a title.`)
 		.max(200, `A ${what} title has at most 200 characters.`);
 
-const markdown = (what: string) =>
+export const markdown = (what: string) =>
 	z
 		.string({ error: `${what} must be text.` })
 		.max(MAX_WORKSHOP_TEXT, `${what} has at most ${MAX_WORKSHOP_TEXT} characters.`)
@@ -50,7 +50,7 @@ export const workshopDetailsSchema = z.object({
 export type WorkshopDetailsInput = z.output<typeof workshopDetailsSchema>;
 
 /** A moment: an ISO date-time with its offset (`2026-12-10T19:00:00Z`), as the API and the browser send it. */
-const moment = (field: string) =>
+export const moment = (field: string) =>
 	z
 		.string({ error: `Give the ${field}.` })
 		.trim()
@@ -89,7 +89,7 @@ const elementIds = z
 	.array(z.string().min(1).max(100), { error: 'Hidden elements must be a list of element ids.' })
 	.max(500, 'At most 500 elements can be hidden.');
 
-const revisionNumber = z.coerce
+export const revisionNumber = z.coerce
 	.number({ error: 'The revision must be a whole number.' })
 	.int('The revision must be a whole number.')
 	.min(1, 'Revisions are numbered from 1.');

@@ -85,3 +85,17 @@ export function seatRefundLetter(to: string, workshopTitle: string, amount: stri
 		html: letterHtml(lines, { href: url, label: "The workshop's page" }, footer)
 	};
 }
+
+export function handInReviewedLetter(to: string, url: string, exerciseTitle: string, reviewerName: string, state: 'accepted' | 'another-try', feedback: string): Letter {
+	const lines = [
+		`${reviewerName} has reviewed your hand-in of "${exerciseTitle}": ${state === 'accepted' ? 'accepted' : 'another try, please'}.`,
+		...(feedback.trim() ? ['Their feedback:', feedback.trim()] : [])
+	];
+	const footer = 'You get this message because you handed in this exercise on Squarelaw.';
+	return {
+		to,
+		subject: `Your hand-in of "${exerciseTitle}": ${state === 'accepted' ? 'accepted' : 'another try'}`,
+		text: `${lines.join('\n')}\n\nOpen it: ${url}\n\n${footer}\n`,
+		html: letterHtml(lines, { href: url, label: 'Open the hand-in' }, footer)
+	};
+}

@@ -3,7 +3,7 @@
 // Idempotent: fixed ids, and rows already there are left as they are.
 import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { users, workshopInvitations, workshopLessons, workshopMembers, workshopSessions, workshopSteps, workshops } from '$lib/server/db/schema';
+import { exercises, users, workshopInvitations, workshopLessons, workshopMembers, workshopSessions, workshopSteps, workshops } from '$lib/server/db/schema';
 import { hashSecret } from '$lib/server/tokens';
 import { DEMO_SETUP_IDS } from './notebook-data';
 
@@ -42,6 +42,18 @@ const STEPS = [
 	{ hidden: ['flag'], caption: 'Add a white card opposite: it returns some of the key into the shadows and the lighting ratio drops.' },
 	{ hidden: [], caption: 'Add a black flag between the softbox and the lens: the exposure stays, the veiling flare goes.' }
 ];
+
+export const DEMO_EXERCISE_ID = '7b2c4e90-1a3f-4d6b-8e25-6c0f00000301';
+
+const EXERCISE_BRIEF = [
+	'Light the quartz cluster so the **crystal faces** read as separate planes against the velvet.',
+	'',
+	'- Start from the key light and the card of the lesson.',
+	'- Move the card (or the key) until the key is about **3:1** over the fill.',
+	'- Stay between f/11 and f/22, and use at most two lights (cards do not count).',
+	'',
+	'Hand in your saved plan, one or two test frames, and a note on what you changed.'
+].join('\n');
 
 export async function seedWorkshop(studioId: string) {
 	const [mara] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'mara.quill@fernhill.example'));
@@ -95,6 +107,27 @@ export async function seedWorkshop(studioId: string) {
 				}))
 			)
 			.onConflictDoNothing({ target: workshopSteps.id });
+		await tx
+			.insert(exercises)
+			.values({
+				id: DEMO_EXERCISE_ID,
+				workshopId: DEMO_WORKSHOP_ID,
+				lessonId: DEMO_LESSON_ID,
+				title: 'Faces of the quartz at 3:1',
+				brief: EXERCISE_BRIEF,
+				setupId: DEMO_SETUP_IDS.quartz,
+				revisionNumber: 5,
+				dueAt: new Date('2027-01-28T21:00:00Z'),
+				targets: [
+					{ kind: 'lightingRatio', min: 2.5, max: 4 },
+					{ kind: 'aperture', min: 11, max: 22 },
+					{ kind: 'lightCount', max: 2 }
+				],
+				createdById: mara.id,
+				createdAt: new Date('2026-11-04T19:10:00Z'),
+				updatedAt: new Date('2026-11-04T19:10:00Z')
+			})
+			.onConflictDoNothing({ target: exercises.id });
 		const joined = await tx
 			.insert(workshopMembers)
 			.values({ workshopId: DEMO_WORKSHOP_ID, userId: student.id, role: 'student', joinedAt: new Date('2026-11-05T09:12:00Z') })

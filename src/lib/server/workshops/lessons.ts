@@ -198,7 +198,7 @@ export async function reorderLessons(user: SessionUser | null, workshopId: strin
  * The revision a step may pin: the setup must be one the instructor can see (anything else reads as
  * "no such setup", as authz answers everywhere) and the revision must exist.
  */
-async function pinnableRevision(user: SessionUser | null, setupId: string, revisionNumber: number | undefined) {
+export async function pinnableRevision(user: SessionUser | null, setupId: string, revisionNumber: number | undefined) {
 	let setup;
 	try {
 		({ setup } = await authorizeSetup(user, setupId, 'setups.view'));

@@ -3,6 +3,7 @@ import { requireUser } from '$lib/server/authz';
 import { setupOverview, trashSetup } from '$lib/server/setups';
 import { saveChange, type SaveOutcome } from '$lib/server/setups-changes';
 import { shelfOf } from '$lib/server/gear';
+import { exerciseForSetup } from '$lib/server/exercises';
 import { elementLabels } from '$lib/notebook/load';
 import { renderNotes } from '$lib/notebook/markdown';
 import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/settings';
@@ -38,7 +39,9 @@ export async function load({ params, url, locals }) {
 		canEdit: setup.canEdit,
 		canDuplicate: setup.canDuplicate,
 		unitSystem: user.unitSystem,
-		shelf
+		shelf,
+		// The exercise this setup is the caller's copy of: its brief and targets beside the editor.
+		exercise: await exerciseForSetup(user, params.id)
 	};
 }
 

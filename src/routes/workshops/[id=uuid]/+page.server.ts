@@ -12,6 +12,7 @@ import {
 	workshopOverview
 } from '$lib/server/workshops';
 import { formAction, localToIso, text } from '$lib/server/workshops/forms';
+import { listExercisesFor } from '$lib/server/exercises';
 import { lessonSchema, sessionSchema, workshopDetailsSchema } from '$lib/workshops/inputs';
 import { priceSchema } from '$lib/seats/inputs';
 import { paymentsConfigured } from '$lib/server/payments/provider';
@@ -19,7 +20,8 @@ import { paymentsConfigured } from '$lib/server/payments/provider';
 export async function load({ locals, params, url }) {
 	const user = requireUser(locals.user, url);
 	const { access, ...overview } = await workshopOverview(user, params.id);
-	return { ...overview, paymentsReady: paymentsConfigured(), can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
+	const exercises = await listExercisesFor(user, params.id);
+	return { ...overview, exercises, paymentsReady: paymentsConfigured(), can: access.can, myRole: access.workshopRole ?? access.studioRole ?? (access.isAdmin ? 'site admin' : null) };
 }
 
 export const actions = {

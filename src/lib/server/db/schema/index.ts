@@ -7,3 +7,4 @@ export * from './gear';
 export * from './shots';
 export * from './workshops';
 export * from './seats';
+export * from './exercises';

@@ -14,6 +14,7 @@ import {
 	workshopSteps,
 	workshops
 } from './workshops';
+import { exerciseStarts, exercises, handIns } from './exercises';
 
 export const usersRelations = relations(users, ({ many }) => ({
 	memberships: many(memberships),
@@ -125,4 +126,23 @@ export const workshopInvitationsRelations = relations(workshopInvitations, ({ on
 export const workshopJoinRequestsRelations = relations(workshopJoinRequests, ({ one }) => ({
 	workshop: one(workshops, { fields: [workshopJoinRequests.workshopId], references: [workshops.id] }),
 	user: one(users, { fields: [workshopJoinRequests.userId], references: [users.id] })
+}));
+
+export const exercisesRelations = relations(exercises, ({ one, many }) => ({
+	workshop: one(workshops, { fields: [exercises.workshopId], references: [workshops.id] }),
+	lesson: one(workshopLessons, { fields: [exercises.lessonId], references: [workshopLessons.id] }),
+	setup: one(setups, { fields: [exercises.setupId], references: [setups.id] }),
+	starts: many(exerciseStarts),
+	handIns: many(handIns)
+}));
+
+export const exerciseStartsRelations = relations(exerciseStarts, ({ one }) => ({
+	exercise: one(exercises, { fields: [exerciseStarts.exerciseId], references: [exercises.id] }),
+	user: one(users, { fields: [exerciseStarts.userId], references: [users.id] }),
+	setup: one(setups, { fields: [exerciseStarts.setupId], references: [setups.id] })
+}));
+
+export const handInsRelations = relations(handIns, ({ one }) => ({
+	exercise: one(exercises, { fields: [handIns.exerciseId], references: [exercises.id] }),
+	user: one(users, { fields: [handIns.userId], references: [users.id] })
 }));

@@ -2,6 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/authz';
 import { runAction } from '$lib/server/actions';
 import { listSetupsFor } from '$lib/server/setups';
+import { listExercisesFor } from '$lib/server/exercises';
 import {
 	addStep,
 	lessonForViewer,
@@ -28,7 +29,8 @@ export async function load({ locals, params, url }) {
 				revisionNumber: s.revisionNumber
 			}))
 		: [];
-	return { ...view, setups, unitSystem: user.unitSystem };
+	const exercises = await listExercisesFor(user, params.id, view.lesson.id);
+	return { ...view, setups, exercises, unitSystem: user.unitSystem };
 }
 
 /** Step forms send the shown elements as checked boxes; every other element of the revision is hidden. */
