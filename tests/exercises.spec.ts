@@ -26,6 +26,7 @@ test('set an exercise, start it, meet the lighting ratio live, hand in, review, 
 	await signedInAs(context, browser, baseURL, OWNER);
 	await visit(page, `/workshops/${WORKSHOP}/lessons/${LESSON}`);
 	await page.getByTestId('exercises').getByRole('link', { name: 'Set an exercise' }).click();
+	await expect(page.getByRole('heading', { level: 1, name: 'Set an exercise' })).toBeVisible();
 	await page.waitForLoadState('networkidle');
 	const quartz = page.locator('#setupId option', { hasText: 'Quartz cluster on black velvet' }).first();
 	await page.locator('#setupId').selectOption((await quartz.getAttribute('value'))!);

@@ -73,7 +73,8 @@ const ALONG = [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8];
 function dimensionPositions(line: DimensionLine, zoom: number): number[] {
 	const lenPx = Math.hypot(line.to[0] - line.from[0], line.to[1] - line.from[1]) * zoom || 1;
 	const out = textWidthPx(line.label, DIMENSION_FONT_PX) / 2 + 10;
-	return [...ALONG, -out / lenPx, 1 + out / lenPx, -(2 * out) / lenPx, 1 + (2 * out) / lenPx];
+	const beyond = [1, 2, 3, 4].flatMap((k) => [-(k * out) / lenPx, 1 + (k * out) / lenPx]);
+	return [...ALONG, ...beyond];
 }
 
 /**

@@ -70,7 +70,7 @@ const quartzSubject = (z: number) => ({ position: [0, 0, z] as [number, number, 
 const quartzKey = (power: number) => ({
 	id: 'key',
 	kind: 'flash' as const,
-	position: [-0.2, 0.15, 0.4] as [number, number, number],
+	position: [-0.24, 0.18, 0.42] as [number, number, number],
 	...kestrelAt35,
 	power,
 	lossStops: 1.7,
