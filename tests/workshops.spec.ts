@@ -125,7 +125,7 @@ test('build a three-step lesson from the quartz setup, invite a student who foll
 	}
 	await page.emulateMedia({ media: 'print' });
 	await expect(steps.nth(0).getByTestId('plan-figure-image')).toBeVisible();
-	await expect(steps.nth(0).getByRole('img', { name: 'Plan of step 1' })).toBeHidden();
+	await expect(steps.nth(0).locator('[aria-roledescription="plan"]')).toBeHidden();
 	await page.emulateMedia({ media: 'screen' });
 
 	// The lesson's handout: one PDF page per step.
