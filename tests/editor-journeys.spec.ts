@@ -331,6 +331,10 @@ test('without JavaScript the setup page shows the saved exposure and aperture ta
 	await expect(table).toBeVisible();
 	await expect(table.locator('tbody tr')).toHaveCount(exposure.apertureTable.length);
 	await expect(p.getByTestId('element-list')).toBeVisible();
+	// No picture was saved with it: the plan is listed in words where the canvas would be.
+	const words = p.getByTestId('plan-canvas').getByTestId('plan-fallback');
+	await expect(words).toContainText('(the drawing needs JavaScript)');
+	await expect(words.getByRole('listitem').filter({ hasText: 'from the subject' }).first()).toBeVisible();
 	await p.getByText('Change settings').click();
 	await p.getByLabel('Aperture').fill('f/22');
 	await p.getByRole('button', { name: 'Save settings' }).click();

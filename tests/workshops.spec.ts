@@ -5,6 +5,7 @@
 // read-only; the lesson's handout prints one PDF page per step.
 import { randomUUID } from 'node:crypto';
 import type { Page } from '@playwright/test';
+import { extractImages, getDocumentProxy } from 'unpdf';
 import { expect, signIn, signedInAs, test, waitForMail, firstLink } from './fixtures';
 
 const OWNER = 'mara.quill@fernhill.example';
@@ -107,12 +108,59 @@ test('build a three-step lesson from the quartz setup, invite a student who foll
 	await expect.poll(captions).toEqual(CAPTIONS);
 	const lessonUrl = new URL(page.url()).pathname;
 
+	// Each step's thumbnail is the editor's drawing, read-only, with no words at that size, and keeps a
+	// light-theme image at three times its pixels for paper.
+	for (let i = 0; i < 3; i++) {
+		const figure = steps.nth(i).getByTestId('plan-figure');
+		await figure.scrollIntoViewIfNeeded();
+		const plan = figure.getByRole('img', { name: `Plan of step ${i + 1}` });
+		await expect(plan.locator('canvas').first()).toBeVisible();
+		await expect(plan).toHaveAttribute('data-annotations', '[]');
+		await expect(figure.getByRole('application')).toHaveCount(0);
+		const printed = figure.getByTestId('plan-figure-image');
+		await expect(printed).toHaveAttribute('src', /^blob:/);
+		await expect(printed).toBeHidden();
+		const ratio = await plan.evaluate((el, img) => (img as HTMLImageElement).naturalWidth / el.clientWidth, await printed.elementHandle());
+		expect(ratio).toBeGreaterThanOrEqual(2.9);
+	}
+	await page.emulateMedia({ media: 'print' });
+	await expect(steps.nth(0).getByTestId('plan-figure-image')).toBeVisible();
+	await expect(steps.nth(0).locator('[aria-roledescription="plan"]')).toBeHidden();
+	await page.emulateMedia({ media: 'screen' });
+
 	// The lesson's handout: one PDF page per step.
 	await visit(page, `${lessonUrl}/handout`);
 	await expect(page.getByTestId('handout-page')).toHaveCount(3);
 	await expect(page.getByTestId('handout-page').nth(2)).toContainText(CAPTIONS[2]);
+	// Each page's plan is drawn once into an image (on screen and on paper), as sharp as a 3× render.
+	const images = page.getByTestId('handout-page').getByTestId('plan-figure-image');
+	await expect(images).toHaveCount(3);
+	for (let i = 0; i < 3; i++) {
+		await expect(images.nth(i)).toHaveAccessibleName(`Plan of step ${i + 1}, seen from above`);
+		await expect.poll(() => images.nth(i).evaluate((img: HTMLImageElement) => img.complete && img.naturalWidth / img.clientWidth)).toBeGreaterThanOrEqual(2.5);
+	}
 	const pdf = await page.pdf({ format: 'A4', printBackground: false });
 	expect(pdfPageCount(pdf)).toBe(3);
+	// The PDF holds the plan as an image on every page, at more pixels than the box it prints in.
+	const doc = await getDocumentProxy(new Uint8Array(pdf));
+	for (let n = 1; n <= 3; n++) {
+		const onPage = await extractImages(doc, n);
+		expect(onPage.length, `images on page ${n}`).toBeGreaterThanOrEqual(1);
+		expect(Math.max(...onPage.map((img) => img.width))).toBeGreaterThan(1000);
+	}
+
+	// Without JavaScript the lesson lists each step's plan in words: what it shows, nothing hidden.
+	const noJs = await browser.newContext({ baseURL, javaScriptEnabled: false });
+	await noJs.addCookies(await context.cookies());
+	const plain = await noJs.newPage();
+	await plain.goto(lessonUrl);
+	const fallbacks = plain.getByTestId('plan-fallback');
+	await expect(fallbacks).toHaveCount(3);
+	await expect(fallbacks.nth(0)).toContainText('Kestrel 40 in softbox');
+	await expect(fallbacks.nth(0)).toContainText('from the subject');
+	await expect(fallbacks.nth(0)).not.toContainText('White card');
+	await expect(fallbacks.nth(2)).toContainText('Black flag off the lens');
+	await noJs.close();
 
 	// Invite a student (one bad address in the list is named, the good one goes out).
 	const student = `student.${tag()}@fernhill.example`;

@@ -117,3 +117,20 @@ export function titleBlock(plan: HTMLCanvasElement, lines: { title: string; came
 	rows.forEach((r, i) => g.fillText(r, x0 + pad, y0 + pad + line * (1.5 + i), blockW - 2 * pad));
 	return out;
 }
+
+/** What the title block needs of a plan as the editor holds it. */
+export interface TitledPlan {
+	readonly elements: readonly { id: string; label: string; modifier?: { name: string } | null }[];
+	readonly scene: ExposureScene;
+	readonly unitSystem: UnitSystem;
+}
+
+/**
+ * The plan's canvas with its title block: the title, the camera settings and one line a light of the
+ * plan (the printed sheet, Export PNG and `PlanFigure`'s print image all take it from here).
+ */
+export function planWithTitleBlock(canvas: HTMLCanvasElement, plan: TitledPlan, title: string, pixelRatio: number): HTMLCanvasElement {
+	const names = Object.fromEntries(plan.elements.map((el) => [el.id, { label: el.label, modifier: el.modifier ?? null }]));
+	const lights = lightRows(plan.scene, names, plan.unitSystem).map(lightLine);
+	return titleBlock(canvas, { title, camera: cameraLine(plan.scene.camera), lights }, pixelRatio);
+}
