@@ -103,7 +103,9 @@ test('set an exercise, start it, meet the lighting ratio live, hand in, review, 
 	await row.getByRole('link', { name: 'Pebble Finch' }).click();
 	await page.waitForLoadState('networkidle');
 	await expect(page.getByTestId('hand-in-targets').locator('[data-met="true"]')).toHaveCount(2);
-	await expect(page.getByTestId('plans-side-by-side').locator('svg')).toHaveCount(2);
+	// Both plans drawn by the plan's own stage, each a picture named for what it shows.
+	await expect(page.getByTestId('plans-side-by-side').getByTestId('plan-figure')).toHaveCount(2);
+	for (const name of ['The starting plan', 'The handed-in plan']) await expect(page.getByTestId('plans-side-by-side').getByRole('img', { name }).locator('canvas').first()).toBeVisible();
 	await expect(page.getByTestId('comparison')).toContainText(/card/i);
 	await expect(page.getByTestId('hand-in-shots')).toContainText('quartz-test.jpg');
 	const shotImage = page.getByTestId('hand-in-shots').locator('img').first();
