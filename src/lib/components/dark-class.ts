@@ -11,3 +11,26 @@ export function watchDarkClass(onChange: (dark: boolean) => void): () => void {
 	observer.observe(html, { attributes: true, attributeFilter: ['class'] });
 	return () => observer.disconnect();
 }
+
+/**
+ * Paper is white: lifts the `dark` class while the page prints and puts it back after; `beforePrint`
+ * runs once the light theme is on (e.g. to take a light image of the plan). Returns the clean-up.
+ */
+export function printInLightTheme(beforePrint?: () => void): () => void {
+	const root = document.documentElement;
+	let wasDark = false;
+	const before = () => {
+		wasDark = root.classList.contains('dark');
+		root.classList.remove('dark');
+		beforePrint?.();
+	};
+	const after = () => {
+		if (wasDark) root.classList.add('dark');
+	};
+	window.addEventListener('beforeprint', before);
+	window.addEventListener('afterprint', after);
+	return () => {
+		window.removeEventListener('beforeprint', before);
+		window.removeEventListener('afterprint', after);
+	};
+}
