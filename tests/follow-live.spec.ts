@@ -1,6 +1,6 @@
 // Following live in a real browser: an invited student, in a second browser context at phone width,
 // follows the instructor's steps as the instructor presents, without reloading; looks around and
-// rejoins on the current step.
+// rejoins on the current step; the instructor ends the session and the student is told.
 import { expect, signedInAs, signIn, test } from './fixtures';
 import { accessibilityProblems, CAPTIONS, enrol, makeLiveWorld, openDb } from './live-world';
 
@@ -13,7 +13,7 @@ test.afterAll(async () => {
 	await sql.end({ timeout: 5 });
 });
 
-test('a student follows the instructor live, looks around and rejoins', async ({ page, context, browser, baseURL }) => {
+test('a student follows the instructor live, looks around, rejoins, and is told when the session ends', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
 	const world = await makeLiveWorld(sql, page.request, 'Follow test workshop');
 
@@ -55,6 +55,13 @@ test('a student follows the instructor live, looks around and rejoins', async ({
 	// Phone width: nothing wider than the screen.
 	const overflow = await student.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
 	expect(overflow).toBeLessThanOrEqual(0);
+
+	// The instructor ends the live session: back on the workshop's page, and the student is told, still without a reload.
+	await page.getByTestId('present-end').click();
+	await expect(page).toHaveURL(new RegExp(`/workshops/${world.workshopId}$`));
+	await expect(student.getByTestId('follow-status')).toHaveText('Connected; the instructor is not presenting now');
+	await expect(student.getByTestId('follow-view')).toHaveAttribute('data-live-step', '');
+	expect(await student.evaluate(() => (window as unknown as { loadedOnce?: boolean }).loadedOnce)).toBe(true);
 	await studentContext.close();
 });
 
