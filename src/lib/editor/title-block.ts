@@ -5,6 +5,7 @@
  */
 import { formatDistance, formatFNumber, formatGuideNumber, formatShutter, roundSig, type UnitSystem } from '$lib/light/format';
 import type { ExposureScene } from '$lib/light/schema';
+import { fittedTo } from './model/fitted';
 import { formatPower } from './model/power-notation';
 
 export interface LightRow {
@@ -22,23 +23,17 @@ export interface LightRow {
 /** What the plan knows of a light beyond the scene: its label and its modifier's name. */
 export type PlanNames = Record<string, { label?: string; modifier?: { name: string } | null } | undefined>;
 
-type StoredPlanElement = { label?: string; modifier?: unknown; kind?: string; attachedTo?: string };
-
 /**
  * A stored plan's names for the lights table: each element's label and, for a light, its modifier's name,
  * whether the light carries it (`modifier`) or a modifier or diffuser element is fitted to it (`attachedTo`).
  */
-export function planNames(plan: { elements?: Record<string, StoredPlanElement> }): PlanNames {
-	const elements = Object.entries(plan.elements ?? {});
-	const nameOf = (v: unknown) => {
-		const name = (v as { name?: unknown } | null | undefined)?.name;
-		return typeof name === 'string' && name ? name : null;
-	};
+export function planNames(plan: { elements?: Record<string, Record<string, unknown>> }): PlanNames {
+	const entries = plan.elements ?? {};
+	const text = (v: unknown) => (typeof v === 'string' && v.trim() ? v.trim() : null);
 	return Object.fromEntries(
-		elements.map(([id, el]) => {
-			const fitted = elements.find(([, other]) => other.attachedTo === id && (other.kind === 'modifier' || other.kind === 'diffuser'))?.[1];
-			const name = nameOf(el.modifier) ?? (fitted ? fitted.label?.trim() || null : null);
-			return [id, { label: el.label ?? id, modifier: name ? { name } : null }];
+		Object.entries(entries).map(([id, el]) => {
+			const name = text((el.modifier as { name?: unknown } | null | undefined)?.name) ?? text(fittedTo(entries, id)?.label);
+			return [id, { label: text(el.label) ?? id, modifier: name ? { name } : null }];
 		})
 	);
 }

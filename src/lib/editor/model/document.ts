@@ -18,6 +18,7 @@ import type { ExposureScene, SceneLight } from '$lib/light/schema';
 import type { GearSnapshot, Plan, SetupDocument } from '$lib/scene/document';
 import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 import { defaultElement, KIND_LABELS } from './defaults';
+import { fittedTo, isFitted } from './fitted';
 import { modelFromScene, modifierFromScene, type LayoutResult } from './layout';
 import { toExposureScene } from './scene';
 import { ELEMENT_KINDS, elementSchemaFor, type EditorElement, type ElementKind, type Modifier } from './schema';
@@ -85,17 +86,9 @@ function elementFromEntry(id: string, kind: ElementKind, entry: Entry, zIndex: n
 	return base;
 }
 
-/**
- * A modifier, or a diffuser with no place of its own, fitted to a light (`attachedTo`): drawn on that
- * light, not on the table. Its loss is already in the light's `lossStops` in the scene.
- */
-function isFitted(entry: Entry): boolean {
-	return typeof entry.attachedTo === 'string' && (entry.kind === 'modifier' || (entry.kind === 'diffuser' && entry.position === undefined));
-}
-
 /** A modifier entry fitted to a light (`attachedTo`), as the light's modifier (the scene holds its beam and loss). */
 function attachedModifier(plan: Record<string, Entry>, lightId: string, light: SceneLight | undefined): Modifier | null {
-	const entry = Object.values(plan).find((e) => isFitted(e) && e.attachedTo === lightId);
+	const entry = fittedTo(plan, lightId);
 	if (!entry || !light || light.kind === 'reflector') return null;
 	return {
 		name: typeof entry.label === 'string' && entry.label ? entry.label.slice(0, 80) : 'Modifier',
