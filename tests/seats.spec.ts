@@ -102,3 +102,12 @@ test('sell a seat: price and capacity, book and pay on the checkout page, land a
 	await expect(page.getByRole('table', { name: 'Bookings' })).toBeVisible();
 	await studentContext.close();
 });
+
+test('the demo’s spring evening sells seats: its public page, signed out, shows the price, the seats and the way to book', async ({ page }) => {
+	await visit(page, '/w/small-light-spring-evening');
+	await expect(page.getByRole('heading', { level: 1, name: 'Small Light, Big Detail: the spring evening' })).toBeVisible();
+	await expect(page.getByTestId('price')).toContainText('18.00');
+	await expect(page.getByTestId('seats-left')).toContainText('of 10 seats left');
+	await expect(page.getByRole('heading', { name: 'Book a seat' })).toBeVisible();
+	await expect(page.getByRole('link', { name: 'Sign in to book a seat' })).toBeVisible();
+});

@@ -1,5 +1,6 @@
 // The club's evening workshop, "Small Light, Big Detail" (invented, see BRIEF.md): one lesson that builds
-// the quartz cluster up light by light from its fifth revision, published, with one invited student.
+// the quartz cluster up light by light from its fifth revision, published, with one invited student;
+// and its spring evening, open to anyone for a paid seat, its lessons still to be written.
 // Idempotent: fixed ids, and rows already there are left as they are.
 import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
@@ -15,6 +16,9 @@ export const DEMO_STEP_IDS = [
 	'7b2c4e90-1a3f-4d6b-8e25-6c0f00000202',
 	'7b2c4e90-1a3f-4d6b-8e25-6c0f00000203'
 ];
+/** The spring evening: paid seats (booked on its public page through the payment fake), no lessons yet. */
+export const DEMO_PAID_WORKSHOP_ID = '7b2c4e90-1a3f-4d6b-8e25-6c0f00000002';
+export const DEMO_PAID_WORKSHOP_SLUG = 'small-light-spring-evening';
 /** A newcomer to the club, in no studio of it: she reads the workshop as a student only. */
 export const DEMO_STUDENT = { email: 'pebble.finch@fernhill.example', name: 'Pebble Finch' };
 
@@ -23,6 +27,12 @@ const SUMMARY = [
 	'',
 	// One line per paragraph: the notes render a single line break as a break.
 	'We light one quartz cluster on black velvet with **one small flash**, a white card and a black flag, and watch what each adds on the projector. Bring a camera with a macro lens if you have one; the club lends tripods and flashes.'
+].join('\n');
+
+const SPRING_SUMMARY = [
+	'The January evening again, for anyone who missed it: one quartz cluster, one small flash, a white card and a black flag.',
+	'',
+	'Seats are paid when booked and refunded if the evening is cancelled. The club lends tripods and flashes; bring a camera with a macro lens if you have one.'
 ].join('\n');
 
 const STUDENT_NOTES = [
@@ -128,6 +138,32 @@ export async function seedWorkshop(studioId: string) {
 				updatedAt: new Date('2026-11-04T19:10:00Z')
 			})
 			.onConflictDoNothing({ target: exercises.id });
+		await tx
+			.insert(workshops)
+			.values({
+				id: DEMO_PAID_WORKSHOP_ID,
+				studioId,
+				slug: DEMO_PAID_WORKSHOP_SLUG,
+				title: 'Small Light, Big Detail: the spring evening',
+				summary: SPRING_SUMMARY,
+				capacity: 10,
+				state: 'published',
+				priceMinor: 1800,
+				currency: 'eur',
+				createdById: mara.id,
+				createdAt: new Date('2026-11-20T19:00:00Z'),
+				updatedAt: new Date('2026-11-20T19:00:00Z')
+			})
+			.onConflictDoNothing({ target: workshops.id });
+		const [springSession] = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, DEMO_PAID_WORKSHOP_ID));
+		if (!springSession) {
+			await tx.insert(workshopSessions).values({
+				workshopId: DEMO_PAID_WORKSHOP_ID,
+				startsAt: new Date('2027-03-18T18:30:00Z'),
+				endsAt: new Date('2027-03-18T21:00:00Z'),
+				place: 'Fernhill Community Hall, the back room'
+			});
+		}
 		const joined = await tx
 			.insert(workshopMembers)
 			.values({ workshopId: DEMO_WORKSHOP_ID, userId: student.id, role: 'student', joinedAt: new Date('2026-11-05T09:12:00Z') })
