@@ -1,5 +1,6 @@
 import { env } from '$env/dynamic/private';
-import { redirect, type Handle } from '@sveltejs/kit';
+import { building } from '$app/environment';
+import { redirect, type Handle, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { authHandle } from './auth';
 import { emailSchema } from '$lib/schemas/account';
@@ -10,8 +11,14 @@ import { apiError } from '$lib/server/http';
 import { provesAddress, rememberProvenAddress, signInProofCookie } from '$lib/server/signin-proof';
 import { answerDuringOutage, handleOutages, identifyThroughOutages } from '$lib/server/outage';
 import { handleUnexpected, requestEdge } from '$lib/server/edge';
+import { startRefundRetries } from '$lib/server/workshops/seats';
 
 export const handleError = handleOutages(handleUnexpected);
+
+/** Once the server starts: refunds that failed while the payment provider was away are tried again every few minutes. */
+export const init: ServerInit = () => {
+	if (!building) startRefundRetries();
+};
 
 /**
  * Sign-in links per IP address per 15 minutes. A workshop of thirty students behind one hall router

@@ -280,6 +280,26 @@ describe('the payment service down during checkout', () => {
 	});
 });
 
+describe('a refund asked while the payment service is down', () => {
+	it('stays due, and the next round of retries refunds it once and tells the buyer', async () => {
+		const w = await paidWorkshop(2);
+		const buyer = await makeUser('otto.bram');
+		const { bookingId, checkoutUrl } = await ws.bookSeat(buyer, w.slug, ctx);
+		const paid = await pay(checkoutUrl);
+		await fetch(`${FAKE}/_fake/outage?ms=2500`, { method: 'POST' });
+		await new Promise((r) => setTimeout(r, 200));
+		expect(await ws.cancelBookingWithRefund(w.owner, w.workshopId, bookingId)).toEqual({ refunded: false });
+		expect((await bookingsOf(w.workshopId))[0].state).toBe('refund_due');
+		for (let i = 0; i < 80 && (await fetch(`${FAKE}/_fake/state`).catch(() => null)) === null; i++) await new Promise((r) => setTimeout(r, 100));
+		expect(await ws.retryDueRefunds()).toBeGreaterThanOrEqual(1);
+		expect((await bookingsOf(w.workshopId))[0].state).toBe('refunded');
+		// Another round (another app server's, say) refunds nothing more.
+		await ws.retryDueRefunds();
+		expect((await fakeState()).refunds.filter((r) => r.payment_intent === paid.session.payment_intent)).toHaveLength(1);
+		expect((await mailTo(buyer.email, /^Refund/)).text).toMatch(/instructor cancelled/);
+	});
+});
+
 describe('fifty buyers racing for ten seats', () => {
 	it('exactly ten are confirmed, forty told it is full, and no payment is kept without a seat', async () => {
 		const w = await paidWorkshop(10);

@@ -185,7 +185,8 @@ async function sendReceipt(booking: SeatBooking) {
 
 /**
  * Returns a payment in full, once: the provider's idempotency key is the booking, so a retry after a
- * failure never refunds twice. A refund that fails stays due and is tried again when the roster opens.
+ * failure never refunds twice. A refund that fails stays due and is tried again when the roster opens
+ * and every few minutes (`retryDueRefunds`).
  */
 async function refundBooking(booking: SeatBooking): Promise<boolean> {
 	if (!booking.paymentIntentId) return false;
@@ -213,6 +214,28 @@ async function refundBooking(booking: SeatBooking): Promise<boolean> {
 		}
 	}
 	return true;
+}
+
+/** Tries every due refund again (the provider was unreachable when it was asked); returns how many went through. */
+export async function retryDueRefunds(): Promise<number> {
+	if (!paymentsConfigured()) return 0;
+	let done = 0;
+	for (const due of await listDueRefunds()) if (await refundBooking(due)) done++;
+	return done;
+}
+
+/**
+ * Retries due refunds every `everyMs` (SQUARELAW_REFUND_RETRY_MINUTES, default 5) in this app server.
+ * Every app server may run it: a refund's idempotency key is its booking, so two servers never refund twice.
+ */
+export function startRefundRetries(): () => void {
+	const minutes = Number(env.SQUARELAW_REFUND_RETRY_MINUTES);
+	const everyMs = (Number.isFinite(minutes) && minutes > 0 ? minutes : 5) * 60_000;
+	const timer = setInterval(() => {
+		retryDueRefunds().catch((e) => console.warn('[payments] retrying due refunds failed:', e instanceof Error ? e.message : e));
+	}, everyMs);
+	timer.unref();
+	return () => clearInterval(timer);
 }
 
 export type WebhookAnswer = { status: number; message: string };

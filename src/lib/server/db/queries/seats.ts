@@ -190,9 +190,10 @@ export async function markRefunded(bookingId: string, refundId: string | null) {
 	return rows[0] ?? null;
 }
 
-/** Payments still to be returned (a refund call that failed is tried again from here). */
-export async function listDueRefunds(workshopId: string) {
-	return db.select().from(seatBookings).where(and(eq(seatBookings.workshopId, workshopId), eq(seatBookings.state, 'refund_due')));
+/** Payments still to be returned, one workshop's or every workshop's (a refund call that failed is tried again from here). */
+export async function listDueRefunds(workshopId?: string) {
+	const due = eq(seatBookings.state, 'refund_due');
+	return db.select().from(seatBookings).where(workshopId ? and(eq(seatBookings.workshopId, workshopId), due) : due);
 }
 
 /** Every booking of a workshop with its buyer, oldest first (the roster's payments and the CSV). */
