@@ -13,11 +13,9 @@ import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
 import {
 	addMember,
 	consumeWorkshopInvitation,
-	countSeatsTaken,
 	decideJoinRequest,
 	deleteMemberRow,
 	findOpenJoinRequest,
-	findPublishedWorkshopBySlug,
 	findWorkshopInvitationByHash,
 	insertJoinRequest,
 	insertWorkshopInvitations,
@@ -26,7 +24,8 @@ import {
 	listRoster,
 	memberRolesByEmail,
 	revokeWorkshopInvitationRow
-} from '$lib/server/db/queries/workshops';
+} from '$lib/server/db/queries/workshop-people';
+import { countSeatsTaken, findPublishedWorkshopBySlug } from '$lib/server/db/queries/workshops';
 import { isUuid } from '$lib/uuid';
 import { MAX_INVITATIONS_AT_ONCE, type AddressList } from '$lib/workshops/addresses';
 

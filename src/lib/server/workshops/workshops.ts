@@ -17,11 +17,10 @@ import {
 	listLessons,
 	listSessions,
 	listWorkshopsFor,
-	openJoinRequestOf,
 	slugTaken,
-	touchMember,
 	updateWorkshopDetails
 } from '$lib/server/db/queries/workshops';
+import { openJoinRequestOf, touchMember } from '$lib/server/db/queries/workshop-people';
 import { isUuid } from '$lib/uuid';
 import type { SessionInput, WorkshopCreateInput, WorkshopDetailsInput } from '$lib/workshops/inputs';
 import type { WorkshopState } from '$lib/workshops/states';
