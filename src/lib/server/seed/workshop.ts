@@ -3,7 +3,7 @@
 // and its spring evening, open to anyone for a paid seat, its lessons still to be written.
 // Idempotent: fixed ids, and rows already there are left as they are.
 import { eq } from 'drizzle-orm';
-import { db } from '$lib/server/db';
+import { db, type Tx } from '$lib/server/db';
 import { exercises, users, workshopInvitations, workshopLessons, workshopMembers, workshopSessions, workshopSteps, workshops } from '$lib/server/db/schema';
 import { hashSecret } from '$lib/server/tokens';
 import { DEMO_SETUP_IDS } from './notebook-data';
@@ -65,6 +65,18 @@ const EXERCISE_BRIEF = [
 	'Hand in your saved plan, one or two test frames, and a note on what you changed.'
 ].join('\n');
 
+/** The workshop's evening at the hall, 18:30 to 21:00 UTC on `day`, unless it has a session already. */
+async function sessionOnce(tx: Tx, workshopId: string, day: string) {
+	const [existing] = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, workshopId));
+	if (existing) return;
+	await tx.insert(workshopSessions).values({
+		workshopId,
+		startsAt: new Date(`${day}T18:30:00Z`),
+		endsAt: new Date(`${day}T21:00:00Z`),
+		place: 'Fernhill Community Hall, the back room'
+	});
+}
+
 export async function seedWorkshop(studioId: string) {
 	const [mara] = await db.select({ id: users.id }).from(users).where(eq(users.email, 'mara.quill@fernhill.example'));
 	if (!mara) throw new Error('seed: demo user mara.quill@fernhill.example is missing; seed the users first');
@@ -90,15 +102,7 @@ export async function seedWorkshop(studioId: string) {
 				updatedAt: new Date('2026-11-04T19:00:00Z')
 			})
 			.onConflictDoNothing({ target: workshops.id });
-		const [existing] = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, DEMO_WORKSHOP_ID));
-		if (!existing) {
-			await tx.insert(workshopSessions).values({
-				workshopId: DEMO_WORKSHOP_ID,
-				startsAt: new Date('2027-01-14T18:30:00Z'),
-				endsAt: new Date('2027-01-14T21:00:00Z'),
-				place: 'Fernhill Community Hall, the back room'
-			});
-		}
+		await sessionOnce(tx, DEMO_WORKSHOP_ID, '2027-01-14');
 		await tx
 			.insert(workshopLessons)
 			.values({ id: DEMO_LESSON_ID, workshopId: DEMO_WORKSHOP_ID, position: 0, title: 'One flash, one card, one flag', studentNotes: STUDENT_NOTES, presenterNotes: PRESENTER_NOTES })
@@ -155,15 +159,7 @@ export async function seedWorkshop(studioId: string) {
 				updatedAt: new Date('2026-11-20T19:00:00Z')
 			})
 			.onConflictDoNothing({ target: workshops.id });
-		const [springSession] = await tx.select({ id: workshopSessions.id }).from(workshopSessions).where(eq(workshopSessions.workshopId, DEMO_PAID_WORKSHOP_ID));
-		if (!springSession) {
-			await tx.insert(workshopSessions).values({
-				workshopId: DEMO_PAID_WORKSHOP_ID,
-				startsAt: new Date('2027-03-18T18:30:00Z'),
-				endsAt: new Date('2027-03-18T21:00:00Z'),
-				place: 'Fernhill Community Hall, the back room'
-			});
-		}
+		await sessionOnce(tx, DEMO_PAID_WORKSHOP_ID, '2027-03-18');
 		const joined = await tx
 			.insert(workshopMembers)
 			.values({ workshopId: DEMO_WORKSHOP_ID, userId: student.id, role: 'student', joinedAt: new Date('2026-11-05T09:12:00Z') })
