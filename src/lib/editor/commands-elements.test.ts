@@ -1,14 +1,15 @@
 // Commands that describe elements fully: the ambient light, gear from the shelf and the power needed.
 import { describe, expect, it } from 'vitest';
 import { computeExposure } from '$lib/light/scene';
-import { addElement, duplicateElements, removeElements, setAmbient, setElementProperties } from './commands';
+import { addElement, duplicateElements, removeElements } from './commands';
+import { setAmbient, setElementProperties } from './commands-properties';
 import { setPowerToNeeded, takeCameraFromShelf, takeFlashFromShelf, takeLensFromShelf } from './commands-gear';
 import { REFLECTOR_FINISHES } from './model/defaults';
 import { powerNeeded } from './model/power-needed';
 import { toExposureScene } from './model/scene';
 import { shelfGear, type ShelfItem } from './model/shelf';
 import { ambientOf, type EditorModel } from './model/types';
-import { commandSession } from './test-fixtures';
+import { addWith, commandSession } from './test-fixtures';
 import { finishOf } from './workspace/inspector/fields';
 
 const exposureOf = (m: EditorModel) => computeExposure(toExposureScene(m));
@@ -93,7 +94,7 @@ describe('set to the power needed', () => {
 
 	it('refuses for a flash that gives the subject no light, naming the power field', () => {
 		const s = commandSession();
-		s.run(addElement('flag', { xM: -0.25, yM: 0, props: { rotationDeg: 0, widthM: 0.4 } }));
+		s.run(addWith('flag', { xM: -0.25, yM: 0 }, { rotationDeg: 0, widthM: 0.4 }));
 		const r = s.run(setPowerToNeeded('key'));
 		expect(!r.ok && r.error).toMatchObject({ path: ['power'] });
 		expect(!r.ok && r.error.message).toMatch(/no light/);

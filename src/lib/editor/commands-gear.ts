@@ -4,7 +4,8 @@
  * commands.ts (a reversible diff or a refusal naming the field), kept apart because only the inspector
  * runs them: they load with it, not with the editor's first paint.
  */
-import { ok, refuse, setCameraSettings, setElementProperties, type Command, type CommandResult } from './commands';
+import { ok, refuse, type Command, type CommandResult } from './commands';
+import { setCameraSettings, setElementProperties } from './commands-properties';
 import { powerNeeded } from './model/power-needed';
 import type { CameraSettings } from './model/schema';
 import type { ShelfGear } from './model/shelf';

@@ -4,15 +4,12 @@ import {
 	aimAtSubject,
 	bringToFront,
 	duplicateElements,
-	insertElement,
 	moveElementsBy,
 	removeElements,
 	rotateElementsAbout,
-	setAmbient,
-	setCameraSettings,
-	setElementProperties,
 	setLocked
 } from './commands';
+import { insertElement, setAmbient, setCameraSettings, setElementProperties } from './commands-properties';
 import { direction3 } from './model/geometry';
 import type { EditorModel } from './model/types';
 import { commandSession as session } from './test-fixtures';

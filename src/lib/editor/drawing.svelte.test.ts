@@ -1,12 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import { Editor } from './editor.svelte';
+import { openDocument } from './model/document';
 import { quartzScene } from './test-fixtures';
 
 describe('what the stage draws', () => {
 	it('an entry that did not change keeps its object while another element moves', () => {
 		const scene = quartzScene();
 		scene.lights.push({ id: 'fill', kind: 'flash', position: [0.4, 0.2, 0.1], guideNumber: 20, power: 1 / 4, aim: [0, 0, 0.03] });
-		const e = new Editor({ document: { scene, plan: {} } });
+		const e = new Editor({ document: openDocument({ scene, plan: {} }) });
 		const [keyLine, fillLine] = ['key', 'fill'].map((id) => e.dimensions.find((d) => d.id.includes(id))!);
 		const fillBeam = e.beams.find((b) => b.id.includes('fill'))!;
 		e.moveElementTo('key', -0.4, 0.05);
@@ -16,7 +17,7 @@ describe('what the stage draws', () => {
 	});
 
 	it('the map’s bounds hold every element with a margin', () => {
-		const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
+		const e = new Editor({ document: openDocument({ scene: quartzScene(), plan: {} }) });
 		const b = e.planBounds;
 		for (const el of e.elements) {
 			expect(el.xM).toBeGreaterThan(b.minX);

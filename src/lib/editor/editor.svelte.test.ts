@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { Editor } from './editor.svelte';
+import { openDocument } from './model/document';
 import { SHORTCUTS } from './tools/shortcuts';
 import { quartzEditor as editor } from './test-fixtures';
 
@@ -118,7 +119,7 @@ describe('Editor: document and session state', () => {
 		const doc = e.toDocument('Quartz on velvet');
 		expect(doc.notes).toBe('Quartz on velvet');
 		expect(JSON.stringify(doc)).not.toMatch(/"selected|"zoom"|"pan|"hand/);
-		const again = new Editor({ document: JSON.parse(JSON.stringify(doc)) });
+		const again = new Editor({ document: openDocument(JSON.parse(JSON.stringify(doc))) });
 		expect(again.model.elements).toEqual(e.model.elements);
 		expect(again.toDocument()).toEqual(JSON.parse(JSON.stringify(doc)));
 		expect(again.selectedIds).toEqual([]);

@@ -18,11 +18,12 @@ import { History } from './history';
 import { keyDown } from './keyboard';
 import { liveExposure } from './live-exposure';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
-import { documentFromModel, modelFromDocument, type Plan, type SetupDocument } from './model/document';
+import type { OpenedDocument, Plan, SetupDocument } from './model/document';
+import { documentFromModel } from './model/to-document';
 import { boundsContain, elementBounds, hitTest, type Bounds } from './model/geometry';
 import { emptySetupScene, modelFromScene, placeForNew } from './model/layout';
 import { excludedElements, toExposureScene } from './model/scene';
-import type { AmbientSettings, CameraSettings, EditorElement, ElementKind, Modifier } from './model/schema';
+import type { EditorElement, ElementKind, Modifier } from './model/schema';
 import type { ShelfGearLists } from './model/shelf';
 import { elementsInOrder, nextInOrder, subjectOf, type EditorModel, type Vec2 } from './model/types';
 import { PointerInput } from './pointer-input.svelte';
@@ -41,8 +42,12 @@ export interface DocumentIn {
 }
 
 export interface EditorOptions {
-	/** The setup document to edit (a plan of `{}` is laid out from the scene); none: an empty setup. */
-	document?: DocumentIn;
+	/**
+	 * The setup document to edit, read into the model (`openDocument` in model/document.ts; a plan of
+	 * `{}` is laid out from the scene); none: an empty setup. The reading is the caller's, so the setup
+	 * page can start from the model its server read and the editor itself needs no schema.
+	 */
+	document?: OpenedDocument;
 	unitSystem?: UnitSystem;
 	/** Session state to start from (e.g. kept by the page across a reload). */
 	viewport?: Viewport;
@@ -156,9 +161,9 @@ export class Editor implements ToolHost {
 
 	// ===== the document =====
 
-	loadDocument(doc: DocumentIn) {
+	loadDocument(doc: OpenedDocument) {
 		this.#tool.cancelGesture();
-		const { model, notes } = modelFromDocument(doc);
+		const { model, notes } = doc.read;
 		this.#notes = doc.notes ?? '';
 		this.#gear = doc.gear ?? [];
 		this.#model = model;
@@ -247,6 +252,8 @@ export class Editor implements ToolHost {
 	}
 
 	// ----- the usual commands, on the selection or by id -----
+	// What a user types (properties, camera settings, the ambient) is set with `execute` and the checked
+	// commands of commands-properties.ts, which the panels that type it bring with them.
 
 	/** Adds an element (at the view's centre, or beside the subject for lights and cards) and selects it. */
 	addElement(kind: ElementKind, at?: { xM: number; yM: number; heightM?: number }): string | null {
@@ -281,9 +288,6 @@ export class Editor implements ToolHost {
 	}
 	/** Moves one element to typed plan coordinates (the element list). */
 	moveElementTo(id: string, xM: number, yM: number) { return this.execute(commands.moveElementsTo({ [id]: { xM, yM } })); }
-	setProperties(id: string, patch: Readonly<Record<string, unknown>>) { return this.execute(commands.setElementProperties(id, patch)); }
-	setCameraSettings(patch: Partial<CameraSettings>) { return this.execute(commands.setCameraSettings(patch)); }
-	setAmbient(ambient: AmbientSettings | null) { return this.execute(commands.setAmbient(ambient)); }
 	bringSelectedToFront() { return this.execute(commands.bringToFront(this.#selectedIds)); }
 	sendSelectedToBack() { return this.execute(commands.sendToBack(this.#selectedIds)); }
 

@@ -1,10 +1,13 @@
 /** Small setups for the editor's tests (the quartz cluster of the Fernhill Geology Circle's catalogue). */
 import type { ExposureScene } from '$lib/light/schema';
-import type { Command } from './commands';
+import { addElement, ok, type AddOptions, type Command } from './commands';
+import { setElementProperties } from './commands-properties';
 import { Editor } from './editor.svelte';
 import { History } from './history';
-import { applyDiff } from './model/diff';
+import { applyDiff, squashDiffs } from './model/diff';
+import { openDocument } from './model/document';
 import { modelFromScene } from './model/layout';
+import type { ElementKind } from './model/schema';
 import type { EditorModel } from './model/types';
 
 /**
@@ -26,10 +29,20 @@ export function quartzModel(): EditorModel {
 
 /** An editor on the quartz setup at 1000 px/m, the plan's origin (the subject) at the stage's centre. */
 export function quartzEditor(): Editor {
-	const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
+	const e = new Editor({ document: openDocument({ scene: quartzScene(), plan: {} }) });
 	e.setStageSize(800, 600);
 	e.setViewport({ zoom: 1000, panX: 400, panY: 300 });
 	return e;
+}
+
+/** Places an element and sets some of its properties (checked), as one command: a placement and the fields typed after it. */
+export function addWith(kind: ElementKind, at: AddOptions, props: Record<string, unknown>): Command {
+	return (model) => {
+		const added = addElement(kind, at)(model);
+		if (!added.ok) return added;
+		const set = setElementProperties(added.createdIds[0], props)(applyDiff(model, added.diff));
+		return set.ok ? ok(squashDiffs([added.diff, set.diff]), added.createdIds) : set;
+	};
 }
 
 /** Runs commands each as an undo step, as the editor does (a model and a history, no browser). */

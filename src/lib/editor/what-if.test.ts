@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { setElementProperties } from './commands';
+import { setElementProperties } from './commands-properties';
+import { openDocument } from './model/document';
 import { Editor } from './editor.svelte';
 import { modelFromScene } from './model/layout';
 import { quartzModel, quartzScene } from './test-fixtures';
@@ -131,7 +132,7 @@ describe('previewWhatIf', () => {
 	});
 
 	it('kept, the trial is one undo step in the editor; undone, the light is back', () => {
-		const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
+		const e = new Editor({ document: openDocument({ scene: quartzScene(), plan: {} }) });
 		const before = { ...e.model.elements.key };
 		const steps = e.undoSteps;
 		const p = previewWhatIf(e.model, 'key', { powerThirds: 3, distanceSixths: 6 })!;

@@ -9,8 +9,8 @@
 import { z } from 'zod';
 import { SKY_PRESET_NAMES, type SkyPreset } from './ambient';
 import { GEL_NAMES, type GelName } from './colour';
-import { distanceM } from './geometry';
 import { MAGNIFICATION_METHODS } from './optics';
+import { sceneRuleIssues } from './scene-rules';
 
 export const MAX_LIGHTS = 100;
 export const MAX_FLAGS = 100;
@@ -305,71 +305,6 @@ const exposureSceneShape = z.object({
 	lights: z.array(sceneLightSchema).max(MAX_LIGHTS, `at most ${MAX_LIGHTS} lights`),
 	flags: z.array(flagSchema).max(MAX_FLAGS, `at most ${MAX_FLAGS} flags`).optional()
 });
-
-/** A rule of the scene that spans fields (ids, sources, distances). */
-interface SceneRuleIssue {
-	path: (string | number)[];
-	message: string;
-}
-
-/**
- * The scene's rules that span fields, on a scene whose fields each passed: ids unique and not
- * "ambient", every reflector's source an emitter (or the ambient, when there is one), nothing at the
- * subject or at its own source, flags at least 1 mm long.
- */
-function sceneRuleIssues(scene: z.output<typeof exposureSceneShape>): SceneRuleIssue[] {
-	const issues: SceneRuleIssue[] = [];
-	const { camera } = scene;
-	if (camera.minAperture !== undefined && camera.maxAperture !== undefined && camera.minAperture > camera.maxAperture) {
-		issues.push({ path: ['camera', 'maxAperture'], message: 'must not be below minAperture' });
-	}
-	const byId = new Map<string, (typeof scene.lights)[number]>();
-	scene.lights.forEach((light, i) => {
-		if (light.id === 'ambient') {
-			issues.push({ path: ['lights', i, 'id'], message: '"ambient" is reserved for the ambient light' });
-		} else if (byId.has(light.id)) {
-			issues.push({ path: ['lights', i, 'id'], message: `duplicate id "${light.id}"` });
-		}
-		byId.set(light.id, light);
-	});
-	if (scene.subject.facing === 'camera' && !camera.position && !scene.subject.normal) {
-		issues.push({ path: ['subject', 'facing'], message: 'is "camera" but the camera has no position' });
-	}
-	scene.lights.forEach((light, i) => {
-		if (light.kind === 'reflector') return;
-		if ((light.emitterWidthM === undefined) !== (light.emitterHeightM === undefined)) {
-			issues.push({ path: ['lights', i, light.emitterWidthM === undefined ? 'emitterWidthM' : 'emitterHeightM'], message: 'emitterWidthM and emitterHeightM go together' });
-		} else if (light.emitterWidthM !== undefined && light.emitterDiameterM !== undefined) {
-			issues.push({ path: ['lights', i, 'emitterDiameterM'], message: 'give a rectangle (emitterWidthM, emitterHeightM) or a disc (emitterDiameterM), not both' });
-		}
-	});
-	scene.lights.forEach((light, i) => {
-		const d = distanceM(light.position, scene.subject.position);
-		if (light.kind !== 'reflector' && d < 0.001) {
-			issues.push({ path: ['lights', i, 'position'], message: 'is at the subject (closer than 1 mm)' });
-		}
-		if (light.kind !== 'reflector') return;
-		if (light.source === 'ambient') {
-			if (!scene.ambient) issues.push({ path: ['lights', i, 'source'], message: 'is "ambient" but the scene has no ambient' });
-			return;
-		}
-		const source = byId.get(light.source);
-		if (!source) {
-			issues.push({ path: ['lights', i, 'source'], message: `names no light: "${light.source}"` });
-		} else if (source.kind === 'reflector') {
-			issues.push({ path: ['lights', i, 'source'], message: 'must be a flash, a continuous light or "ambient", not another reflector' });
-		} else {
-			const d1 = distanceM(light.position, source.position);
-			if (d1 < 0.001) issues.push({ path: ['lights', i, 'position'], message: `is at its source "${source.id}" (closer than 1 mm)` });
-		}
-	});
-	scene.flags?.forEach((flag, i) => {
-		if (Math.hypot(flag.to[0] - flag.from[0], flag.to[1] - flag.from[1]) < 0.001) {
-			issues.push({ path: ['flags', i, 'to'], message: 'a flag must be at least 1 mm long' });
-		}
-	});
-	return issues;
-}
 
 export const exposureSceneSchema = exposureSceneShape.superRefine((scene, ctx) => {
 	for (const issue of sceneRuleIssues(scene)) ctx.addIssue({ code: 'custom', ...issue });

@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { setElementProperties } from '$lib/editor/commands-properties';
 import { Presentation, type PresentStep } from './present.svelte';
 import type { ExposureScene } from '$lib/light/schema';
 
@@ -60,7 +61,7 @@ describe('presenting a lesson', () => {
 	it('keeps a what-if on the step until the step changes, and can keep it as a document', () => {
 		const p = new Presentation(lesson());
 		const before = total(p);
-		const result = p.editor.setProperties('key', { power: 0.5 });
+		const result = p.editor.execute(setElementProperties('key', { power: 0.5 }));
 		expect(result.ok).toBe(true);
 		expect(p.whatIfChanged).toBe(true);
 		// Twice the power: one stop more (inverse-square flash exposure, X ∝ power; common practice).

@@ -6,7 +6,7 @@
  * step, unless kept on purpose as a new revision (`keptDocument`).
  */
 import { Editor } from '$lib/editor/editor.svelte';
-import type { SetupDocument } from '$lib/editor/model/document';
+import { openDocument, type SetupDocument } from '$lib/editor/model/document';
 import type { UnitSystem } from '$lib/light/format';
 import { isStepAction, stepIndexAfter } from './navigation';
 import type { PresentAction } from './keys';
@@ -58,7 +58,7 @@ export class Presentation {
 		this.#onstep = options.onstep;
 		const start = Math.min(Math.max(options.startIndex ?? 0, 0), Math.max(steps.length - 1, 0));
 		this.index = start;
-		this.editor = new Editor({ document: this.#documents[start], unitSystem: options.unitSystem });
+		this.editor = new Editor({ document: openDocument(this.#documents[start]), unitSystem: options.unitSystem });
 	}
 
 	get step(): PresentStep | undefined {
@@ -82,7 +82,7 @@ export class Presentation {
 	goTo(index: number): boolean {
 		if (index === this.index || index < 0 || index >= this.steps.length) return false;
 		this.index = index;
-		this.editor.loadDocument(this.#documents[index]);
+		this.editor.loadDocument(openDocument(this.#documents[index]));
 		this.#onstep?.(index, this.steps[index]);
 		return true;
 	}
@@ -94,7 +94,7 @@ export class Presentation {
 
 	/** Back to the step as it was pinned. */
 	resetWhatIf() {
-		this.editor.loadDocument(this.#documents[this.index]);
+		this.editor.loadDocument(openDocument(this.#documents[this.index]));
 	}
 
 	/** The document to keep as a new revision of the step's setup: the pinned revision with the what-if applied. */

@@ -20,6 +20,8 @@ import { gearKindSchema, gearSpecSchemas } from './gear';
 import { findJsonProblem, MAX_DOCUMENT_DEPTH, MAX_DOCUMENT_ENTRIES } from '$lib/json-limits';
 import { CURRENT_SCHEMA_VERSION } from './version';
 
+export { elementUsingGear, referencedGearIds } from './gear-refs';
+
 export { CURRENT_SCHEMA_VERSION };
 
 export const MAX_NOTES_CHARS = 20_000;
@@ -138,32 +140,6 @@ export type SetupDocumentInput = z.input<typeof setupDocumentSchema>;
 export type PlanElement = z.output<typeof planElementSchema>;
 export type Plan = z.output<typeof planSchema>;
 export type GearSnapshot = z.output<typeof gearSnapshotSchema>;
-
-/**
- * The gear ids one plan element refers to: its own `gearId`, and those of what the editor fitted to it,
- * fields it writes beside the document's own: a light's modifier (`modifier.gearId`) and a camera's
- * lens (`lens.gearId`).
- */
-function gearIdsOf(el: PlanElement): string[] {
-	const fittedId = (key: 'modifier' | 'lens') => {
-		const fitted = (el as Record<string, unknown>)[key];
-		const id = fitted && typeof fitted === 'object' ? (fitted as { gearId?: unknown }).gearId : undefined;
-		return typeof id === 'string' ? id : undefined;
-	};
-	return [el.gearId, fittedId('modifier'), fittedId('lens')].filter((id): id is string => Boolean(id));
-}
-
-/** Every gear id the plan refers to, in a stable order. */
-export function referencedGearIds(doc: Pick<SetupDocument, 'plan'>): string[] {
-	const ids = new Set<string>();
-	for (const el of Object.values(doc.plan.elements ?? {})) for (const id of gearIdsOf(el)) ids.add(id);
-	return [...ids].sort();
-}
-
-/** The plan element id that refers to a gear id (for error paths). */
-export function elementUsingGear(doc: Pick<SetupDocument, 'plan'>, gearId: string): string | undefined {
-	return Object.entries(doc.plan.elements ?? {}).find(([, el]) => gearIdsOf(el).includes(gearId))?.[0];
-}
 
 /**
  * The document with each scene flash drawn from a flash's gear copy (`plan.elements[id].gearId`)

@@ -6,7 +6,8 @@
  */
 import { computeExposure, type ExposureResult } from '$lib/light/scene';
 import { findNonFinite } from '$lib/light/finite';
-import { referencedGearIds, type PlanElement, type SetupDocument } from '$lib/scene/document';
+import { referencedGearIds } from '$lib/scene/gear-refs';
+import type { PlanElement, SetupDocument } from '$lib/scene/document';
 
 /** Elements every step shows: without the subject or the camera there is nothing to expose. */
 const ALWAYS_SHOWN = new Set(['subject', 'camera']);

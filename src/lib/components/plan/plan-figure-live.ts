@@ -4,5 +4,6 @@
  */
 export { default as PlanStage } from '$lib/editor/components/PlanStage.svelte';
 export { Editor } from '$lib/editor/editor.svelte';
+export { openDocument } from '$lib/editor/model/document';
 export { planWithTitleBlock } from '$lib/editor/title-block';
 export { visibleDocument } from '$lib/present/step-view';

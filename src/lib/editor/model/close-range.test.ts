@@ -9,7 +9,7 @@ import { computeExposure } from '$lib/light/scene';
 import { exposureSceneSchema } from '$lib/light/schema';
 import { setupDocumentSchema, type SetupDocumentInput } from '$lib/scene/document';
 import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
-import { setCameraSettings, setElementProperties } from '../commands';
+import { setCameraSettings, setElementProperties } from '../commands-properties';
 import { applyDiff } from './diff';
 import { documentFromModel, modelFromDocument } from './document';
 import { MODIFIER_PRESETS } from './defaults';

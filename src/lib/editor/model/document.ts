@@ -15,22 +15,19 @@
  * subject's height, a gear id), entries of kinds it does not draw, the plan's print frame.
  */
 import type { ExposureScene, SceneLight } from '$lib/light/schema';
-import type { GearSnapshot, Plan, SetupDocument } from '$lib/scene/document';
-import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
+import type { GearSnapshot, Plan } from '$lib/scene/document';
 import { defaultElement, KIND_LABELS } from './defaults';
 import { fittedTo, isFitted } from './fitted';
 import { modelFromScene, modifierFromScene, type LayoutResult } from './layout';
-import { toExposureScene } from './scene';
-import { ELEMENT_KINDS, elementSchemaFor, type EditorElement, type ElementKind, type Modifier } from './schema';
-import type { EditorModel, KeptPlan } from './types';
-import { elementsInOrder } from './types';
+import { elementSchemaFor, type EditorElement, type ElementKind, type Modifier } from './schema';
+import { HAS_POSITION, isFitted, isKind, PANELS, type Entry } from './to-document';
+import type { KeptPlan } from './types';
+import type { DocumentIn } from '../editor.svelte';
 
 export type { Plan, SetupDocument } from '$lib/scene/document';
-
-type Entry = Record<string, unknown>;
+export { documentFromModel, planFromModel } from './to-document';
 
 const isRecord = (v: unknown): v is Entry => typeof v === 'object' && v !== null && !Array.isArray(v);
-const isKind = (k: unknown): k is ElementKind => typeof k === 'string' && (ELEMENT_KINDS as readonly string[]).includes(k);
 
 /** Fields the editor keeps under its own names, per kind. */
 const EDITOR_FIELDS: Record<ElementKind, readonly string[]> = {
@@ -44,9 +41,6 @@ const EDITOR_FIELDS: Record<ElementKind, readonly string[]> = {
 	ambient: ['zIndex', 'widthM', 'source'],
 	background: ['zIndex', 'widthM', 'depthM']
 };
-const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag', 'ambient']);
-const PANELS: ReadonlySet<ElementKind> = new Set(['reflector', 'diffuser', 'flag']);
-
 function expandColour(c: unknown): unknown {
 	return typeof c === 'string' && /^#[0-9a-fA-F]{3}$/.test(c) ? `#${[...c.slice(1)].map((h) => h + h).join('')}` : c;
 }
@@ -128,71 +122,17 @@ export function modelFromDocument(doc: { scene: ExposureScene; plan?: Plan | Rec
 	return { model: { ...laid.model, kept }, notes: [...notes, ...laid.notes] };
 }
 
-/** The element's entry in the document's plan: what was read, with the editor's fields written over it. */
-function entryFor(el: EditorElement, read: Entry | undefined): Entry {
-	const entry: Entry = { ...read, kind: el.kind, label: el.label, rotationDeg: el.rotationDeg, locked: el.locked, zIndex: el.zIndex };
-	if (HAS_POSITION.has(el.kind)) entry.position = [el.xM, el.yM, el.heightM];
-	switch (el.kind) {
-		case 'subject':
-			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM });
-			break;
-		case 'camera':
-			Object.assign(entry, { focalLengthMm: el.focalLengthMm, sensorWidthMm: el.sensorWidthMm, sensorHeightMm: el.sensorHeightMm, lens: el.lens });
-			setGearId(entry, el.gearId);
-			break;
-		case 'flash':
-			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg, lowestPower: el.lowestPower, zoomMm: el.zoomMm });
-			setGearId(entry, el.gearId);
-			break;
-		case 'continuous':
-			Object.assign(entry, { modifier: el.modifier, otherLossStops: el.otherLossStops, tiltDeg: el.tiltDeg });
-			break;
-		case 'reflector':
-			Object.assign(entry, {
-				widthM: el.widthM,
-				heightM: el.panelHeightM,
-				tiltDeg: el.tiltDeg,
-				facingSet: el.facingSet,
-				surface: el.surface,
-				reflectance: el.reflectance,
-				source: el.source
-			});
-			break;
-		case 'diffuser':
-			Object.assign(entry, { widthM: el.widthM, heightM: el.panelHeightM, tiltDeg: el.tiltDeg, lossStops: el.lossStops });
-			break;
-		case 'flag':
-			Object.assign(entry, { widthM: el.widthM, heightM: el.panelHeightM, tiltDeg: el.tiltDeg });
-			break;
-		case 'ambient':
-			Object.assign(entry, { widthM: el.widthM, source: el.source });
-			break;
-		case 'background':
-			Object.assign(entry, { widthM: el.widthM, depthM: el.depthM, colour: el.colour });
-			break;
-	}
-	return entry;
+/**
+ * A document as the editor opens it (`new Editor({ document })`, `loadDocument`): its model read here,
+ * with its notes and gear copies, which go back as given. The setup page's server reads the document it
+ * sends (`modelFromDocument` in its load), so the page's first load needs none of this module.
+ */
+export interface OpenedDocument {
+	read: ReadResult;
+	notes?: string;
+	gear?: readonly GearSnapshot[];
 }
 
-/** The gear id the element now has (a flash typed by hand no longer names the shelf item it came from). */
-function setGearId(entry: Entry, gearId: string | undefined) {
-	if (gearId) entry.gearId = gearId;
-	else delete entry.gearId;
-}
-
-export function planFromModel(model: EditorModel): Plan {
-	const elements: Record<string, Entry> = {};
-	for (const el of elementsInOrder(model)) elements[el.id] = entryFor(el, model.kept.entries[el.id]);
-	// Entries of kinds the editor does not draw go back as they came, unless what they were fitted to is gone.
-	for (const [id, entry] of Object.entries(model.kept.entries)) {
-		if ((isKind(entry.kind) && !isFitted(entry)) || id in elements) continue;
-		if (typeof entry.attachedTo === 'string' && !(entry.attachedTo in model.elements)) continue;
-		elements[id] = { ...entry };
-	}
-	return { ...model.kept.rest, elements } as Plan;
-}
-
-/** The document to save. `notes` and `gear` are the page's (the editor does not change them). */
-export function documentFromModel(model: EditorModel, notes = '', gear: readonly GearSnapshot[] = []): SetupDocument {
-	return { schemaVersion: CURRENT_SCHEMA_VERSION, scene: toExposureScene(model), plan: planFromModel(model), notes, gear: [...gear] };
+export function openDocument(doc: DocumentIn): OpenedDocument {
+	return { read: modelFromDocument(doc), notes: doc.notes, gear: doc.gear };
 }

@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { computeExposure } from '$lib/light/scene';
 import { exposureSceneSchema } from '$lib/light/schema';
-import { addElement, moveElementsTo, setCameraSettings, setElementProperties, type Command } from '../commands';
-import { quartzModel } from '../test-fixtures';
+import { addElement, moveElementsTo, type Command } from '../commands';
+import { setCameraSettings, setElementProperties } from '../commands-properties';
+import { addWith, quartzModel } from '../test-fixtures';
 import { applyDiff } from './diff';
 import { excludedElements, toExposureScene } from './scene';
 import type { EditorModel } from './types';
@@ -55,14 +56,14 @@ describe('toExposureScene', () => {
 
 	it('a diffuser costs its loss to the lights whose path crosses it, and nothing to others', () => {
 		const base = quartzModel();
-		const across = run(base, addElement('diffuser', { xM: -0.25, yM: 0, props: { rotationDeg: 0, widthM: 0.3, lossStops: 1 } }));
+		const across = run(base, addWith('diffuser', { xM: -0.25, yM: 0 }, { rotationDeg: 0, widthM: 0.3, lossStops: 1 }));
 		expect(stopsOf(across, 'key').stops! - stopsOf(base, 'key').stops!).toBeCloseTo(-1, 9);
-		const aside = run(base, addElement('diffuser', { xM: -0.25, yM: 0.4, props: { rotationDeg: 0, widthM: 0.3, lossStops: 1 } }));
+		const aside = run(base, addWith('diffuser', { xM: -0.25, yM: 0.4 }, { rotationDeg: 0, widthM: 0.3, lossStops: 1 }));
 		expect(stopsOf(aside, 'key').stops).toBeCloseTo(stopsOf(base, 'key').stops!, 9);
 	});
 
 	it('a flag across the path blocks the light; its plan segment is its width across its facing', () => {
-		const model = run(quartzModel(), addElement('flag', { xM: -0.25, yM: 0, props: { rotationDeg: 0, widthM: 0.2 } }));
+		const model = run(quartzModel(), addWith('flag', { xM: -0.25, yM: 0 }, { rotationDeg: 0, widthM: 0.2 }));
 		const scene = toExposureScene(model);
 		const flag = scene.flags![0];
 		expect(flag.from[0]).toBeCloseTo(-0.25);
@@ -107,7 +108,7 @@ describe('toExposureScene', () => {
 	});
 
 	it('leaves out a card with nothing to bounce, and says why', () => {
-		const model = run(quartzModel(), addElement('reflector', { xM: 0.3, yM: 0, props: { source: 'ambient' } }));
+		const model = run(quartzModel(), addWith('reflector', { xM: 0.3, yM: 0 }, { source: 'ambient' }));
 		const card = Object.values(model.elements).find((e) => e.kind === 'reflector')!;
 		expect(toExposureScene(model).lights.map((l) => l.id)).toEqual(['key']);
 		expect(excludedElements(model)).toEqual([{ id: card.id, reason: 'bounces the ambient light, but the setup has no ambient' }]);

@@ -21,6 +21,7 @@ import {
 	range,
 	sceneCameraSchema
 } from '$lib/light/schema';
+import type { ElementKind } from './kinds';
 
 const coordinateM = range(-1000, 1000, 'm');
 const heightM = range(-100, 100, 'm');
@@ -30,8 +31,7 @@ const sizeM = range(0.001, 100, 'm');
 const rotationDeg = range(-360, 360, '°');
 const tiltDeg = range(-90, 90, '°');
 
-export const ELEMENT_KINDS = ['subject', 'camera', 'flash', 'continuous', 'reflector', 'diffuser', 'flag', 'ambient', 'background'] as const;
-export type ElementKind = (typeof ELEMENT_KINDS)[number];
+export { ELEMENT_KINDS, type ElementKind } from './kinds';
 
 const base = {
 	id: z.string({ error: 'must be a string' }).min(1, 'must not be empty').max(100, 'must be at most 100 characters'),

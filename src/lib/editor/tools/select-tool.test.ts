@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { setElementProperties } from '../commands-properties';
 import { rotationHandlePosition } from '../handles';
 import { quartzEditor as editor } from '../test-fixtures';
 import { click, drag, input } from './test-pointer';
@@ -127,7 +128,7 @@ describe('select tool: rotating', () => {
 
 	it('snaps to facing the subject when within 3°', () => {
 		const e = editor();
-		e.setProperties('key', { rotationDeg: 40 });
+		e.execute(setElementProperties('key', { rotationDeg: 40 }));
 		click(e, KEY);
 		const handle = rotationHandlePosition(e.model.elements.key, e.viewport.zoom);
 		// 2° short of due +x of the light: the subject's direction.

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { Editor } from '../editor.svelte';
+import { openDocument } from '../model/document';
 import { quartzScene } from '../test-fixtures';
 import { keyParts, SHORTCUT_GROUPS, SHORTCUTS, shortcutFor, shortcutSheet } from './shortcuts';
 
@@ -33,7 +34,7 @@ describe('the shortcut help sheet', () => {
 	it('"?" is the help sheet’s key and no other shortcut’s; the editor claims it without changing the plan', () => {
 		expect(SHORTCUTS.filter((s) => s.matches({ key: '?', shiftKey: true })).map((s) => s.action)).toEqual(['show-shortcuts']);
 		expect(shortcutFor({ key: '?', shiftKey: true, ctrlKey: true })).toBeUndefined();
-		const e = new Editor({ document: { scene: quartzScene(), plan: {} } });
+		const e = new Editor({ document: openDocument({ scene: quartzScene(), plan: {} }) });
 		const steps = e.undoSteps;
 		const before = e.model;
 		expect(e.keyDown({ key: '?', shiftKey: true })).toBe(true);

@@ -5,6 +5,7 @@ import { saveChange, type SaveOutcome } from '$lib/server/setups-changes';
 import { shelfOf } from '$lib/server/gear';
 import { exerciseForSetup } from '$lib/server/exercises';
 import { elementLabels } from '$lib/notebook/load';
+import { modelFromDocument } from '$lib/editor/model/document';
 import { renderNotes } from '$lib/notebook/markdown';
 import { CAMERA_FIELDS, parseCameraSettings, parseTags } from '$lib/notebook/settings';
 
@@ -26,6 +27,9 @@ export async function load({ params, url, locals }) {
 			derivatives: setup.derivatives
 		},
 		document: setup.document,
+		// The plan read into the editor's model here, with the element schemas: the page starts its editor
+		// from it, so the browser's first load carries no zod.
+		editorModel: modelFromDocument(setup.document),
 		documentTrimmed: (setup.documentTrimmed as string[][] | undefined) ?? [],
 		labels: elementLabels(setup.document),
 		notesHtml: renderNotes(setup.document.notes ?? ''),

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { addElement, setAmbient, setElementProperties } from '../../commands';
+import { addElement } from '../../commands';
+import { setAmbient, setElementProperties } from '../../commands-properties';
 import { MODIFIER_PRESETS } from '../../model/defaults';
 import { commandSession } from '../../test-fixtures';
 import { inspectorFields, type InspectorField } from './fields';
