@@ -20,7 +20,7 @@ import { defaultElement, KIND_LABELS } from './defaults';
 import { fittedTo, isFitted } from './fitted';
 import { modelFromScene, modifierFromScene, type LayoutResult } from './layout';
 import { elementSchemaFor, type EditorElement, type ElementKind, type Modifier } from './schema';
-import { HAS_POSITION, isFitted, isKind, PANELS, type Entry } from './to-document';
+import { HAS_POSITION, isKind, PANELS, type Entry } from './to-document';
 import type { KeptPlan } from './types';
 import type { DocumentIn } from '../editor.svelte';
 

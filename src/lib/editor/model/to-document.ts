@@ -7,6 +7,7 @@
 import type { GearSnapshot, Plan, SetupDocument } from '$lib/scene/document';
 import { CURRENT_SCHEMA_VERSION } from '$lib/scene/version';
 import { ELEMENT_KINDS, type ElementKind } from './kinds';
+import { isFitted } from './fitted';
 import { toExposureScene } from './scene';
 import type { EditorElement } from './schema';
 import type { EditorModel } from './types';
@@ -20,14 +21,6 @@ export const isKind = (k: unknown): k is ElementKind => typeof k === 'string' &&
 export const HAS_POSITION: ReadonlySet<ElementKind> = new Set(['camera', 'diffuser', 'background', 'flag', 'ambient']);
 /** Panels: their upright size is the entry's `heightM`. */
 export const PANELS: ReadonlySet<ElementKind> = new Set(['reflector', 'diffuser', 'flag']);
-
-/**
- * A modifier, or a diffuser with no place of its own, fitted to a light (`attachedTo`): drawn on that
- * light, not on the table. Its loss is already in the light's `lossStops` in the scene.
- */
-export function isFitted(entry: Entry): boolean {
-	return typeof entry.attachedTo === 'string' && (entry.kind === 'modifier' || (entry.kind === 'diffuser' && entry.position === undefined));
-}
 
 /** The element's entry in the document's plan: what was read, with the editor's fields written over it. */
 function entryFor(el: EditorElement, read: Entry | undefined): Entry {
