@@ -7,7 +7,6 @@
  * per editor page, handed down with `setEditorContext`; call `destroy()` when the page goes.
  */
 import { formatDistance, type UnitSystem } from '$lib/light/format';
-import type { ExposureScene } from '$lib/light/schema';
 import type { GearSnapshot } from '$lib/scene/document';
 import { ActiveTool } from './active-tool.svelte';
 import * as commands from './commands';
@@ -18,7 +17,7 @@ import { History } from './history';
 import { keyDown } from './keyboard';
 import { liveExposure } from './live-exposure';
 import { applyDiff, isEmptyDiff, type ModelDiff } from './model/diff';
-import type { OpenedDocument, Plan, SetupDocument } from './model/document';
+import type { OpenedDocument, SetupDocument } from './model/document';
 import { documentFromModel } from './model/to-document';
 import { boundsContain, elementBounds, hitTest, type Bounds } from './model/geometry';
 import { emptySetupScene, modelFromScene, placeForNew } from './model/layout';
@@ -32,14 +31,6 @@ import type { PlanKeyInput, PlanPointerInput, PlanWheelInput, ToolHost, ToolId }
 import { EditorView, fitTarget, planFrame } from './view.svelte';
 import { visibleBounds, type Viewport } from './viewport';
 import { readLengthM, UnitParseError } from '$lib/light/number-text';
-
-/** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
-export interface DocumentIn {
-	scene: ExposureScene;
-	plan?: Plan | Record<string, unknown>;
-	notes?: string;
-	gear?: readonly GearSnapshot[];
-}
 
 export interface EditorOptions {
 	/**

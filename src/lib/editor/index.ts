@@ -5,7 +5,8 @@
  * what a user types (commands-properties.ts) and the gear shelf's modifiers (model/shelf.ts) are
  * imported from their own modules.
  */
-export { Editor, type DocumentIn, type EditorOptions, type LengthParse } from './editor.svelte';
+export { Editor, type EditorOptions, type LengthParse } from './editor.svelte';
+export type { DocumentIn } from './model/document';
 export { setEditorContext, getEditorContext, hasEditorContext } from './context';
 export * as commands from './commands';
 export type { Command, CommandError, CommandResult } from './commands';

@@ -22,7 +22,6 @@ import { modelFromScene, modifierFromScene, type LayoutResult } from './layout';
 import { elementSchemaFor, type EditorElement, type ElementKind, type Modifier } from './schema';
 import { HAS_POSITION, isKind, PANELS, type Entry } from './to-document';
 import type { KeptPlan } from './types';
-import type { DocumentIn } from '../editor.svelte';
 
 export type { Plan, SetupDocument } from '$lib/scene/document';
 export { documentFromModel, planFromModel } from './to-document';
@@ -120,6 +119,14 @@ export function modelFromDocument(doc: { scene: ExposureScene; plan?: Plan | Rec
 	const laid = modelFromScene(doc.scene, parsed);
 	const kept: KeptPlan = { entries, rest };
 	return { model: { ...laid.model, kept }, notes: [...notes, ...laid.notes] };
+}
+
+/** What the editor reads of a setup document (`src/lib/scene`): the scene, and whatever else it has. */
+export interface DocumentIn {
+	scene: ExposureScene;
+	plan?: Plan | Record<string, unknown>;
+	notes?: string;
+	gear?: readonly GearSnapshot[];
 }
 
 /**
