@@ -303,6 +303,12 @@ describe('reading', () => {
 		expect(all.items[0].title).toBe('Trilobite plate 4');
 		const page3 = await list(ed, { studio: s.studioId, pageSize: '2', page: '3' });
 		expect(page3.items.map((i) => i.title)).toEqual(['Trilobite plate 0']);
+		// The total from a page that is not full, from the count after a full page and past the end.
+		expect(page3.total).toBe(5);
+		const pastTheEnd = await list(ed, { studio: s.studioId, pageSize: '2', page: '4' });
+		expect(pastTheEnd).toMatchObject({ items: [], total: 5 });
+		expect((await list(ed, { studio: s.studioId, q: 'plate PHACOPS', pageSize: '2' })).total).toBe(3);
+		expect((await list(ed, { studio: s.studioId, q: 'plate PHACOPS', pageSize: '2', page: '2' })).total).toBe(3);
 		expect((await list(ed, { studio: s.studioId, q: 'calym' })).total).toBe(2);
 		expect((await list(ed, { studio: s.studioId, q: 'plate PHACOPS' })).total).toBe(3);
 		expect((await list(ed, { studio: s.studioId, tag: 'raking light' })).total).toBe(2);

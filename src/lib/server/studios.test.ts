@@ -30,6 +30,20 @@ afterAll(async () => {
 	await client.end({ timeout: 5 });
 });
 
+describe('the caller’s studios', () => {
+	it('give each one’s number of members only when asked (the studios page), and leave out other people’s studios', async () => {
+		const { studioId, people } = await makeStudio(['owner', 'editor', 'viewer']);
+		const other = await makeStudio(['owner', 'editor']);
+		const viewer = people[2].user;
+		const counted = await studioRules.myStudios(viewer, { withMemberCounts: true });
+		expect(counted.find((s) => s.id === studioId)).toMatchObject({ role: 'viewer', personal: false, members: 3 });
+		expect(counted.some((s) => s.id === other.studioId)).toBe(false);
+		const plain = await studioRules.myStudios(viewer);
+		expect(plain.map((s) => s.id)).toEqual(counted.map((s) => s.id));
+		expect(plain.find((s) => s.id === studioId)).toMatchObject({ role: 'viewer', members: null });
+	});
+});
+
 describe('a studio always keeps at least one owner', () => {
 	it('the only owner cannot remove, demote or take themselves out, and nothing changes', async () => {
 		const { studioId, people } = await makeStudio(['owner', 'editor']);

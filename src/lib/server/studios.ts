@@ -28,8 +28,9 @@ import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
 
 export const INVITATION_DAYS = 7;
 
-export async function myStudios(user: SessionUser | null) {
-	return listStudiosForUser(requireUser(user).id);
+/** The caller's studios and role in each; the studios page also asks how many members each has. */
+export async function myStudios(user: SessionUser | null, options: { withMemberCounts?: boolean } = {}) {
+	return listStudiosForUser(requireUser(user).id, options);
 }
 
 export async function createStudio(user: SessionUser | null, name: string) {

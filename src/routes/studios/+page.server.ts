@@ -5,7 +5,7 @@ import { createStudio, myStudios } from '$lib/server/studios';
 
 export async function load({ locals, url }) {
 	requireUser(locals.user, url);
-	return { studios: await myStudios(locals.user) };
+	return { studios: await myStudios(locals.user, { withMemberCounts: true }) };
 }
 
 export const actions = {

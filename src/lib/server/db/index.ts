@@ -1,7 +1,7 @@
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import { drizzle } from 'drizzle-orm/postgres-js';
-import postgres from 'postgres';
+import postgres, { type Sql } from 'postgres';
 import * as schema from './schema';
 
 function connect() {
@@ -23,7 +23,21 @@ function connect() {
 	});
 }
 
-export const client = connect();
+/**
+ * Drizzle runs each query through postgres.js's `unsafe()` with `prepare: false` (drizzle-orm issue
+ * #6096), and postgres.js then sends a query with parameters in two round trips (parse and describe,
+ * then bind and execute) that PostgreSQL parses and plans afresh every time. Asking for postgres.js's
+ * own default instead, a prepared statement kept on each connection per query text, makes a repeated
+ * query one round trip. The connection's `prepare` option still decides (false behind a pooler in
+ * transaction mode); postgres.js ends a connection after 30 to 60 minutes, and its statements with it.
+ */
+function preparingQueries(sql: Sql): Sql {
+	const unsafe = sql.unsafe;
+	sql.unsafe = ((query: string, args?: unknown[], options?: object) => unsafe(query, args as never, { ...options, prepare: true })) as Sql['unsafe'];
+	return sql;
+}
+
+export const client = preparingQueries(connect());
 export const db = drizzle(client, { schema, casing: 'snake_case' });
 export type Db = typeof db;
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];

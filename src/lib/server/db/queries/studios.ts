@@ -1,4 +1,4 @@
-import { and, asc, count, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
 import { db, type Tx } from '../index';
 import { invitations, memberships, studios, users, type StudioRole } from '../schema';
 import { outranks } from '$lib/server/authz';
@@ -26,23 +26,19 @@ export async function ensurePersonalStudio(userId: string, displayName: string) 
 	});
 }
 
-export async function listStudiosForUser(userId: string) {
-	const memberCount = db
-		.select({ studioId: memberships.studioId, n: count().as('n') })
-		.from(memberships)
-		.groupBy(memberships.studioId)
-		.as('member_count');
+/** The caller's live studios and their role in each, personal studio first; `withMemberCounts` adds each one's number of members. */
+export async function listStudiosForUser(userId: string, { withMemberCounts = false } = {}) {
 	return db
 		.select({
 			id: studios.id,
 			name: studios.name,
 			personal: sql<boolean>`${studios.personalOwnerId} is not null`,
 			role: memberships.role,
-			members: memberCount.n
+			// Counted in a subquery whose own `memberships` is every member of the outer row's studio.
+			members: withMemberCounts ? db.$count(memberships, eq(memberships.studioId, studios.id)) : sql<number | null>`null`
 		})
 		.from(memberships)
 		.innerJoin(studios, eq(studios.id, memberships.studioId))
-		.leftJoin(memberCount, eq(memberCount.studioId, studios.id))
 		.where(and(eq(memberships.userId, userId), isNull(studios.deletedAt)))
 		.orderBy(desc(sql`${studios.personalOwnerId} is not null`), asc(studios.name));
 }
