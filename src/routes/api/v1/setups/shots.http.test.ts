@@ -136,6 +136,12 @@ describe('bad input over HTTP', () => {
 		expect((await api('GET', `/api/v1/setups/${setupId}/shots`, as('editor'))).body.shots.length).toBe(before);
 	});
 
+	it('a field with text PostgreSQL cannot store (a NUL) is a 400 naming it, as the request edge answers for other forms', async () => {
+		const form = await filesForm([['a.jpg', await testImage()]]);
+		form.append('note', 'grey card\u0000');
+		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: form }), 400, 'note');
+	});
+
 	it('a body that is not multipart is a 415; no files is a 400 naming files; bad fields name themselves', async () => {
 		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: { files: [] } }), 415, 'files');
 		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: new FormData() }), 400, 'files');
