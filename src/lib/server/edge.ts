@@ -4,7 +4,8 @@
  * - Form posts from another origin are refused (SvelteKit's own check, done here so that a path under
  *   `/api/` answers in API.md's error shape; `kit.csrf` in svelte.config.js hands the check to us).
  * - Text that PostgreSQL cannot store (a NUL, a lone surrogate) in a query or a form body is refused with
- *   400 naming the field. JSON bodies meet the same rule in `parseJsonBody` (http.ts), which parses them anyway.
+ *   400 naming the field. JSON bodies meet the same rule in `parseJsonBody` (http.ts), which parses them anyway,
+ *   and the shots upload's multipart body in its route, which reads it as a stream.
  * - Under `/api/`, any 5xx answers in API.md's error shape, even one SvelteKit wrote.
  * - What is personal is never cached: HTML and JSON to a signed-in caller, and the notebook's API.
  */
@@ -58,7 +59,7 @@ const refuseCrossSiteForms: Handle = ({ event, resolve }) => {
 };
 
 /** The first field of a form or query whose name or text cannot be stored; files are not text and are skipped. */
-function unstorableField(form: Iterable<[string, FormDataEntryValue]>): { field: string; message: string } | null {
+export function unstorableField(form: Iterable<[string, FormDataEntryValue]>): { field: string; message: string } | null {
 	for (const [name, value] of form) {
 		const nameProblem = unstorableTextProblem(name);
 		if (nameProblem) return { field: printableKey(name), message: `(a field name) ${nameProblem}` };
@@ -92,6 +93,9 @@ const refuseUnstorableText: Handle = async ({ event, resolve }) => {
 	if (!WRITES.has(event.request.method) || (type !== 'application/x-www-form-urlencoded' && type !== 'multipart/form-data')) {
 		return resolve(event);
 	}
+	// A multipart body under /api/ is the shots upload, which reads it as it arrives and checks its
+	// fields with unstorableField itself: a copy of its photographs here would cost more than the check.
+	if (isApi(event) && type === 'multipart/form-data') return resolve(event);
 	let form: FormData;
 	try {
 		form = await event.request.clone().formData();

@@ -79,6 +79,28 @@ describe('upload', () => {
 		expect(names).not.toContain('broken.jpg');
 	});
 
+	it('removes the original of a truncated file again (it is written while sharp decodes it)', async () => {
+		const keysPut: string[] = [];
+		class RecordingStore extends ObjectStore {
+			async put(key: string, body: Uint8Array, type: string) {
+				keysPut.push(key);
+				return super.put(key, body, type);
+			}
+		}
+		const store = new RecordingStore(objectStore().config);
+		useObjectStore(store);
+		try {
+			const jpeg = await testImage({ width: 400, height: 300, rgb: [200, 30, 90] });
+			const result = await uploadShots(studio.people.editor.user, setupId, [file('cut-short.jpg', jpeg.subarray(0, jpeg.length / 2))]);
+			expect(result.failed.map((f) => f.message)).toEqual([expect.stringMatching(/^cut-short\.jpg: the image is truncated or corrupt/)]);
+			expect(keysPut).toEqual([expect.stringMatching(new RegExp(`^shots/${setupId}/[0-9a-f-]+/original$`))]);
+			expect(await store.exists(keysPut[0])).toBe(false);
+			expect(await db.select().from(storageLeftovers).where(eq(storageLeftovers.key, keysPut[0]))).toHaveLength(0);
+		} finally {
+			useObjectStore(null);
+		}
+	});
+
 	it('keeps nothing of a file when storage stops part-way, and removes its objects once storage is back', async () => {
 		const S3rver = (await import('s3rver')).default;
 		const directory = fs.mkdtempSync(path.join(os.tmpdir(), 'squarelaw-s3-'));

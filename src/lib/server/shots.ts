@@ -26,7 +26,7 @@ import type { SessionUser } from '$lib/server/session';
 import { RuleViolation } from '$lib/server/errors';
 import { offsetFromLuminance, offsetFromMeter } from '$lib/shots/measure';
 import type { ShotMeasureInput, ShotTyped, ShotUpdateInput } from '$lib/shots/types';
-import { formatBytes, measureRegionOf, processImage, type ImageLimits } from './shots/image';
+import { checkImage, formatBytes, measureRegionOf, processImage, type ImageLimits } from './shots/image';
 import { checkFileName } from './shots/names';
 import { predictShot, shotSettings, type ShotSettings } from './shots-exposure';
 import { objectStore, StorageUnavailable } from './storage';
@@ -217,22 +217,26 @@ export async function uploadShots(
 			continue;
 		}
 		const bytes = await file.bytes();
-		const processed = await processImage(bytes, limits);
-		if (!processed.ok) {
-			result.failed.push({ fileName: shown, message: `${shown}: ${processed.message}` });
+		const checked = await checkImage(bytes, limits);
+		if (!checked.ok) {
+			result.failed.push({ fileName: shown, message: `${shown}: ${checked.message}` });
 			continue;
 		}
 		const id = randomUUID();
 		const keys = { originalKey: keyOf(setupId, id, 'original'), previewKey: keyOf(setupId, id, 'preview'), thumbnailKey: keyOf(setupId, id, 'thumbnail') };
-		const objects = [
-			[keys.originalKey, bytes, processed.contentType],
-			[keys.previewKey, processed.preview, 'image/jpeg'],
-			[keys.thumbnailKey, processed.thumbnail, 'image/jpeg']
-		] as const;
 		try {
 			const store = objectStore();
-			// All three at once; if one fails, every one is removed below (one that never arrived is no matter).
-			const puts = await Promise.allSettled(objects.map(([key, body, type]) => store.put(key, body, type)));
+			// The original is written while sharp decodes it for the preview; a file that turns out corrupt
+			// is removed again. If a write fails, every object of the file is removed below (one that never
+			// arrived is no matter). processImage never throws, so no write is still going when that happens.
+			const [, processed] = await Promise.all([store.put(keys.originalKey, bytes, checked.contentType), processImage(bytes, checked, limits)]);
+			if (!processed.ok) {
+				await removeQuietly([keys.originalKey]);
+				result.failed.push({ fileName: shown, message: `${shown}: ${processed.message}` });
+				continue;
+			}
+			// Both settled before any removal, so none lands after it.
+			const puts = await Promise.allSettled([store.put(keys.previewKey, processed.preview, 'image/jpeg'), store.put(keys.thumbnailKey, processed.thumbnail, 'image/jpeg')]);
 			const failed = puts.find((p) => p.status === 'rejected');
 			if (failed) throw failed.reason;
 			const takenAt = processed.exif.takenAt ? new Date(`${processed.exif.takenAt}Z`) : null;
@@ -253,7 +257,7 @@ export async function uploadShots(
 			});
 			result.created.push(await viewOf(row));
 		} catch (e) {
-			await removeQuietly(objects.map(([key]) => key));
+			await removeQuietly(Object.values(keys));
 			const why = e instanceof StorageUnavailable ? 'storage is unreachable' : 'it could not be saved';
 			result.failed.push({ fileName: shown, message: `${shown}: not kept, ${why}; nothing of it was stored, try again` });
 		}

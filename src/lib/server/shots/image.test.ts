@@ -3,10 +3,16 @@ import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
 import { srgbToLinear } from '$lib/shots/measure';
 import { SAMPLE_EXIF, testImage } from '$lib/server/testing/shot-images';
-import { measureRegionOf, processImage, readExif } from './image';
+import { checkImage, measureRegionOf, processImage, readExif } from './image';
 import { checkFileName } from './names';
 
 const limits = { maxBytes: 5 * 1024 * 1024, maxPixels: 4_000_000 };
+
+/** The header check, then the decode, as an upload does them. */
+async function checkAndProcess(bytes: Uint8Array) {
+	const checked = await checkImage(bytes, limits);
+	return checked.ok ? processImage(bytes, checked, limits) : checked;
+}
 
 describe('EXIF (tag numbers and types from CIPA DC-008)', () => {
 	it('reads FNumber 0x829D, ExposureTime 0x829A (RATIONAL), PhotographicSensitivity 0x8827, FocalLength 0x920A, Flash 0x9209, DateTimeOriginal 0x9003, Model 0x0110, LensModel 0xA434', async () => {
@@ -39,7 +45,7 @@ describe('EXIF (tag numbers and types from CIPA DC-008)', () => {
 describe('processing an upload', () => {
 	it('keeps JPEG, PNG, TIFF and WebP, with an upright preview and thumbnail', async () => {
 		for (const format of ['jpeg', 'png', 'tiff', 'webp'] as const) {
-			const done = await processImage(await testImage({ format, width: 2000, height: 1000 }), limits);
+			const done = await checkAndProcess(await testImage({ format, width: 2000, height: 1000 }));
 			expect(done.ok, format).toBe(true);
 			if (!done.ok) continue;
 			expect(done.contentType).toBe(`image/${format}`);
@@ -48,7 +54,7 @@ describe('processing an upload', () => {
 		}
 	});
 	it('applies EXIF orientation 6 (rotate 90° clockwise, CIPA DC-008 0x0112): a 64 × 48 file shows 48 × 64', async () => {
-		const done = await processImage(await testImage({ width: 64, height: 48, orientation: 6 }), limits);
+		const done = await checkAndProcess(await testImage({ width: 64, height: 48, orientation: 6 }));
 		expect(done.ok && [done.widthPx, done.heightPx]).toEqual([48, 64]);
 		if (done.ok) expect(await sharp(done.preview).metadata()).toMatchObject({ width: 48, height: 64 });
 	});
@@ -61,7 +67,7 @@ describe('processing an upload', () => {
 			[jpeg.subarray(0, Math.floor(jpeg.length / 2)), /truncated or corrupt/]
 		];
 		for (const [bytes, message] of cases) {
-			const done = await processImage(bytes, limits);
+			const done = await checkAndProcess(bytes);
 			expect(done.ok).toBe(false);
 			if (!done.ok) expect(done.message).toMatch(message);
 		}
@@ -70,7 +76,7 @@ describe('processing an upload', () => {
 		// 10 000 × 10 000 of one colour: a PNG of a few hundred kilobytes that would decode to 300 MB.
 		const bomb = await sharp({ create: { width: 10_000, height: 10_000, channels: 3, background: '#000' } }).png({ compressionLevel: 9 }).toBuffer();
 		expect(bomb.length).toBeLessThan(limits.maxBytes);
-		const done = await processImage(bomb, limits);
+		const done = await checkImage(bomb, limits);
 		expect(done.ok).toBe(false);
 		if (!done.ok) expect(done.message).toMatch(/10000 × 10000 pixels, more than the limit of 4 megapixels/);
 	});

@@ -23,6 +23,8 @@ export interface ImageLimits {
 	maxPixels: number;
 }
 
+export type CheckedImage = { ok: true; contentType: string; meta: Metadata } | { ok: false; message: string };
+
 export type ProcessedImage =
 	| {
 			ok: true;
@@ -50,12 +52,13 @@ const options = (limits: Pick<ImageLimits, 'maxPixels'>): SharpOptions => ({
 	sequentialRead: true
 });
 
-export async function processImage(bytes: Uint8Array, limits: ImageLimits): Promise<ProcessedImage> {
+/** Whether the bytes are an image of a kind we keep and within the limits, from its header alone (no pixels decoded). */
+export async function checkImage(bytes: Uint8Array, limits: ImageLimits): Promise<CheckedImage> {
 	if (bytes.byteLength === 0) return { ok: false, message: 'the file is empty' };
 	if (bytes.byteLength > limits.maxBytes) return { ok: false, message: `the file is larger than the limit of ${formatBytes(limits.maxBytes)}` };
 	let meta: Metadata;
 	try {
-		// The header only (no pixels decoded), without the pixel limit, so a bomb is named by its size below.
+		// Without the pixel limit, so a bomb is named by its size below.
 		meta = await sharp(bytes, { limitInputPixels: false }).metadata();
 	} catch {
 		return { ok: false, message: 'this is not an image Squarelaw can read (JPEG, PNG, TIFF or WebP)' };
@@ -66,6 +69,11 @@ export async function processImage(bytes: Uint8Array, limits: ImageLimits): Prom
 	if (pixels > limits.maxPixels) {
 		return { ok: false, message: `the image is ${meta.width} × ${meta.height} pixels, more than the limit of ${Math.round(limits.maxPixels / 1e6)} megapixels` };
 	}
+	return { ok: true, contentType, meta };
+}
+
+/** Decodes a checked image into its preview and thumbnail and reads its EXIF; a truncated or corrupt file is refused here. */
+export async function processImage(bytes: Uint8Array, checked: CheckedImage & { ok: true }, limits: ImageLimits): Promise<ProcessedImage> {
 	try {
 		const upright = sharp(bytes, options(limits)).rotate();
 		// One decode, two sizes: the preview first, the thumbnail from the preview.
@@ -74,7 +82,7 @@ export async function processImage(bytes: Uint8Array, limits: ImageLimits): Prom
 			.jpeg({ quality: 85 })
 			.toBuffer();
 		const thumbnail = await sharp(preview).resize(THUMBNAIL_PX, THUMBNAIL_PX, { fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 80 }).toBuffer();
-		return { ok: true, contentType, ...uprightSize(meta), exif: await readExif(bytes), thumbnail, preview };
+		return { ok: true, contentType: checked.contentType, ...uprightSize(checked.meta), exif: await readExif(bytes), thumbnail, preview };
 	} catch (e) {
 		const detail = e instanceof Error ? e.message.split('\n')[0] : '';
 		return { ok: false, message: `the image is truncated or corrupt and could not be decoded${detail ? ` (${detail})` : ''}` };

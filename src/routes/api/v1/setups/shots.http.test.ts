@@ -108,6 +108,40 @@ describe('bad input over HTTP', () => {
 		expect(f0.exif.rejected.map((r: { field: string }) => r.field).sort()).toEqual(['fNumber', 'iso']);
 	});
 
+	it('a file over the size limit (50 MB) is refused by name and nothing of it is stored; the file after it goes in', async () => {
+		const before = (await api('GET', `/api/v1/setups/${setupId}/shots`, as('editor'))).body.shots.length;
+		const res = await api('POST', `/api/v1/setups/${setupId}/shots`, {
+			...as('editor'),
+			body: await filesForm([
+				['huge.jpg', new Uint8Array(50 * 1024 * 1024 + 1)],
+				['after.jpg', await testImage()]
+			])
+		});
+		expect(res.status).toBe(207);
+		expect(res.body.failed.map((f: { message: string }) => f.message)).toEqual(['huge.jpg: the file is larger than the limit of 50 MB']);
+		expect(res.body.created.map((s: { fileName: string }) => s.fileName)).toEqual(['after.jpg']);
+		expect((await api('GET', `/api/v1/setups/${setupId}/shots`, as('editor'))).body.shots.length).toBe(before + 1);
+	});
+
+	it('a form cut off part-way is a 400 naming files, and nothing is stored', async () => {
+		const before = (await api('GET', `/api/v1/setups/${setupId}/shots`, as('editor'))).body.shots.length;
+		const whole = new Request('http://127.0.0.1/', { method: 'POST', body: await filesForm([['cut.jpg', await testImage()]]) });
+		const body = new Uint8Array(await whole.arrayBuffer());
+		const res = await fetch(`${process.env.TEST_BASE_URL}/api/v1/setups/${setupId}/shots`, {
+			method: 'POST',
+			headers: { cookie: studio.people.editor.cookie, origin: process.env.TEST_BASE_URL!, 'content-type': whole.headers.get('content-type')! },
+			body: body.subarray(0, body.length - 100)
+		});
+		expectErrorBody({ status: res.status, body: await res.json(), headers: res.headers }, 400, 'files');
+		expect((await api('GET', `/api/v1/setups/${setupId}/shots`, as('editor'))).body.shots.length).toBe(before);
+	});
+
+	it('a field with text PostgreSQL cannot store (a NUL) is a 400 naming it, as the request edge answers for other forms', async () => {
+		const form = await filesForm([['a.jpg', await testImage()]]);
+		form.append('note', 'grey card\u0000');
+		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: form }), 400, 'note');
+	});
+
 	it('a body that is not multipart is a 415; no files is a 400 naming files; bad fields name themselves', async () => {
 		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: { files: [] } }), 415, 'files');
 		expectErrorBody(await api('POST', `/api/v1/setups/${setupId}/shots`, { ...as('editor'), body: new FormData() }), 400, 'files');

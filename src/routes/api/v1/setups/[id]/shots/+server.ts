@@ -1,7 +1,9 @@
 import { json } from '@sveltejs/kit';
-import { apiError, apiRoute, bodyMediaType } from '$lib/server/http';
+import { apiError, apiRoute, bodyMediaType, invalidInput } from '$lib/server/http';
+import { unstorableField } from '$lib/server/edge';
 import { requireUser } from '$lib/server/authz';
-import { listShots, uploadShots, type UploadFile } from '$lib/server/shots';
+import { listShots, shotLimits, uploadShots, type UploadFile } from '$lib/server/shots';
+import { readUploadForm, type UploadForm } from '$lib/server/shots/upload-form';
 import { shotListQuerySchema, shotUploadFieldsSchema } from '$lib/shots/types';
 import { zodErrorResponse } from '$lib/server/http';
 import type { RequestHandler } from './$types';
@@ -23,23 +25,22 @@ export const POST: RequestHandler = apiRoute(async ({ locals, params, request })
 	if (bodyMediaType(request) !== 'multipart/form-data') {
 		return apiError(415, 'Send the files as multipart/form-data in a field named files.', [{ path: ['files'], message: 'send multipart/form-data' }]);
 	}
-	let form: FormData;
+	let form: UploadForm;
 	try {
-		form = await request.formData();
+		form = await readUploadForm(request, 'files', shotLimits().maxBytes);
 	} catch {
 		return apiError(400, 'The form could not be read (cut off, or larger than the server takes in one request).', [
 			{ path: ['files'], message: 'send the files in a field named files' }
 		]);
 	}
+	const unstorable = unstorableField(Object.entries(form.fields));
+	if (unstorable) return invalidInput([{ path: [unstorable.field], message: unstorable.message }]);
 	const fields = shotUploadFieldsSchema.safeParse({
-		sessionId: form.get('sessionId') || undefined,
-		revisionNumber: form.get('revisionNumber') || undefined
+		sessionId: form.fields.sessionId || undefined,
+		revisionNumber: form.fields.revisionNumber || undefined
 	});
 	if (!fields.success) return zodErrorResponse(fields.error);
-	const files: UploadFile[] = form
-		.getAll('files')
-		.filter((f): f is File => typeof f !== 'string')
-		.map((f) => ({ name: f.name, type: f.type, size: f.size, bytes: async () => new Uint8Array(await f.arrayBuffer()) }));
+	const files: UploadFile[] = form.files.map((f) => ({ name: f.name, type: f.type, size: f.size, bytes: async () => f.bytes }));
 	const result = await uploadShots(locals.user, params.id, files, fields.data);
 	return json(result, { status: result.failed.length === 0 ? 201 : result.created.length ? 207 : 400 });
 });
