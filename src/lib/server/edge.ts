@@ -20,6 +20,7 @@ const WRITES = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 const FORM_TYPES = new Set(['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain']);
 
 const isApi = (event: RequestEvent) => event.url.pathname.startsWith('/api/');
+const SHOTS_UPLOAD = /^\/api\/v1\/setups\/[^/]+\/shots\/?$/;
 
 /**
  * Each request's unexpected error id, for an answer SvelteKit wrote as HTML without it. Keyed by the
@@ -93,9 +94,9 @@ const refuseUnstorableText: Handle = async ({ event, resolve }) => {
 	if (!WRITES.has(event.request.method) || (type !== 'application/x-www-form-urlencoded' && type !== 'multipart/form-data')) {
 		return resolve(event);
 	}
-	// A multipart body under /api/ is the shots upload, which reads it as it arrives and checks its
-	// fields with unstorableField itself: a copy of its photographs here would cost more than the check.
-	if (isApi(event) && type === 'multipart/form-data') return resolve(event);
+	// The shots upload reads its body as it arrives and checks its fields with unstorableField itself: a
+	// copy of its photographs here would cost more than the check.
+	if (type === 'multipart/form-data' && SHOTS_UPLOAD.test(event.url.pathname)) return resolve(event);
 	let form: FormData;
 	try {
 		form = await event.request.clone().formData();
