@@ -19,7 +19,7 @@ async function offset(page: Page): Promise<number> {
 	return Number(text.replace('−', '-'));
 }
 
-test('presents a lesson with the keyboard, shows each step’s lights, moves the key live, and the presenter window follows', async ({ page, context, browser, baseURL }) => {
+test('presents a lesson with the keyboard, shows each step’s lights, moves the key live, the presenter window follows, and ends the live session', async ({ page, context, browser, baseURL }) => {
 	await signedInAs(context, browser, baseURL, OWNER);
 	const world = await makeLiveWorld(sql, page.request);
 	await page.goto(`/workshops/${world.workshopId}/present/${world.lessonId}`);
@@ -115,6 +115,11 @@ test('presents a lesson with the keyboard, shows each step’s lights, moves the
 	expect(revisionsAfter).toBe(revisionsBefore);
 	// The projector published each step: the workshop's live position is the step on screen.
 	await expect.poll(async () => (await sql`select live_step_id from workshops where id = ${world.workshopId}`)[0].live_step_id).toBe(world.stepIds[0]);
+	// Ending from the presenter window: the projector publishes the end and leaves for the workshop's page.
+	await presenter.getByRole('button', { name: 'End live session' }).click();
+	await expect(presenter.getByTestId('presenter-ended')).toBeVisible();
+	await expect(page).toHaveURL(new RegExp(`/workshops/${world.workshopId}$`));
+	await expect.poll(async () => (await sql`select live_step_id from workshops where id = ${world.workshopId}`)[0].live_step_id).toBeNull();
 	await presenter.close();
 });
 

@@ -1,7 +1,7 @@
 /**
  * The projector window and the presenter window of one lesson keep in step through a BroadcastChannel
  * (same browser, same origin, no server): the projector announces its state after every change and
- * when the presenter window says hello; the presenter window asks the projector to move or blank. The
+ * when the presenter window says hello; the presenter window asks the projector to move, blank or end. The
  * projector alone publishes the live step, so a follower never gets it twice.
  */
 import { z } from 'zod';
@@ -14,7 +14,9 @@ export const syncMessageSchema = z.discriminatedUnion('type', [
 	/** From the presenter window: blank the screen, or show it again. */
 	z.object({ type: z.literal('blank'), blank: z.boolean() }),
 	/** From a presenter window that just opened: what is the state? */
-	z.object({ type: z.literal('hello') })
+	z.object({ type: z.literal('hello') }),
+	/** From the presenter window: end the live session (the projector publishes it and leaves). */
+	z.object({ type: z.literal('end') })
 ]);
 export type SyncMessage = z.infer<typeof syncMessageSchema>;
 
