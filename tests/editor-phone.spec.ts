@@ -97,14 +97,17 @@ for (const theme of ['light', 'dim'] as const) {
 
 		// Dragged by its handle, the sheet follows the pointer and rests at the nearest stop (read where the
 		// handle is once the sheet has finished sliding).
-		await expect.poll(async () => { const a = (await handle.boundingBox())!.y; await page.waitForTimeout(100); return (await handle.boundingBox())!.y === a; }).toBe(true);
-		const h = (await handle.boundingBox())!;
+		const settledHandle = async () => {
+			await expect.poll(async () => { const a = (await handle.boundingBox())!.y; await page.waitForTimeout(100); return (await handle.boundingBox())!.y === a; }).toBe(true);
+			return (await handle.boundingBox())!;
+		};
+		const h = await settledHandle();
 		await page.mouse.move(h.x + h.width / 2, h.y + h.height / 2);
 		await page.mouse.down();
 		for (let i = 1; i <= 10; i++) await page.mouse.move(h.x + h.width / 2, h.y + h.height / 2 - 65 * i);
 		await page.mouse.up();
 		await expect(sheet).toHaveAttribute('data-sheet', 'full');
-		const g = (await handle.boundingBox())!;
+		const g = await settledHandle();
 		await page.mouse.move(g.x + g.width / 2, g.y + g.height / 2);
 		await page.mouse.down();
 		for (let i = 1; i <= 10; i++) await page.mouse.move(g.x + g.width / 2, g.y + g.height / 2 + 70 * i);
