@@ -4,13 +4,17 @@ import type { Setup } from '$lib/server/db/schema';
 import type { SetupAccess } from '$lib/server/authz';
 import { readStoredDocument, type ReadDocument } from '$lib/server/setups-documents';
 
-export interface SetupListItem {
+/** What names a setup in a list and on its page: its catalogue fields and its studio. */
+export interface SetupCard {
 	id: string;
 	title: string;
 	subject: string;
 	tags: string[];
 	studioId: string;
 	studioName: string;
+}
+
+export interface SetupListItem extends SetupCard {
 	createdAt: string;
 	updatedAt: string;
 	revisionNumber: number;
@@ -22,14 +26,13 @@ export interface SetupListItem {
 	deletedByName?: string | null;
 }
 
+function setupCard(setup: Pick<Setup, 'id' | 'title' | 'subject' | 'tags' | 'studioId'>, studioName: string): SetupCard {
+	return { id: setup.id, title: setup.title, subject: setup.subject, tags: setup.tags, studioId: setup.studioId, studioName };
+}
+
 export function listItem(row: SetupListRow, trashed = false): SetupListItem {
 	return {
-		id: row.id,
-		title: row.title,
-		subject: row.subject,
-		tags: row.tags,
-		studioId: row.studioId,
-		studioName: row.studioName,
+		...setupCard(row, row.studioName),
 		createdAt: row.createdAt.toISOString(),
 		updatedAt: row.updatedAt.toISOString(),
 		revisionNumber: row.revisionNumber,
@@ -51,13 +54,7 @@ export interface SetupListPage {
 }
 
 
-export interface SetupDetail extends ReadDocument {
-	id: string;
-	title: string;
-	subject: string;
-	tags: string[];
-	studioId: string;
-	studioName: string;
+export interface SetupDetail extends ReadDocument, SetupCard {
 	revisionNumber: number;
 	createdAt: string;
 	updatedAt: string;
@@ -77,12 +74,7 @@ export function setupDetail(
 	derivatives: SetupDetail['derivatives']
 ): SetupDetail {
 	return {
-		id: setup.id,
-		title: setup.title,
-		subject: setup.subject,
-		tags: setup.tags,
-		studioId: setup.studioId,
-		studioName,
+		...setupCard(setup, studioName),
 		revisionNumber: setup.latestRevision,
 		createdAt: setup.createdAt.toISOString(),
 		updatedAt: setup.updatedAt.toISOString(),
