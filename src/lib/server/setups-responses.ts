@@ -1,6 +1,6 @@
 // The setups API's answers: database rows turned into the JSON that API.md and the pages read.
 import type { SetupListRow, listRevisions, findRevision } from '$lib/server/db/queries/setups';
-import type { Setup } from '$lib/server/db/schema';
+import type { Setup, SetupRevision } from '$lib/server/db/schema';
 import type { SetupAccess } from '$lib/server/authz';
 import { readStoredDocument, type ReadDocument } from '$lib/server/setups-documents';
 
@@ -100,18 +100,24 @@ export interface RevisionSummary {
 	hasThumbnail: boolean;
 }
 
-export function revisionSummary(r: Awaited<ReturnType<typeof listRevisions>>[number]): RevisionSummary {
+type RevisionFields = Pick<SetupRevision, 'number' | 'authorId' | 'createdAt' | 'message' | 'parentNumber' | 'restoredFromNumber' | 'title'>;
+
+/** A revision's own fields, as the list and the single revision both answer them. */
+function revisionFields(r: RevisionFields, authorName: string | null): Omit<RevisionSummary, 'hasThumbnail'> {
 	return {
 		number: r.number,
-		authorName: r.authorName,
+		authorName,
 		authorId: r.authorId,
 		createdAt: r.createdAt.toISOString(),
 		message: r.message,
 		parentNumber: r.parentNumber,
 		restoredFrom: r.restoredFromNumber,
-		title: r.title,
-		hasThumbnail: r.hasThumbnail
+		title: r.title
 	};
+}
+
+export function revisionSummary(r: Awaited<ReturnType<typeof listRevisions>>[number]): RevisionSummary {
+	return { ...revisionFields(r, r.authorName), hasThumbnail: r.hasThumbnail };
 }
 
 export interface RevisionDetail extends ReadDocument, Omit<RevisionSummary, 'hasThumbnail'> {
@@ -125,14 +131,7 @@ export interface RevisionDetail extends ReadDocument, Omit<RevisionSummary, 'has
 export function revisionDetail(setup: Setup, { revision: r, authorName }: NonNullable<Awaited<ReturnType<typeof findRevision>>>): RevisionDetail {
 	return {
 		setupId: setup.id,
-		number: r.number,
-		authorName,
-		authorId: r.authorId,
-		createdAt: r.createdAt.toISOString(),
-		message: r.message,
-		parentNumber: r.parentNumber,
-		restoredFrom: r.restoredFromNumber,
-		title: r.title,
+		...revisionFields(r, authorName),
 		subject: r.subject,
 		tags: r.tags,
 		hasThumbnail: r.thumbnailPng !== null,
