@@ -9,8 +9,8 @@ if (!process.env.DATABASE_URL) {
 
 const { client } = await import('$lib/server/db');
 const authz = await import('$lib/server/authz');
-const { attempt, makeUser: makeAdminable } = await import('$lib/server/testing/authz-world');
-const { addWorkshopMember, makeWorkshopWorld } = await import('$lib/server/testing/workshop-world');
+const { attempt } = await import('$lib/server/testing/authz-world');
+const { addWorkshopMember, everyCaller, makeWorkshopWorld } = await import('$lib/server/testing/workshop-world');
 const setupsService = await import('$lib/server/setups');
 const ws = await import('$lib/server/workshops');
 const { setupListQuerySchema, setupSaveSchema, setupDuplicateSchema } = await import('$lib/scene/inputs');
@@ -39,19 +39,7 @@ const EXPECTED: Record<Capability, Record<Caller, Outcome>> = {
 
 async function world() {
 	const w = await makeWorkshopWorld();
-	const other = await makeWorkshopWorld();
-	const admin = await makeAdminable('operator', true);
-	const otherStudent = other.student;
-	const callers: Record<Caller, import('$lib/server/session').SessionUser> = {
-		stranger: w.stranger,
-		otherStudent,
-		viewer: w.viewer,
-		editor: w.editor,
-		owner: w.owner,
-		admin,
-		instructor: w.instructor,
-		student: w.student
-	};
+	const { other, callers } = await everyCaller(w);
 	return { w, other, callers };
 }
 

@@ -1,16 +1,20 @@
 // The setups API's answers: database rows turned into the JSON that API.md and the pages read.
 import type { SetupListRow, listRevisions, findRevision } from '$lib/server/db/queries/setups';
-import type { Setup } from '$lib/server/db/schema';
+import type { Setup, SetupRevision } from '$lib/server/db/schema';
 import type { SetupAccess } from '$lib/server/authz';
 import { readStoredDocument, type ReadDocument } from '$lib/server/setups-documents';
 
-export interface SetupListItem {
+/** What names a setup in a list and on its page: its catalogue fields and its studio. */
+export interface SetupCard {
 	id: string;
 	title: string;
 	subject: string;
 	tags: string[];
 	studioId: string;
 	studioName: string;
+}
+
+export interface SetupListItem extends SetupCard {
 	createdAt: string;
 	updatedAt: string;
 	revisionNumber: number;
@@ -22,14 +26,13 @@ export interface SetupListItem {
 	deletedByName?: string | null;
 }
 
+function setupCard(setup: Pick<Setup, 'id' | 'title' | 'subject' | 'tags' | 'studioId'>, studioName: string): SetupCard {
+	return { id: setup.id, title: setup.title, subject: setup.subject, tags: setup.tags, studioId: setup.studioId, studioName };
+}
+
 export function listItem(row: SetupListRow, trashed = false): SetupListItem {
 	return {
-		id: row.id,
-		title: row.title,
-		subject: row.subject,
-		tags: row.tags,
-		studioId: row.studioId,
-		studioName: row.studioName,
+		...setupCard(row, row.studioName),
 		createdAt: row.createdAt.toISOString(),
 		updatedAt: row.updatedAt.toISOString(),
 		revisionNumber: row.revisionNumber,
@@ -51,13 +54,7 @@ export interface SetupListPage {
 }
 
 
-export interface SetupDetail extends ReadDocument {
-	id: string;
-	title: string;
-	subject: string;
-	tags: string[];
-	studioId: string;
-	studioName: string;
+export interface SetupDetail extends ReadDocument, SetupCard {
 	revisionNumber: number;
 	createdAt: string;
 	updatedAt: string;
@@ -77,12 +74,7 @@ export function setupDetail(
 	derivatives: SetupDetail['derivatives']
 ): SetupDetail {
 	return {
-		id: setup.id,
-		title: setup.title,
-		subject: setup.subject,
-		tags: setup.tags,
-		studioId: setup.studioId,
-		studioName,
+		...setupCard(setup, studioName),
 		revisionNumber: setup.latestRevision,
 		createdAt: setup.createdAt.toISOString(),
 		updatedAt: setup.updatedAt.toISOString(),
@@ -108,18 +100,24 @@ export interface RevisionSummary {
 	hasThumbnail: boolean;
 }
 
-export function revisionSummary(r: Awaited<ReturnType<typeof listRevisions>>[number]): RevisionSummary {
+type RevisionFields = Pick<SetupRevision, 'number' | 'authorId' | 'createdAt' | 'message' | 'parentNumber' | 'restoredFromNumber' | 'title'>;
+
+/** A revision's own fields, as the list and the single revision both answer them. */
+function revisionFields(r: RevisionFields, authorName: string | null): Omit<RevisionSummary, 'hasThumbnail'> {
 	return {
 		number: r.number,
-		authorName: r.authorName,
+		authorName,
 		authorId: r.authorId,
 		createdAt: r.createdAt.toISOString(),
 		message: r.message,
 		parentNumber: r.parentNumber,
 		restoredFrom: r.restoredFromNumber,
-		title: r.title,
-		hasThumbnail: r.hasThumbnail
+		title: r.title
 	};
+}
+
+export function revisionSummary(r: Awaited<ReturnType<typeof listRevisions>>[number]): RevisionSummary {
+	return { ...revisionFields(r, r.authorName), hasThumbnail: r.hasThumbnail };
 }
 
 export interface RevisionDetail extends ReadDocument, Omit<RevisionSummary, 'hasThumbnail'> {
@@ -133,14 +131,7 @@ export interface RevisionDetail extends ReadDocument, Omit<RevisionSummary, 'has
 export function revisionDetail(setup: Setup, { revision: r, authorName }: NonNullable<Awaited<ReturnType<typeof findRevision>>>): RevisionDetail {
 	return {
 		setupId: setup.id,
-		number: r.number,
-		authorName,
-		authorId: r.authorId,
-		createdAt: r.createdAt.toISOString(),
-		message: r.message,
-		parentNumber: r.parentNumber,
-		restoredFrom: r.restoredFromNumber,
-		title: r.title,
+		...revisionFields(r, authorName),
 		subject: r.subject,
 		tags: r.tags,
 		hasThumbnail: r.thumbnailPng !== null,

@@ -3,9 +3,10 @@
 // against the app `npm test` starts, through the real mail flow (the local mail fake).
 import { describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
+import { post, requireTestEnv } from '$lib/server/testing/running-app';
 
-const BASE = process.env.TEST_BASE_URL;
-if (!BASE) throw new Error('TEST_BASE_URL is not set: run these tests through `npm test`, which starts the app.');
+requireTestEnv('TEST_BASE_URL');
+const BASE = process.env.TEST_BASE_URL!;
 
 const PROOF_COOKIE = 'squarelaw-signin-proof';
 
@@ -24,17 +25,7 @@ async function mailsTo(email: string): Promise<Mail[]> {
 
 /** Asks for a sign-in link as a browser without JavaScript posts the form. */
 function askForLink(email: string, cookie?: string) {
-	return fetch(new URL('/auth/signin/nodemailer', BASE), {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			origin: BASE!,
-			accept: 'text/html',
-			'content-type': 'application/x-www-form-urlencoded',
-			...(cookie ? { cookie } : {})
-		},
-		body: new URLSearchParams({ email, callbackUrl: '/setups' })
-	});
+	return post('/auth/signin/nodemailer', { email, callbackUrl: '/setups' }, cookie);
 }
 
 function accepted(res: Response): boolean {

@@ -1,15 +1,11 @@
 // Requests for a sign-in link through the running app: the per-address limit with a clear message, a
 // malformed address sent back to the form as typed, and the same answer whether or not an account exists.
 import { afterAll, describe, expect, it } from 'vitest';
+import { requireTestEnv } from '$lib/server/testing/running-app';
 import { count, eq } from 'drizzle-orm';
 
-const BASE = process.env.TEST_BASE_URL;
-if (!process.env.DATABASE_URL) {
-	throw new Error('DATABASE_URL is not set: these tests run against the real PostgreSQL (run them through `npm test`).');
-}
-if (!BASE || !process.env.DEV_MAIL_URL) {
-	throw new Error('TEST_BASE_URL and DEV_MAIL_URL are not set: run these tests through `npm test`, which starts the app.');
-}
+requireTestEnv('DATABASE_URL', 'TEST_BASE_URL', 'DEV_MAIL_URL');
+const BASE = process.env.TEST_BASE_URL!;
 
 const { client, db } = await import('$lib/server/db');
 const { rateLimitHits, users } = await import('$lib/server/db/schema');

@@ -3,16 +3,11 @@
 // are rate-limited with a clear message, and a malformed e-mail changes nothing. Sign-in link requests:
 // signin-requests.test.ts.
 import { afterAll, describe, expect, it } from 'vitest';
+import { requireTestEnv } from '$lib/server/testing/running-app';
 import { isHttpError } from '@sveltejs/kit';
 import { and, count, eq, sql } from 'drizzle-orm';
 
-const BASE = process.env.TEST_BASE_URL;
-if (!process.env.DATABASE_URL) {
-	throw new Error('DATABASE_URL is not set: these tests run against the real PostgreSQL (run them through `npm test`).');
-}
-if (!BASE || !process.env.DEV_MAIL_URL) {
-	throw new Error('TEST_BASE_URL and DEV_MAIL_URL are not set: run these tests through `npm test`, which starts the app.');
-}
+requireTestEnv('DATABASE_URL', 'TEST_BASE_URL', 'DEV_MAIL_URL');
 
 const { client, db } = await import('$lib/server/db');
 const { invitations, studios, users } = await import('$lib/server/db/schema');

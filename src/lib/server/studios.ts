@@ -25,6 +25,7 @@ import {
 	softDeleteStudio
 } from '$lib/server/db/queries/studios';
 import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+import { invitationStanding } from '$lib/server/db/queries/invitations';
 
 export const INVITATION_DAYS = 7;
 
@@ -151,10 +152,9 @@ export async function lookUpInvitation(token: string): Promise<InvitationState> 
 	const row = token.length > 20 && token.length < 100 ? await findInvitationByHash(hashSecret(token)) : null;
 	if (!row || row.studioDeletedAt) return { state: 'unknown' };
 	const inv = row.invitation;
-	if (inv.acceptedAt) return { state: 'used' };
-	if (inv.revokedAt) return { state: 'revoked' };
-	if (inv.expiresAt.getTime() <= Date.now()) return { state: 'expired' };
-	return { state: 'open', studioName: row.studioName, role: inv.role, email: inv.email, expiresAt: inv.expiresAt };
+	const state = invitationStanding(inv);
+	if (state !== 'open') return { state };
+	return { state, studioName: row.studioName, role: inv.role, email: inv.email, expiresAt: inv.expiresAt };
 }
 
 export async function acceptInvitation(user: SessionUser | null, token: string) {

@@ -11,8 +11,8 @@ if (!process.env.DATABASE_URL || !process.env.DEV_MAIL_URL || !process.env.TEST_
 const { client, db } = await import('$lib/server/db');
 const { exercises, handIns, setups, workshops } = await import('$lib/server/db/schema');
 const ex = await import('$lib/server/exercises');
-const { attempt, makeUser: makeAdminable } = await import('$lib/server/testing/authz-world');
-const { addWorkshopMember, makeWorkshopWorld } = await import('$lib/server/testing/workshop-world');
+const { attempt } = await import('$lib/server/testing/authz-world');
+const { addWorkshopMember, everyCaller, makeWorkshopWorld } = await import('$lib/server/testing/workshop-world');
 const { context, makeUser, mailsTo } = await import('$lib/server/testing/studio-world');
 const { sampleDocument } = await import('$lib/server/testing/notebook-fixtures');
 const { testImage, SAMPLE_EXIF } = await import('$lib/server/testing/shot-images');
@@ -22,7 +22,6 @@ const { setupCreateSchema, setupSaveSchema } = await import('$lib/scene/inputs')
 const { exerciseCreateSchema, exerciseUpdateSchema, handInSchema, reviewSchema } = await import('$lib/exercises/inputs');
 const { evaluateTargets } = await import('$lib/light/targets');
 const { exposureSceneSchema } = await import('$lib/light/schema');
-type SessionUser = import('$lib/server/session').SessionUser;
 
 afterAll(async () => {
 	await client.end({ timeout: 5 });
@@ -60,18 +59,7 @@ const handInCount = async (exerciseId: string) => (await db.select({ n: count() 
 describe('who may do what', () => {
 	it('setting, starting, handing in and the table answer each role as the workshop does', async () => {
 		const w = await world();
-		const other = await makeWorkshopWorld();
-		const admin = await makeAdminable('operator', true);
-		const callers: Record<string, SessionUser> = {
-			stranger: w.stranger,
-			otherStudent: other.student,
-			viewer: w.viewer,
-			editor: w.editor,
-			owner: w.owner,
-			admin,
-			instructor: w.instructor,
-			student: w.student
-		};
+		const { other, callers } = await everyCaller(w);
 		const expected: Record<string, { set: unknown; start: unknown; table: unknown; page: unknown }> = {
 			stranger: { set: 404, start: 404, table: 404, page: 404 },
 			otherStudent: { set: 404, start: 404, table: 404, page: 404 },

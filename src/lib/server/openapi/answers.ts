@@ -195,13 +195,18 @@ export const devMailAnswer = z.array(z.object({ to: text, subject: text, text, h
 
 const derivedFrom = z.object({ setupId: id, revisionNumber }).nullable();
 
-const setupListItem = z.object({
+/** What names a setup in a list and on its page: its catalogue fields and its studio. */
+const setupCard = {
 	id,
 	title: text,
 	subject: text,
 	tags: z.array(text),
 	studioId: id,
-	studioName: text,
+	studioName: text
+};
+
+const setupListItem = z.object({
+	...setupCard,
 	createdAt: dateTime,
 	updatedAt: dateTime,
 	revisionNumber,
@@ -234,12 +239,7 @@ const storedDocument = {
 };
 
 export const setupAnswer = z.object({
-	id,
-	title: text,
-	subject: text,
-	tags: z.array(text),
-	studioId: id,
-	studioName: text,
+	...setupCard,
 	revisionNumber,
 	createdAt: dateTime,
 	updatedAt: dateTime,

@@ -21,6 +21,21 @@ export interface ApiRoute {
 	refusals?: number[];
 }
 
+/** What a row says beyond its method, path, group, access and summary. */
+export type RouteDetails = Omit<ApiRoute, 'method' | 'path' | 'group' | 'access' | 'summary'>;
+
+/** A maker of rows for routes that share a group, who may call them and the start of their path. */
+export function routesOf(group: string, access: Access, basePath: string) {
+	return (method: HttpMethod, rest: string, summary: string, details: RouteDetails): ApiRoute => ({
+		method,
+		path: `${basePath}${rest}`,
+		group,
+		access,
+		summary,
+		...details
+	});
+}
+
 export const GROUPS = {
 	calc: { name: 'Calculations', description: 'The exposure and optics math. No sign-in; bad input is a 400 naming the field, never a 500.' },
 	setups: {

@@ -17,7 +17,7 @@ import {
 import { gearCreateSchema, gearQuerySchema, gearSpecSchemas, gearUpdateSchema } from '$lib/scene/gear';
 import { importQuerySchema, MAX_EXPORT_BYTES, setupExportSchema } from '$lib/scene/export';
 import * as answers from './answers';
-import { GROUPS, type Access, type ApiRoute, type HttpMethod } from './route-types';
+import { GROUPS, routesOf, type Access, type ApiRoute, type HttpMethod } from './route-types';
 import { SHOT_ROUTES } from './shot-routes';
 
 export { GROUPS };
@@ -41,6 +41,11 @@ const calc = (path: string, summary: string, body: z.ZodType, answer: z.ZodType,
 	body: { schema: body },
 	answer: { status: 200, description: 'The result', schema: answer }
 });
+
+const service = routesOf(GROUPS.meta.name, 'public', '/api/v1');
+const setup = routesOf(GROUPS.setups.name, 'signed-in', '/api/v1/setups');
+const gear = routesOf(GROUPS.gear.name, 'signed-in', '/api/v1/gear');
+const dev = routesOf(GROUPS.dev.name, 'development', '/api/dev');
 
 export const API_ROUTES: ApiRoute[] = [
 	calc(
@@ -78,233 +83,108 @@ export const API_ROUTES: ApiRoute[] = [
 		answers.exposureAnswer,
 		'Exposure units: X = 1 is a correct exposure at the working aperture N_w; stops = log2(X). Direct flash: X = (effectiveGuideNumber / (d · N_w))². Continuous: X = luxAt1m / d² × ISO × t / (C · N_w²), C = 250. Ambient: X = 2^ev100 × (ISO/100) × t / N_w². A diffuse reflector is a Lambertian disc of its area lit by its `source` (a light id or "ambient"); a specular one returns reflectance × the source’s X over the whole path. With a `normal`, a specular one lights the subject only where the mirror reflection of its source lands within its extent, over the reflected path. A light whose straight path to the subject crosses a flag, in plan, gives 0. Lambert’s cosine law applies at the subject when it has a `normal`, `facing: "up"`, or a `camera.position` (it then faces the camera); `faces` gives the lit and shadow faces. A flash’s `calibrationOffsetStops` scales its guide number; a light with a size (`emitterWidthM` × `emitterHeightM` or `emitterDiameterM`) nearer than five sizes is an extended Lambertian source (configuration factors of a rectangle or a disc). The aperture table runs in third stops (exact values 2^(k/6)) from minAperture (default 2.8) to maxAperture (default 32).'
 	),
-	{
-		method: 'get',
-		path: '/api/v1/health',
-		group: GROUPS.meta.name,
-		access: 'public',
-		summary: 'Whether the app and its database answer',
+	service('get', '/health', 'Whether the app and its database answer', {
 		answer: { status: 200, description: 'Up (503 with `db: "down"` when the database does not answer)', schema: answers.healthAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/openapi.json',
-		group: GROUPS.meta.name,
-		access: 'public',
-		summary: 'This document: the API as OpenAPI 3.1',
+	}),
+	service('get', '/openapi.json', 'This document: the API as OpenAPI 3.1', {
 		answer: { status: 200, description: 'The OpenAPI document', schema: z.looseObject({ openapi: z.string() }) }
-	},
+	}),
 
 	// ---------- setups ----------
-	{
-		method: 'get',
-		path: '/api/v1/setups',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'The notebook: setups across the caller’s studios, searched, filtered, sorted and paged',
+	setup('get', '', 'The notebook: setups across the caller’s studios, searched, filtered, sorted and paged', {
 		query: setupListQuerySchema,
 		answer: { status: 200, description: 'One page of setups', schema: answers.setupListAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/setups',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'A new setup with its first revision',
+	}),
+	setup('post', '', 'A new setup with its first revision', {
 		description:
 			'`document` is the setup document `{ schemaVersion, scene, plan, notes }`: `scene` is the body of POST /api/v1/exposure; a document with an empty `plan` (`{}`) and empty `notes` is valid, and the editor lays out what the plan lacks. An older `schemaVersion` is migrated. `thumbnailPng` is a PNG as base64 (or a data URL).',
 		body: { schema: setupCreateSchema },
 		answer: { status: 201, description: 'Created', schema: answers.createdAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'A setup with its latest document and its lineage',
+	}),
+	setup('get', '/{id}', 'A setup with its latest document and its lineage', {
 		answer: { status: 200, description: 'The setup', schema: answers.setupAnswer }
-	},
-	{
-		method: 'put',
-		path: '/api/v1/setups/{id}',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Save: a new revision on top of `baseRevision`',
+	}),
+	setup('put', '/{id}', 'Save: a new revision on top of `baseRevision`', {
 		description: 'Every accepted save is a new revision, written in one transaction; a save whose `baseRevision` is not the latest is a 409 with `latestRevision`. A flash the plan draws from the gear shelf (`gearId`) is saved with the calibration in force on the shelf as its `calibrationOffsetStops`, whatever the body says.',
 		body: { schema: setupSaveSchema },
 		answer: { status: 200, description: 'Saved', schema: answers.revisionNumberAnswer },
 		refusals: [409]
-	},
-	{
-		method: 'delete',
-		path: '/api/v1/setups/{id}',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Move a setup to its studio’s trash (restore with …/untrash)',
+	}),
+	setup('delete', '/{id}', 'Move a setup to its studio’s trash (restore with …/untrash)', {
 		answer: { status: 204, description: 'In the trash' }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}/revisions',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Every revision of a setup, newest first',
+	}),
+	setup('get', '/{id}/revisions', 'Every revision of a setup, newest first', {
 		answer: { status: 200, description: 'The revisions', schema: answers.revisionsAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}/revisions/{n}',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'One revision with its document',
+	}),
+	setup('get', '/{id}/revisions/{n}', 'One revision with its document', {
 		answer: { status: 200, description: 'The revision', schema: answers.revisionAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/setups/{id}/revisions/{n}/restore',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Restore: a new revision that copies revision n',
+	}),
+	setup('post', '/{id}/revisions/{n}/restore', 'Restore: a new revision that copies revision n', {
 		body: { schema: setupRestoreSchema, required: false },
 		answer: { status: 200, description: 'Restored as a new revision', schema: answers.revisionNumberAnswer },
 		refusals: [409]
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}/revisions/{n}/thumbnail',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'The PNG thumbnail of revision n’s plan (404 when it has none)',
+	}),
+	setup('get', '/{id}/revisions/{n}/thumbnail', 'The PNG thumbnail of revision n’s plan (404 when it has none)', {
 		answer: { status: 200, description: 'The PNG; revisions never change, so it may be cached', mediaType: 'image/png' }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/setups/{id}/duplicate',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Duplicate a setup for a new subject, keeping where it came from',
+	}),
+	setup('post', '/{id}/duplicate', 'Duplicate a setup for a new subject, keeping where it came from', {
 		body: { schema: setupDuplicateSchema },
 		answer: { status: 201, description: 'The new setup', schema: answers.duplicatedAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}/exposure',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'The POST /api/v1/exposure answer for a revision, computed on the server from the stored scene',
+	}),
+	setup('get', '/{id}/exposure', 'The POST /api/v1/exposure answer for a revision, computed on the server from the stored scene', {
 		query: revisionQuery,
 		answer: { status: 200, description: 'The exposure', schema: answers.setupExposureAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/{id}/export',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'The setup file of a revision, as a download',
+	}),
+	setup('get', '/{id}/export', 'The setup file of a revision, as a download', {
 		description: 'Squarelaw’s own format (src/lib/scene/README.md); import it with POST /api/v1/setups/import.',
 		query: revisionQuery,
 		answer: { status: 200, description: 'The setup file (an attachment)', schema: answers.setupFileAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/setups/{id}/untrash',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Take a setup out of the trash with all its revisions',
+	}),
+	setup('post', '/{id}/untrash', 'Take a setup out of the trash with all its revisions', {
 		answer: { status: 200, description: 'Restored', schema: answers.untrashedAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/setups/trash',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Deleted setups the caller may restore, newest deletion first',
+	}),
+	setup('get', '/trash', 'Deleted setups the caller may restore, newest deletion first', {
 		query: setupListQuerySchema,
 		answer: { status: 200, description: 'One page of the trash', schema: answers.setupListAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/setups/import',
-		group: GROUPS.setups.name,
-		access: 'signed-in',
-		summary: 'Make a setup from a setup file',
+	}),
+	setup('post', '/import', 'Make a setup from a setup file', {
 		description: `The file's text as the body, or a multipart form with the file in \`file\`; at most ${MAX_EXPORT_BYTES / 1024} KiB. A bad file creates nothing.`,
 		query: importQuerySchema,
 		body: { schema: setupExportSchema, mediaTypes: ['application/json', 'multipart/form-data'] },
 		answer: { status: 201, description: 'Created', schema: answers.createdAnswer }
-	},
+	}),
 
 	...SHOT_ROUTES,
 
 	// ---------- gear ----------
-	{
-		method: 'get',
-		path: '/api/v1/gear',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'A studio’s gear shelf (the caller’s personal studio by default)',
+	gear('get', '', 'A studio’s gear shelf (the caller’s personal studio by default)', {
 		query: gearQuerySchema,
 		answer: { status: 200, description: 'The shelf', schema: answers.gearShelfAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/gear',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'A new item on the gear shelf',
+	}),
+	gear('post', '', 'A new item on the gear shelf', {
 		description: `\`spec\` holds the fields of its kind: ${gearSpecFields}.`,
 		body: { schema: gearCreateSchema },
 		answer: { status: 201, description: 'The item', schema: answers.gearItemAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/gear/{id}',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'One item of a gear shelf',
+	}),
+	gear('get', '/{id}', 'One item of a gear shelf', {
 		answer: { status: 200, description: 'The item', schema: answers.gearDetailAnswer }
-	},
-	{
-		method: 'patch',
-		path: '/api/v1/gear/{id}',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'Edit, retire (`retired: true`) or return an item to the shelf',
+	}),
+	gear('patch', '/{id}', 'Edit, retire (`retired: true`) or return an item to the shelf', {
 		body: { schema: gearUpdateSchema },
 		answer: { status: 200, description: 'The item', schema: answers.gearItemAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/v1/gear/{id}/calibrations',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'A flash’s calibrations, newest first, the one in force marked',
+	}),
+	gear('get', '/{id}/calibrations', 'A flash’s calibrations, newest first, the one in force marked', {
 		answer: { status: 200, description: 'The history', schema: answers.calibrationsAnswer }
-	},
-	{
-		method: 'post',
-		path: '/api/v1/gear/{id}/calibrations/{calibrationId}/undo',
-		group: GROUPS.gear.name,
-		access: 'signed-in',
-		summary: 'Undo the calibration in force; the one before it (or none) applies to saves from now on',
+	}),
+	gear('post', '/{id}/calibrations/{calibrationId}/undo', 'Undo the calibration in force; the one before it (or none) applies to saves from now on', {
 		answer: { status: 200, description: 'The history', schema: answers.calibrationsAnswer }
-	},
+	}),
 
 	// ---------- development ----------
-	{
-		method: 'get',
-		path: '/api/dev/mail',
-		group: GROUPS.dev.name,
-		access: 'development',
-		summary: 'The messages the local mail fake received, newest first (404 when the fake is off)',
+	dev('get', '/mail', 'The messages the local mail fake received, newest first (404 when the fake is off)', {
 		answer: { status: 200, description: 'The mailbox', schema: answers.devMailAnswer }
-	},
-	{
-		method: 'get',
-		path: '/api/dev/fail',
-		group: GROUPS.dev.name,
-		access: 'development',
-		summary: 'Fails the way a bug would: a 500 in the error shape with an errorId (404 where the mailbox is closed)',
+	}),
+	dev('get', '/fail', 'Fails the way a bug would: a 500 in the error shape with an errorId (404 where the mailbox is closed)', {
 		answer: { status: 500, description: 'Always an error', schema: answers.errorAnswer }
-	}
+	})
 ];

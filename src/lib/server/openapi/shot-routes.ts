@@ -11,16 +11,9 @@ import {
 	shotUploadFieldsSchema
 } from '$lib/shots/types';
 import * as answers from './answers';
-import { GROUPS, type ApiRoute, type HttpMethod } from './route-types';
+import { GROUPS, routesOf, type ApiRoute } from './route-types';
 
-const shot = (method: HttpMethod, rest: string, summary: string, row: Omit<ApiRoute, 'method' | 'path' | 'group' | 'access' | 'summary'>): ApiRoute => ({
-	method,
-	path: `/api/v1/setups/{id}/shots${rest}`,
-	group: GROUPS.shots.name,
-	access: 'signed-in',
-	summary,
-	...row
-});
+const shot = routesOf(GROUPS.shots.name, 'signed-in', '/api/v1/setups/{id}/shots');
 
 export const SHOT_ROUTES: ApiRoute[] = [
 	shot('get', '', 'A setup’s shots (or its trash), shooting sessions and the mean of actual − predicted', {

@@ -12,6 +12,8 @@ import { RuleViolation } from '$lib/server/errors';
 import { hashSecret } from '$lib/server/tokens';
 import type { SessionUser } from '$lib/server/session';
 
+export { post } from './running-app';
+
 const BASE = process.env.TEST_BASE_URL;
 
 type Refusal = InstanceType<typeof RuleViolation> | Error;
@@ -74,21 +76,6 @@ export async function invitationLink(email: string): Promise<string> {
 export async function mailsTo(email: string): Promise<number> {
 	const messages = (await (await fetch(`${process.env.DEV_MAIL_URL}/messages`)).json()) as { to: string }[];
 	return messages.filter((m) => m.to.includes(email)).length;
-}
-
-/** A form post as a browser without JavaScript sends it (so SvelteKit answers with the page, not JSON). */
-export function post(path: string, form: Record<string, string>, cookie?: string) {
-	return fetch(new URL(path, BASE), {
-		method: 'POST',
-		redirect: 'manual',
-		headers: {
-			origin: BASE!,
-			accept: 'text/html',
-			'content-type': 'application/x-www-form-urlencoded',
-			...(cookie ? { cookie } : {})
-		},
-		body: new URLSearchParams(form)
-	});
 }
 
 export async function sessionCookie(user: SessionUser): Promise<string> {

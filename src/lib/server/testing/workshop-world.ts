@@ -8,6 +8,7 @@ import { createSetup, saveSetup } from '$lib/server/setups';
 import { setupCreateSchema, setupSaveSchema } from '$lib/scene/inputs';
 import { sampleDocument } from './notebook-fixtures';
 import { makeStudio, makeUser } from './studio-world';
+import { makeUser as makeAdminable } from './authz-world';
 import type { SessionUser } from '$lib/server/session';
 import { addLesson, addSession, addStep, createWorkshop } from '$lib/server/workshops';
 import { lessonSchema, sessionSchema, stepCreateSchema, workshopCreateSchema } from '$lib/workshops/inputs';
@@ -35,3 +36,23 @@ export async function makeWorkshopWorld({ capacity = 12 } = {}) {
 	return { studioId, owner, editor, viewer, instructor, student, stranger, setupId: setup.id, workshopId: workshop.id, lessonId: lesson.id, stepIds: [alone.id, both.id] };
 }
 export type WorkshopWorld = Awaited<ReturnType<typeof makeWorkshopWorld>>;
+
+/**
+ * Everyone who may knock on a workshop, by name: its studio's owner, editor and viewer, its instructor
+ * and student, a stranger, a student of another workshop (`other`) and a site admin.
+ */
+export async function everyCaller(w: WorkshopWorld) {
+	const other = await makeWorkshopWorld();
+	const admin = await makeAdminable('operator', true);
+	const callers = {
+		stranger: w.stranger,
+		otherStudent: other.student,
+		viewer: w.viewer,
+		editor: w.editor,
+		owner: w.owner,
+		admin,
+		instructor: w.instructor,
+		student: w.student
+	};
+	return { other, callers };
+}

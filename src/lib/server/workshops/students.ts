@@ -10,6 +10,7 @@ import { hashSecret, newSecret } from '$lib/server/tokens';
 import type { SessionUser } from '$lib/server/session';
 import type { WorkshopRole } from '$lib/server/db/schema';
 import { hitRateLimits } from '$lib/server/db/queries/rate-limits';
+import { invitationStanding } from '$lib/server/db/queries/invitations';
 import {
 	addMember,
 	consumeWorkshopInvitation,
@@ -169,10 +170,9 @@ export async function lookUpWorkshopInvitation(token: string): Promise<WorkshopI
 	const row = await invitationByToken(token);
 	if (!row) return { state: 'unknown' };
 	const inv = row.invitation;
-	if (inv.acceptedAt) return { state: 'used' };
-	if (inv.revokedAt) return { state: 'revoked' };
-	if (inv.expiresAt.getTime() <= Date.now()) return { state: 'expired' };
-	return { state: 'open', workshopId: row.workshop.id, workshopTitle: row.workshop.title, role: inv.role, email: inv.email, expiresAt: inv.expiresAt };
+	const state = invitationStanding(inv);
+	if (state !== 'open') return { state };
+	return { state, workshopId: row.workshop.id, workshopTitle: row.workshop.title, role: inv.role, email: inv.email, expiresAt: inv.expiresAt };
 }
 
 /** Uses an invitation once: the signed-in person must hold the invited address; a student needs a free seat. */

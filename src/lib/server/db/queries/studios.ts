@@ -1,7 +1,8 @@
-import { and, asc, desc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, isNull, sql } from 'drizzle-orm';
 import { db, type Tx } from '../index';
 import { invitations, memberships, studios, users, type StudioRole } from '../schema';
 import { outranks } from '$lib/server/authz';
+import { invitationStanding, notAcceptedOrRevoked, stillOpen } from './invitations';
 
 export async function createStudioWithOwner(name: string, ownerId: string, personal = false, tx?: Tx) {
 	const run = async (t: Tx) => {
@@ -69,14 +70,7 @@ export async function listOpenInvitations(studioId: string) {
 			createdAt: invitations.createdAt
 		})
 		.from(invitations)
-		.where(
-			and(
-				eq(invitations.studioId, studioId),
-				isNull(invitations.acceptedAt),
-				isNull(invitations.revokedAt),
-				gt(invitations.expiresAt, new Date())
-			)
-		)
+		.where(and(eq(invitations.studioId, studioId), stillOpen(invitations)))
 		.orderBy(desc(invitations.createdAt));
 }
 
@@ -97,14 +91,7 @@ export async function revokeInvitationRow(studioId: string, invitationId: string
 	const rows = await db
 		.update(invitations)
 		.set({ revokedAt: new Date() })
-		.where(
-			and(
-				eq(invitations.id, invitationId),
-				eq(invitations.studioId, studioId),
-				isNull(invitations.acceptedAt),
-				isNull(invitations.revokedAt)
-			)
-		)
+		.where(and(eq(invitations.id, invitationId), eq(invitations.studioId, studioId), notAcceptedOrRevoked(invitations)))
 		.returning({ id: invitations.id });
 	return rows.length > 0;
 }
@@ -157,8 +144,7 @@ export async function changeMembership(studioId: string, change: MembershipChang
 export async function consumeInvitation(invitationId: string, userId: string) {
 	return db.transaction(async (tx) => {
 		const [inv] = await tx.select().from(invitations).where(eq(invitations.id, invitationId)).for('update');
-		if (!inv || inv.acceptedAt || inv.revokedAt) return null;
-		if (inv.expiresAt.getTime() <= Date.now()) return null;
+		if (!inv || invitationStanding(inv) !== 'open') return null;
 		await tx
 			.update(invitations)
 			.set({ acceptedAt: new Date(), acceptedById: userId })

@@ -1,9 +1,10 @@
 // Named queries of a workshop's people: the roster, invitations, joining (with its seat check) and
 // requests to join. Services ask authz first and call these; a join runs in one transaction here.
-import { and, asc, desc, eq, gt, inArray, isNull, or, sql } from 'drizzle-orm';
+import { and, asc, desc, eq, inArray, isNull, or, sql } from 'drizzle-orm';
 import { db, type Tx } from '../index';
 import { studios, users, workshopInvitations, workshopJoinRequests, workshopMembers, workshops, type WorkshopRole } from '../schema';
 import { countSeatsTaken, type Runner } from './workshops';
+import { invitationStanding, notAcceptedOrRevoked, stillOpen } from './invitations';
 
 // ---------- people ----------
 
@@ -65,14 +66,7 @@ export async function listOpenWorkshopInvitations(workshopId: string) {
 	return db
 		.select({ id: workshopInvitations.id, email: workshopInvitations.email, role: workshopInvitations.role, expiresAt: workshopInvitations.expiresAt, createdAt: workshopInvitations.createdAt })
 		.from(workshopInvitations)
-		.where(
-			and(
-				eq(workshopInvitations.workshopId, workshopId),
-				isNull(workshopInvitations.acceptedAt),
-				isNull(workshopInvitations.revokedAt),
-				gt(workshopInvitations.expiresAt, new Date())
-			)
-		)
+		.where(and(eq(workshopInvitations.workshopId, workshopId), stillOpen(workshopInvitations)))
 		.orderBy(desc(workshopInvitations.createdAt));
 }
 
@@ -80,14 +74,7 @@ export async function revokeWorkshopInvitationRow(workshopId: string, invitation
 	const rows = await db
 		.update(workshopInvitations)
 		.set({ revokedAt: new Date() })
-		.where(
-			and(
-				eq(workshopInvitations.id, invitationId),
-				eq(workshopInvitations.workshopId, workshopId),
-				isNull(workshopInvitations.acceptedAt),
-				isNull(workshopInvitations.revokedAt)
-			)
-		)
+		.where(and(eq(workshopInvitations.id, invitationId), eq(workshopInvitations.workshopId, workshopId), notAcceptedOrRevoked(workshopInvitations)))
 		.returning({ id: workshopInvitations.id });
 	return rows.length > 0;
 }
@@ -136,7 +123,7 @@ export async function addMember(
 /** Marks an open, unexpired invitation used (inside addMember's transaction); false when it is not open. */
 export async function consumeWorkshopInvitation(tx: Tx, invitationId: string, userId: string): Promise<boolean> {
 	const [inv] = await tx.select().from(workshopInvitations).where(eq(workshopInvitations.id, invitationId)).for('update');
-	if (!inv || inv.acceptedAt || inv.revokedAt || inv.expiresAt.getTime() <= Date.now()) return false;
+	if (!inv || invitationStanding(inv) !== 'open') return false;
 	await tx.update(workshopInvitations).set({ acceptedAt: new Date(), acceptedById: userId }).where(eq(workshopInvitations.id, inv.id));
 	return true;
 }

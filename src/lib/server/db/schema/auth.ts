@@ -1,8 +1,9 @@
 // The tables Auth.js's Drizzle adapter needs, with our naming (plural tables, snake_case columns).
-import { boolean, index, integer, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, index, integer, pgTable, primaryKey, text, timestamp } from 'drizzle-orm/pg-core';
+import { belongsTo, uuidKey, writtenAt } from './columns';
 
 export const users = pgTable('users', {
-	id: uuid().primaryKey().defaultRandom(),
+	id: uuidKey(),
 	name: text(),
 	email: text().notNull().unique(),
 	emailVerified: timestamp({ mode: 'date', withTimezone: true }),
@@ -10,15 +11,13 @@ export const users = pgTable('users', {
 	/** The operator's flag: sees and manages every studio. */
 	isAdmin: boolean().notNull().default(false),
 	unitSystem: text({ enum: ['metric', 'imperial'] }).notNull().default('metric'),
-	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	createdAt: writtenAt()
 });
 
 export const accounts = pgTable(
 	'accounts',
 	{
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		userId: belongsTo(() => users.id),
 		type: text().notNull(),
 		provider: text().notNull(),
 		providerAccountId: text().notNull(),
@@ -42,9 +41,7 @@ export const sessions = pgTable(
 	'sessions',
 	{
 		sessionToken: text().primaryKey(),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		userId: belongsTo(() => users.id),
 		expires: timestamp({ mode: 'date', withTimezone: true }).notNull(),
 		createdAt: timestamp({ mode: 'date', withTimezone: true }).notNull().defaultNow()
 	},

@@ -2,7 +2,8 @@
 // is checked by its zod schema in src/lib/scene/gear.ts and kept in `spec`; retired gear stays listed
 // for the setups that used it.
 import { sql } from 'drizzle-orm';
-import { check, index, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { check, index, jsonb, pgTable, text } from 'drizzle-orm/pg-core';
+import { belongsTo, optionalRef, timestamps, timestamptz, uuidKey } from './columns';
 import type { GearKind } from '$lib/scene/gear';
 import { users } from './auth';
 import { studios } from './studios';
@@ -10,19 +11,16 @@ import { studios } from './studios';
 export const gear = pgTable(
 	'gear',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		studioId: uuid()
-			.notNull()
-			.references(() => studios.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		studioId: belongsTo(() => studios.id),
 		kind: text().$type<GearKind>().notNull(),
 		name: text().notNull(),
 		/** Kind-specific figures (guide number, light loss, reflectance…), validated per kind. */
 		spec: jsonb().$type<Record<string, unknown>>().notNull(),
 		notes: text().notNull().default(''),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		retiredAt: timestamp({ withTimezone: true })
+		createdById: optionalRef(() => users.id),
+		...timestamps(),
+		retiredAt: timestamptz()
 	},
 	(t) => [
 		index('gear_studio_kind_name_idx').on(t.studioId, t.kind, t.name),

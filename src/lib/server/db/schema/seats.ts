@@ -2,7 +2,8 @@
 // payment that confirms it or the refund that returns it, and the payment provider's events already
 // handled (so a repeated event changes nothing).
 import { sql } from 'drizzle-orm';
-import { check, index, integer, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { check, index, integer, pgTable, text, uniqueIndex } from 'drizzle-orm/pg-core';
+import { belongsTo, inList, optionalRef, timestamps, timestamptz, uuidKey, writtenAt } from './columns';
 import { users } from './auth';
 import { workshops } from './workshops';
 
@@ -19,29 +20,24 @@ export type BookingState = (typeof BOOKING_STATES)[number];
 export const seatBookings = pgTable(
 	'seat_bookings',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
+		userId: belongsTo(() => users.id),
 		state: text().$type<BookingState>().notNull().default('held'),
 		/** The price when booked, in minor units, and its currency. */
 		amountMinor: integer().notNull(),
 		currency: text().notNull(),
-		holdExpiresAt: timestamp({ withTimezone: true }).notNull(),
+		holdExpiresAt: timestamptz().notNull(),
 		/** The provider's checkout session, once it is made. */
 		checkoutSessionId: text().unique(),
 		checkoutUrl: text(),
 		paymentIntentId: text().unique(),
-		paidAt: timestamp({ withTimezone: true }),
+		paidAt: timestamptz(),
 		refundId: text(),
-		refundedAt: timestamp({ withTimezone: true }),
+		refundedAt: timestamptz(),
 		/** Why the payment is (being) returned, in words for the buyer. */
 		refundReason: text(),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		...timestamps()
 	},
 	(t) => [
 		index('seat_bookings_workshop_idx').on(t.workshopId, t.state),
@@ -49,7 +45,7 @@ export const seatBookings = pgTable(
 		uniqueIndex('seat_bookings_active_idx')
 			.on(t.workshopId, t.userId)
 			.where(sql`${t.state} in ('held', 'confirmed')`),
-		check('seat_bookings_state_check', sql`${t.state} in ('held', 'released', 'confirmed', 'refund_due', 'refunded')`),
+		check('seat_bookings_state_check', inList(t.state, BOOKING_STATES)),
 		check('seat_bookings_amount_check', sql`${t.amountMinor} > 0`)
 	]
 );
@@ -58,8 +54,8 @@ export const seatBookings = pgTable(
 export const paymentEvents = pgTable('payment_events', {
 	id: text().primaryKey(),
 	type: text().notNull(),
-	bookingId: uuid().references(() => seatBookings.id, { onDelete: 'set null' }),
-	receivedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	bookingId: optionalRef(() => seatBookings.id),
+	receivedAt: writtenAt()
 });
 
 export type SeatBooking = typeof seatBookings.$inferSelect;

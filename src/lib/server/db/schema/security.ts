@@ -1,5 +1,5 @@
-import { sql } from 'drizzle-orm';
-import { bigserial, check, index, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { bigserial, check, index, pgTable, text } from 'drizzle-orm/pg-core';
+import { belongsTo, inList, timestamptz, uuidKey, writtenAt } from './columns';
 import { users } from './auth';
 
 export const TOKEN_SCOPES = ['read-only', 'read-write'] as const;
@@ -9,26 +9,24 @@ export type TokenScope = (typeof TOKEN_SCOPES)[number];
 export const accessTokens = pgTable(
 	'access_tokens',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		userId: belongsTo(() => users.id),
 		name: text().notNull(),
 		tokenHash: text().notNull().unique(),
 		/** The first characters, shown in lists so the owner can tell tokens apart. */
 		tokenPrefix: text().notNull(),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		createdAt: writtenAt(),
 		/** Written at most once a minute while the token is in use. */
-		lastUsedAt: timestamp({ withTimezone: true }),
+		lastUsedAt: timestamptz(),
 		/** Null: never expires. */
-		expiresAt: timestamp({ withTimezone: true }),
+		expiresAt: timestamptz(),
 		/** 'read-only' tokens may only read (GET) the JSON API. Tokens made before scopes existed keep 'read-write'. */
 		scope: text({ enum: TOKEN_SCOPES }).notNull().default('read-write'),
-		revokedAt: timestamp({ withTimezone: true })
+		revokedAt: timestamptz()
 	},
 	(t) => [
 		index('access_tokens_user_idx').on(t.userId),
-		check('access_tokens_scope_check', sql`${t.scope} in ('read-only', 'read-write')`)
+		check('access_tokens_scope_check', inList(t.scope, TOKEN_SCOPES))
 	]
 );
 
@@ -41,7 +39,7 @@ export const rateLimitHits = pgTable(
 	{
 		id: bigserial({ mode: 'number' }).primaryKey(),
 		bucket: text().notNull(),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: writtenAt()
 	},
 	(t) => [index('rate_limit_hits_bucket_idx').on(t.bucket, t.createdAt)]
 );

@@ -1,19 +1,9 @@
 // Setups and their revisions. A setup row is the catalogue card (title, subject, tags, where it came
 // from); every save is a new, never-changed row in setup_revisions holding the whole document.
 import { sql } from 'drizzle-orm';
-import {
-	customType,
-	foreignKey,
-	index,
-	integer,
-	jsonb,
-	pgTable,
-	text,
-	timestamp,
-	uniqueIndex,
-	uuid
-} from 'drizzle-orm/pg-core';
+import { customType, foreignKey, index, integer, jsonb, pgTable, text, uniqueIndex, uuid, type AnyPgColumn } from 'drizzle-orm/pg-core';
 import { users } from './auth';
+import { belongsTo, optionalRef, timestamps, timestamptz, uuidKey, writtenAt } from './columns';
 import { studios } from './studios';
 
 /** PNG bytes. postgres.js hands bytea over as a Buffer; the app works with Uint8Array. */
@@ -26,10 +16,8 @@ export const bytea = customType<{ data: Uint8Array; driverData: Buffer }>({
 export const setups = pgTable(
 	'setups',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		studioId: uuid()
-			.notNull()
-			.references(() => studios.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		studioId: belongsTo(() => studios.id),
 		title: text().notNull(),
 		subject: text().notNull().default(''),
 		tags: text().array().notNull().default(sql`'{}'::text[]`),
@@ -45,12 +33,11 @@ export const setups = pgTable(
 		thumbnailRevision: integer(),
 		/** Lower-case title, subject, tags and gear names, kept by the app on every write, for search. */
 		searchText: text().notNull().default(''),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		createdById: optionalRef(() => users.id),
+		...timestamps(),
 		/** In the studio's trash since then; null when not deleted. */
-		deletedAt: timestamp({ withTimezone: true }),
-		deletedById: uuid().references(() => users.id, { onDelete: 'set null' })
+		deletedAt: timestamptz(),
+		deletedById: optionalRef(() => users.id)
 	},
 	(t) => [
 		foreignKey({ columns: [t.derivedFromSetupId], foreignColumns: [t.id], name: 'setups_derived_from_fk' }).onDelete(
@@ -78,10 +65,8 @@ export const setups = pgTable(
 export const setupRevisions = pgTable(
 	'setup_revisions',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		setupId: uuid()
-			.notNull()
-			.references(() => setups.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		setupId: belongsTo(() => setups.id),
 		number: integer().notNull(),
 		/** The revision this one was saved on top of (null for the first). */
 		parentNumber: integer(),
@@ -93,13 +78,20 @@ export const setupRevisions = pgTable(
 		title: text().notNull(),
 		subject: text().notNull().default(''),
 		tags: text().array().notNull().default(sql`'{}'::text[]`),
-		authorId: uuid().references(() => users.id, { onDelete: 'set null' }),
+		authorId: optionalRef(() => users.id),
 		message: text().notNull().default(''),
 		thumbnailPng: bytea(),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: writtenAt()
 	},
 	(t) => [uniqueIndex('setup_revisions_setup_number_idx').on(t.setupId, t.number)]
 );
+
+/**
+ * A row that pins one revision of a setup (a workshop step, an exercise, a hand-in): the composite key
+ * makes a revision that does not exist unstorable, and the row goes with the revision.
+ */
+export const pinnedRevisionKey = (name: string, setupId: AnyPgColumn, revisionNumber: AnyPgColumn) =>
+	foreignKey({ columns: [setupId, revisionNumber], foreignColumns: [setupRevisions.setupId, setupRevisions.number], name }).onDelete('cascade');
 
 /**
  * How many setups each studio has, live and in the trash, so the unfiltered notebook list answers its

@@ -3,7 +3,8 @@
 // image bytes live in object storage (src/lib/server/storage.ts); a row names its objects.
 // Also the flash calibrations of gear-shelf flashes and the studios' pre-shot checklists.
 import { sql } from 'drizzle-orm';
-import { check, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { check, doublePrecision, index, integer, jsonb, pgTable, primaryKey, text, uuid } from 'drizzle-orm/pg-core';
+import { belongsTo, optionalRef, timestamptz, uuidKey, writtenAt } from './columns';
 import type { ShotExif, ShotTyped, MeterReading, MeasureRegion, CalibrationReading } from '$lib/shots/types';
 import { users } from './auth';
 import { gear } from './gear';
@@ -13,15 +14,13 @@ import { studios } from './studios';
 export const shootingSessions = pgTable(
 	'shooting_sessions',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		setupId: uuid()
-			.notNull()
-			.references(() => setups.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		setupId: belongsTo(() => setups.id),
 		/** The day of the sitting (local to the photographer). */
 		shotOn: text().notNull(),
 		note: text().notNull().default(''),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdById: optionalRef(() => users.id),
+		createdAt: writtenAt()
 	},
 	(t) => [index('shooting_sessions_setup_idx').on(t.setupId, t.shotOn)]
 );
@@ -29,11 +28,9 @@ export const shootingSessions = pgTable(
 export const shots = pgTable(
 	'shots',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		setupId: uuid()
-			.notNull()
-			.references(() => setups.id, { onDelete: 'cascade' }),
-		sessionId: uuid().references(() => shootingSessions.id, { onDelete: 'set null' }),
+		id: uuidKey(),
+		setupId: belongsTo(() => setups.id),
+		sessionId: optionalRef(() => shootingSessions.id),
 		/** The revision the shot was made from: the latest at upload, changeable to another of the same setup. */
 		revisionNumber: integer().notNull(),
 		fileName: text().notNull(),
@@ -49,10 +46,10 @@ export const shots = pgTable(
 		exif: jsonb().$type<ShotExif>().notNull(),
 		/** Values typed by hand where EXIF had none or was wrong; they win over `exif` and are marked typed. */
 		typed: jsonb().$type<ShotTyped>().notNull().default({}),
-		takenAt: timestamp({ withTimezone: true }),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		deletedAt: timestamp({ withTimezone: true })
+		takenAt: timestamptz(),
+		createdById: optionalRef(() => users.id),
+		createdAt: writtenAt(),
+		deletedAt: timestamptz()
 	},
 	(t) => [
 		index('shots_setup_idx').on(t.setupId, t.createdAt),
@@ -64,10 +61,8 @@ export const shots = pgTable(
 export const shotMeasures = pgTable(
 	'shot_measures',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		shotId: uuid()
-			.notNull()
-			.references(() => shots.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		shotId: belongsTo(() => shots.id),
 		method: text().$type<'region' | 'meter'>().notNull(),
 		region: jsonb().$type<MeasureRegion>(),
 		/** Mean linear relative luminance of the region (0–1). */
@@ -75,8 +70,8 @@ export const shotMeasures = pgTable(
 		meter: jsonb().$type<MeterReading>(),
 		/** Stops above (+) or below (−) a mid-grey exposure. */
 		actualOffsetStops: doublePrecision().notNull(),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdById: optionalRef(() => users.id),
+		createdAt: writtenAt()
 	},
 	(t) => [
 		index('shot_measures_shot_idx').on(t.shotId, t.createdAt),
@@ -92,19 +87,17 @@ export const shotMeasures = pgTable(
 export const flashCalibrations = pgTable(
 	'flash_calibrations',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		gearId: uuid()
-			.notNull()
-			.references(() => gear.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		gearId: belongsTo(() => gear.id),
 		method: text().$type<'shot' | 'meter' | 'typed'>().notNull(),
 		/** The guide number worked out (m, ISO 100, full power) and the one the shelf said before. */
 		guideNumberM: doublePrecision().notNull(),
 		ratedGuideNumberM: doublePrecision().notNull(),
-		shotId: uuid().references(() => shots.id, { onDelete: 'set null' }),
+		shotId: optionalRef(() => shots.id),
 		reading: jsonb().$type<CalibrationReading>().notNull(),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		undoneAt: timestamp({ withTimezone: true })
+		createdById: optionalRef(() => users.id),
+		createdAt: writtenAt(),
+		undoneAt: timestamptz()
 	},
 	(t) => [
 		index('flash_calibrations_gear_idx').on(t.gearId, t.createdAt),
@@ -118,19 +111,17 @@ export const studioChecklists = pgTable('studio_checklists', {
 		.primaryKey()
 		.references(() => studios.id, { onDelete: 'cascade' }),
 	items: text().array().notNull(),
-	updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	updatedAt: writtenAt()
 });
 
 /** One ticked checklist item of a shooting session (the item's text as it was when ticked). */
 export const sessionTicks = pgTable(
 	'session_ticks',
 	{
-		sessionId: uuid()
-			.notNull()
-			.references(() => shootingSessions.id, { onDelete: 'cascade' }),
+		sessionId: belongsTo(() => shootingSessions.id),
 		item: text().notNull(),
-		tickedById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		tickedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		tickedById: optionalRef(() => users.id),
+		tickedAt: writtenAt()
 	},
 	(t) => [primaryKey({ columns: [t.sessionId, t.item] })]
 );
@@ -151,5 +142,5 @@ export type SessionTick = typeof sessionTicks.$inferSelect;
  */
 export const storageLeftovers = pgTable('storage_leftovers', {
 	key: text().primaryKey(),
-	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+	createdAt: writtenAt()
 });

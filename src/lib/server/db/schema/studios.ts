@@ -1,5 +1,5 @@
-import { sql } from 'drizzle-orm';
-import { check, index, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { check, index, pgTable, text, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { belongsTo, inList, optionalRef, timestamptz, uuidKey, writtenAt } from './columns';
 import { users } from './auth';
 
 /**
@@ -10,55 +10,56 @@ export const STUDIO_ROLES = ['owner', 'editor', 'viewer'] as const;
 export type StudioRole = (typeof STUDIO_ROLES)[number];
 
 export const studios = pgTable('studios', {
-	id: uuid().primaryKey().defaultRandom(),
+	id: uuidKey(),
 	name: text().notNull(),
 	/** Every user gets one personal studio when the account is made. */
 	personalOwnerId: uuid().references(() => users.id, { onDelete: 'cascade' }).unique(),
-	createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-	deletedAt: timestamp({ withTimezone: true })
+	createdAt: writtenAt(),
+	deletedAt: timestamptz()
 });
 
 export const memberships = pgTable(
 	'memberships',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		studioId: uuid()
-			.notNull()
-			.references(() => studios.id, { onDelete: 'cascade' }),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		studioId: belongsTo(() => studios.id),
+		userId: belongsTo(() => users.id),
 		role: text().$type<StudioRole>().notNull(),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: writtenAt()
 	},
 	(t) => [
 		uniqueIndex('memberships_studio_user_idx').on(t.studioId, t.userId),
 		index('memberships_user_idx').on(t.userId),
-		check('memberships_role_check', sql`${t.role} in ('owner', 'editor', 'viewer')`)
+		check('memberships_role_check', inList(t.role, STUDIO_ROLES))
 	]
 );
+
+/**
+ * An invitation by e-mail, to a studio or a workshop: it works once and until it expires, and may be
+ * withdrawn. Only a sha-256 of the token in the link is kept; the token itself is only ever in the e-mail.
+ */
+export const invitationColumns = () => ({
+	tokenHash: text().notNull().unique(),
+	invitedById: optionalRef(() => users.id),
+	expiresAt: timestamptz().notNull(),
+	acceptedAt: timestamptz(),
+	acceptedById: optionalRef(() => users.id),
+	revokedAt: timestamptz(),
+	createdAt: writtenAt()
+});
 
 export const invitations = pgTable(
 	'invitations',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		studioId: uuid()
-			.notNull()
-			.references(() => studios.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		studioId: belongsTo(() => studios.id),
 		email: text().notNull(),
 		role: text().$type<StudioRole>().notNull(),
-		/** sha-256 of the token in the accept link; the token itself is only ever in the e-mail. */
-		tokenHash: text().notNull().unique(),
-		invitedById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		expiresAt: timestamp({ withTimezone: true }).notNull(),
-		acceptedAt: timestamp({ withTimezone: true }),
-		acceptedById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		revokedAt: timestamp({ withTimezone: true }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		...invitationColumns()
 	},
 	(t) => [
 		index('invitations_studio_idx').on(t.studioId),
-		check('invitations_role_check', sql`${t.role} in ('owner', 'editor', 'viewer')`)
+		check('invitations_role_check', inList(t.role, STUDIO_ROLES))
 	]
 );
 

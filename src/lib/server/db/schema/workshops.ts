@@ -1,21 +1,11 @@
 // Workshops: a course run by a studio, its dated sessions, lessons in order and steps that pin one
 // revision of a setup, the people who run or follow it, invitations and requests to join.
-import { sql, type SQL } from 'drizzle-orm';
-import {
-	check,
-	foreignKey,
-	index,
-	integer,
-	pgTable,
-	text,
-	timestamp,
-	uniqueIndex,
-	uuid,
-	type AnyPgColumn
-} from 'drizzle-orm/pg-core';
+import { sql } from 'drizzle-orm';
+import { check, index, integer, pgTable, text, uniqueIndex, type AnyPgColumn } from 'drizzle-orm/pg-core';
+import { belongsTo, inList, optionalRef, timestamps, timestamptz, uuidKey, writtenAt } from './columns';
 import { users } from './auth';
-import { studios } from './studios';
-import { setupRevisions, setups } from './setups';
+import { invitationColumns, studios } from './studios';
+import { pinnedRevisionKey, setups } from './setups';
 
 import { WORKSHOP_STATES, type WorkshopState } from '../../../workshops/states';
 
@@ -28,16 +18,11 @@ export { WORKSHOP_STATES, type WorkshopState };
 export const WORKSHOP_ROLES = ['instructor', 'student'] as const;
 export type WorkshopRole = (typeof WORKSHOP_ROLES)[number];
 
-const inList = (column: AnyPgColumn, values: readonly string[]): SQL =>
-	sql`${column} in (${sql.raw(values.map((v) => `'${v}'`).join(', '))})`;
-
 export const workshops = pgTable(
 	'workshops',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		studioId: uuid()
-			.notNull()
-			.references(() => studios.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		studioId: belongsTo(() => studios.id),
 		/** The public page's address, /w/<slug>; unique across the site. */
 		slug: text().notNull().unique(),
 		title: text().notNull(),
@@ -51,12 +36,11 @@ export const workshops = pgTable(
 		/** ISO 4217 code in lower case, as the payment provider takes it (see $lib/seats/money). */
 		currency: text().notNull().default('eur'),
 		/** The live session's current position, moved by an instructor (setLiveStep); null when not live. */
-		liveLessonId: uuid().references((): AnyPgColumn => workshopLessons.id, { onDelete: 'set null' }),
-		liveStepId: uuid().references((): AnyPgColumn => workshopSteps.id, { onDelete: 'set null' }),
-		liveUpdatedAt: timestamp({ withTimezone: true }),
-		createdById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
-		updatedAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		liveLessonId: optionalRef((): AnyPgColumn => workshopLessons.id),
+		liveStepId: optionalRef((): AnyPgColumn => workshopSteps.id),
+		liveUpdatedAt: timestamptz(),
+		createdById: optionalRef(() => users.id),
+		...timestamps()
 	},
 	(t) => [
 		index('workshops_studio_idx').on(t.studioId),
@@ -70,12 +54,10 @@ export const workshops = pgTable(
 export const workshopSessions = pgTable(
 	'workshop_sessions',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
-		startsAt: timestamp({ withTimezone: true }).notNull(),
-		endsAt: timestamp({ withTimezone: true }).notNull(),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
+		startsAt: timestamptz().notNull(),
+		endsAt: timestamptz().notNull(),
 		place: text().notNull()
 	},
 	(t) => [
@@ -87,10 +69,8 @@ export const workshopSessions = pgTable(
 export const workshopLessons = pgTable(
 	'workshop_lessons',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
 		/** Order within the workshop, from 0; rewritten whole by a reorder. */
 		position: integer().notNull(),
 		title: text().notNull(),
@@ -98,7 +78,7 @@ export const workshopLessons = pgTable(
 		studentNotes: text().notNull().default(''),
 		/** Markdown for the presenter only: never sent to a student. */
 		presenterNotes: text().notNull().default(''),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: writtenAt()
 	},
 	(t) => [index('workshop_lessons_workshop_idx').on(t.workshopId, t.position)]
 );
@@ -110,28 +90,20 @@ export const workshopLessons = pgTable(
 export const workshopSteps = pgTable(
 	'workshop_steps',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		lessonId: uuid()
-			.notNull()
-			.references(() => workshopLessons.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		lessonId: belongsTo(() => workshopLessons.id),
 		position: integer().notNull(),
-		setupId: uuid()
-			.notNull()
-			.references(() => setups.id, { onDelete: 'cascade' }),
+		setupId: belongsTo(() => setups.id),
 		revisionNumber: integer().notNull(),
 		/** Plan element ids left out of this step's drawing and exposure; the rest is shown. */
 		hiddenElementIds: text().array().notNull().default(sql`'{}'::text[]`),
 		caption: text().notNull().default(''),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		createdAt: writtenAt()
 	},
 	(t) => [
 		index('workshop_steps_lesson_idx').on(t.lessonId, t.position),
 		index('workshop_steps_setup_idx').on(t.setupId),
-		foreignKey({
-			columns: [t.setupId, t.revisionNumber],
-			foreignColumns: [setupRevisions.setupId, setupRevisions.number],
-			name: 'workshop_steps_revision_fk'
-		}).onDelete('cascade')
+		pinnedRevisionKey('workshop_steps_revision_fk', t.setupId, t.revisionNumber)
 	]
 );
 
@@ -139,17 +111,13 @@ export const workshopSteps = pgTable(
 export const workshopMembers = pgTable(
 	'workshop_members',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
+		userId: belongsTo(() => users.id),
 		role: text().$type<WorkshopRole>().notNull(),
-		joinedAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		joinedAt: writtenAt(),
 		/** Noted at most once a minute while they open the workshop. */
-		lastSeenAt: timestamp({ withTimezone: true })
+		lastSeenAt: timestamptz()
 	},
 	(t) => [
 		uniqueIndex('workshop_members_workshop_user_idx').on(t.workshopId, t.userId),
@@ -162,19 +130,11 @@ export const workshopMembers = pgTable(
 export const workshopInvitations = pgTable(
 	'workshop_invitations',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
 		email: text().notNull(),
 		role: text().$type<WorkshopRole>().notNull().default('student'),
-		tokenHash: text().notNull().unique(),
-		invitedById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		expiresAt: timestamp({ withTimezone: true }).notNull(),
-		acceptedAt: timestamp({ withTimezone: true }),
-		acceptedById: uuid().references(() => users.id, { onDelete: 'set null' }),
-		revokedAt: timestamp({ withTimezone: true }),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow()
+		...invitationColumns()
 	},
 	(t) => [
 		index('workshop_invitations_workshop_idx').on(t.workshopId),
@@ -189,18 +149,14 @@ export type JoinDecision = (typeof JOIN_DECISIONS)[number];
 export const workshopJoinRequests = pgTable(
 	'workshop_join_requests',
 	{
-		id: uuid().primaryKey().defaultRandom(),
-		workshopId: uuid()
-			.notNull()
-			.references(() => workshops.id, { onDelete: 'cascade' }),
-		userId: uuid()
-			.notNull()
-			.references(() => users.id, { onDelete: 'cascade' }),
+		id: uuidKey(),
+		workshopId: belongsTo(() => workshops.id),
+		userId: belongsTo(() => users.id),
 		message: text().notNull().default(''),
-		createdAt: timestamp({ withTimezone: true }).notNull().defaultNow(),
+		createdAt: writtenAt(),
 		decision: text().$type<JoinDecision>(),
-		decidedAt: timestamp({ withTimezone: true }),
-		decidedById: uuid().references(() => users.id, { onDelete: 'set null' })
+		decidedAt: timestamptz(),
+		decidedById: optionalRef(() => users.id)
 	},
 	(t) => [
 		// One open request per person and workshop.
