@@ -2,7 +2,11 @@
 // (60 elements with the falloff map on, and 2 elements), opens each in Chromium, drags the same light
 // for three seconds with mouse moves and records the frame times (requestAnimationFrame deltas) and
 // the time from each pointer move to the exposure strip's new text, split at the page's handler into the
-// move's wait for the frame Chromium hands it over in and the page's own update. The goals: the 60-element plan's
+// move's wait for the frame Chromium hands it over in and the page's own update. How well the falloff map
+// follows the hand: the maps drawn per second of drag beside the frames per second, the worker's time from a
+// request to its answer, and the time from each pointer move to the first map drawn that includes it (seen
+// from the page: the worker's messages and the map's pixels put on its canvas; see `watchFalloffMaps`).
+// The goals: the 60-element plan's
 // median frame time below 1.5× the 2-element plan's, its p95 within one frame (16.7 ms) and within 1.5×
 // the 2-element plan's p95, and pointer move → exposure text p95 within one frame. Also reports the
 // editor route's first-load JavaScript (gzip; goal at most 120 KiB): the scripts the server's page
@@ -119,6 +123,63 @@ async function keyOnScreen(plan) {
 	return { x: box.x + (await read('data-pan-x')) + KEY.position[0] * zoom, y: box.y + (await read('data-pan-y')) + KEY.position[1] * zoom, zoom };
 }
 
+/**
+ * Lets the bench see the falloff map's round trips from the page, with no hook in the product: every
+ * Worker the page makes notes when it is sent a map request (`{ id, scene, … }`) and when the answer for
+ * that id comes back, and the 2D canvas's `putImageData` notes when the answered map's pixels are put on
+ * the map's canvas (what FalloffImage does in the update that follows the answer; the layer shows it at
+ * the next frame). A request sent at time s holds every pointer move the page handled before s (the
+ * editor's handler updates the scene at once and the map asks with the newest scene). Records only while
+ * a drag is measured (`__benchRun`).
+ */
+function watchFalloffMaps() {
+	const w = /** @type {any} */ (window);
+	const Base = window.Worker;
+	window.Worker = class extends Base {
+		constructor(/** @type {any} */ url, /** @type {any} */ options) {
+			super(url, options);
+			// Added before the page sets `onmessage`, so it runs first.
+			this.addEventListener('message', (e) => {
+				const sent = w.__benchSent?.get(e.data?.id);
+				if (sent === undefined) return;
+				w.__benchSent.delete(e.data.id);
+				w.__benchAnswerMs.push(performance.now() - sent);
+				if (e.data.grid) w.__benchAnswered = { sent, cols: e.data.grid.cols };
+			});
+		}
+		postMessage(/** @type {any} */ message, /** @type {any} */ transfer) {
+			if (w.__benchRun && message?.scene && w.__benchSent) w.__benchSent.set(message.id, performance.now());
+			return super.postMessage(message, transfer);
+		}
+	};
+	const put = CanvasRenderingContext2D.prototype.putImageData;
+	CanvasRenderingContext2D.prototype.putImageData = function (/** @type {ImageData} */ data, /** @type {any[]} */ ...rest) {
+		const answered = w.__benchAnswered;
+		if (answered && data.width === answered.cols) {
+			w.__benchMaps.push({ drawn: performance.now(), sent: answered.sent });
+			w.__benchAnswered = null;
+		}
+		return put.call(this, data, ...rest);
+	};
+}
+
+/**
+ * The falloff map against the hand, from one drag's records: for each pointer move that moved the light
+ * (its event time, when the page handled it), the first map drawn from a request sent after it was
+ * handled. Moves after the last such request are left out (their map is drawn after the drag).
+ */
+function mapLags(moves, maps) {
+	const lags = [];
+	let m = 0;
+	for (const [eventTime, handled, moved] of moves) {
+		if (!moved) continue;
+		while (m < maps.length && maps[m].sent < handled) m++;
+		if (m === maps.length) break;
+		lags.push(maps[m].drawn - eventTime);
+	}
+	return lags;
+}
+
 /** Drags the key light in a circle for `ms` and returns the frame times seen meanwhile. */
 async function dragFrames(page, plan, ms) {
 	const start = await keyOnScreen(plan);
@@ -138,9 +199,17 @@ async function dragFrames(page, plan, ms) {
 		w.__benchWaitMs = [];
 		w.__benchUpdateMs = [];
 		w.__benchLastMove = null;
+		// The falloff map (see watchFalloffMaps): each move's event time and when the page handled it,
+		// the requests on their way, the answers' round trips and the maps drawn.
+		w.__benchMoves = [];
+		w.__benchSent = new Map();
+		w.__benchAnswerMs = [];
+		w.__benchAnswered = null;
+		w.__benchMaps = [];
 		w.__benchMove ??= (e) => {
 			w.__benchLastMove = e.timeStamp;
 			w.__benchDispatched = performance.now();
+			w.__benchMoves.push([e.timeStamp, w.__benchDispatched]);
 		};
 		window.addEventListener('pointermove', w.__benchMove, { capture: true });
 		w.__benchText?.disconnect();
@@ -159,6 +228,14 @@ async function dragFrames(page, plan, ms) {
 		const strip = document.querySelector('[data-testid="exposure-strip"]');
 		if (!strip?.querySelector('[data-testid="strip-total"]')) throw new Error('the exposure strip shows no total');
 		w.__benchText.observe(strip, { characterData: true, childList: true, subtree: true });
+		// The moves that moved the light (the drag snaps to the grid, so many do not): the element list
+		// names the key's new position in the update its move started.
+		w.__benchMoved?.disconnect();
+		w.__benchMoved = new MutationObserver(() => {
+			const move = w.__benchMoves.at(-1);
+			if (move) move[2] = true;
+		});
+		w.__benchMoved.observe(document.querySelector('[data-testid="element-list"]'), { characterData: true, childList: true, subtree: true });
 		let last = performance.now();
 		const tick = (t) => {
 			w.__benchFrames.push(t - last);
@@ -182,14 +259,25 @@ async function dragFrames(page, plan, ms) {
 		await new Promise((r) => setTimeout(r, MOVE_EVERY_MS));
 	}
 	await page.mouse.up();
-	const { frames, longTasks, textMs, waitMs, updateMs } = await page.evaluate(() => {
+	const { frames, longTasks, textMs, waitMs, updateMs, moveTimes, maps, answerMs } = await page.evaluate(() => {
 		const w = /** @type {any} */ (window);
 		w.__benchRun = false;
 		w.__benchObserver.disconnect();
 		w.__benchText.disconnect();
+		w.__benchMoved.disconnect();
 		window.removeEventListener('pointermove', w.__benchMove, { capture: true });
-		return { frames: w.__benchFrames.slice(1), longTasks: w.__benchLong, textMs: w.__benchTextMs, waitMs: w.__benchWaitMs, updateMs: w.__benchUpdateMs };
+		return {
+			frames: w.__benchFrames.slice(1),
+			longTasks: w.__benchLong,
+			textMs: w.__benchTextMs,
+			waitMs: w.__benchWaitMs,
+			updateMs: w.__benchUpdateMs,
+			moveTimes: w.__benchMoves,
+			maps: w.__benchMaps,
+			answerMs: w.__benchAnswerMs
+		};
 	});
+	if (maps.length === 0) throw new Error('no falloff map was drawn during the drag');
 	// The drag must really have moved the key light (else the figures measure an idle plan).
 	const row = page.getByTestId('element-list').getByRole('button', { name: /^Key flash, Flash, at / });
 	// The row is named by its visible words ("Key flash, Flash, at 45 cm, 0 cm").
@@ -201,7 +289,7 @@ async function dragFrames(page, plan, ms) {
 	await page.waitForTimeout(600);
 	const back = await row.textContent();
 	if (!back?.includes('at 45 cm, 0 cm')) throw new Error(`undo did not put the key light back (${back})`);
-	return { frames, moves, longTasks, textMs, waitMs, updateMs };
+	return { frames, moves, longTasks, textMs, waitMs, updateMs, maps: maps.length, mapLagMs: mapLags(moveTimes, maps), answerMs };
 }
 
 /** Records a CPU profile over one drag; writes it to .data/reports and logs the top functions by self time. */
@@ -248,6 +336,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		browser = await chromium.launch(chromiumLaunchOptions);
 		const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
 		await context.addCookies([{ name: 'authjs.session-token', value: sessionToken, url: baseUrl }]);
+		await context.addInitScript(watchFalloffMaps);
 
 		// The route's JavaScript: every script the browser fetched for the editor page (gzip each body).
 		const scripts = new Map();
@@ -270,7 +359,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 			opened[name] = { page: p, ...(await openPlan(p, baseUrl, id)) };
 			// A short drag first, so both plans are warm (code compiled, falloff worker running).
 			await dragFrames(p, opened[name].plan, 500);
-			plans[name] = { frames: [], moves: 0, longTasks: [], textMs: [], waitMs: [], updateMs: [] };
+			plans[name] = { frames: [], moves: 0, longTasks: [], textMs: [], waitMs: [], updateMs: [], maps: 0, mapLagMs: [], answerMs: [] };
 		}
 		await openPlan(page, baseUrl, largeId);
 		await page.close();
@@ -284,7 +373,10 @@ export async function run({ baseUrl, databaseUrl, log }) {
 				// SQUARELAW_BENCH_PROFILE=1 (or =small): a CPU profile of the first large (small) drag, not counted in the figures.
 				const profiled = process.env.SQUARELAW_BENCH_PROFILE === 'small' ? 'small' : 'large';
 				if (process.env.SQUARELAW_BENCH_PROFILE && name === profiled && !hotspots) hotspots = await profileDrag(p, plan, log);
-				const { frames, moves, longTasks, textMs, waitMs, updateMs } = await dragFrames(p, plan, DRAG_MS);
+				const { frames, moves, longTasks, textMs, waitMs, updateMs, maps, mapLagMs, answerMs } = await dragFrames(p, plan, DRAG_MS);
+				plans[name].maps += maps;
+				plans[name].mapLagMs.push(...mapLagMs);
+				plans[name].answerMs.push(...answerMs);
 				plans[name].frames.push(...frames);
 				plans[name].textMs.push(...textMs);
 				plans[name].waitMs.push(...waitMs);
@@ -297,6 +389,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 		const summary = (name) => {
 			const f = plans[name].frames;
 			const long = plans[name].longTasks;
+			const seconds = f.reduce((a, b) => a + b, 0) / 1000;
 			return {
 				elements: opened[name].elements,
 				frames: f.length,
@@ -318,7 +411,18 @@ export async function run({ baseUrl, databaseUrl, log }) {
 				moveWaitP95Ms: round(percentile(plans[name].waitMs, 0.95)),
 				/** …and the handler → the strip's new text (the page's own update). */
 				moveUpdateMedianMs: round(median(plans[name].updateMs)),
-				moveUpdateP95Ms: round(percentile(plans[name].updateMs, 0.95))
+				moveUpdateP95Ms: round(percentile(plans[name].updateMs, 0.95)),
+				/** The falloff map over the same time: maps drawn per second beside frames per second… */
+				falloffMaps: plans[name].maps,
+				falloffMapsPerS: round(plans[name].maps / seconds),
+				framesPerS: round(f.length / seconds),
+				/** …the worker's round trip, request sent → answer received (its computation and the two messages)… */
+				falloffAnswerMedianMs: round(median(plans[name].answerMs)),
+				falloffAnswerP95Ms: round(percentile(plans[name].answerMs, 0.95)),
+				/** …and pointer move → the first map drawn that includes it (painted at the next frame). */
+				falloffLagMedianMs: round(median(plans[name].mapLagMs)),
+				falloffLagP95Ms: round(percentile(plans[name].mapLagMs, 0.95)),
+				falloffLagMoves: plans[name].mapLagMs.length
 			};
 		};
 		const large = summary('large');
@@ -332,6 +436,7 @@ export async function run({ baseUrl, databaseUrl, log }) {
 			log(`drag, ${s.elements} elements + falloff map: median ${s.medianMs} ms, p95 ${s.p95Ms} ms, max ${s.maxMs} ms (${s.frames} frames, ${s.slowFrames} over 25 ms, ${s.pointerMoves} moves, ${s.longTasks} long tasks = ${s.longTaskMs} ms)`);
 			log(`  pointer move → exposure text: median ${s.exposureTextMedianMs} ms, p95 ${s.exposureTextP95Ms} ms (${s.exposureTextUpdates} updates)`);
 			log(`    of which the move waiting for the frame it is handed over in: median ${s.moveWaitMedianMs} ms, p95 ${s.moveWaitP95Ms} ms; the page's update, handler → text: median ${s.moveUpdateMedianMs} ms, p95 ${s.moveUpdateP95Ms} ms`);
+			log(`  falloff map: ${s.falloffMapsPerS} maps/s beside ${s.framesPerS} frames/s (${s.falloffMaps} maps); worker request → answer median ${s.falloffAnswerMedianMs} ms, p95 ${s.falloffAnswerP95Ms} ms; pointer move → first map drawn that includes it: median ${s.falloffLagMedianMs} ms, p95 ${s.falloffLagP95Ms} ms (${s.falloffLagMoves} moves that moved the light)`);
 		}
 		log(`ratio (median) ${ratio}, p95 ratio ${p95Ratio} (goal < ${GOAL_RATIO}): ${goalMet ? 'met' : 'NOT met'}`);
 		log(`60 elements: p95 frame ${large.p95Ms} ms (goal ≤ ${FRAME_MS} ms and ≤ ${GOAL_RATIO}× the 2-element plan): ${frameGoalMet ? 'met' : 'NOT met'}; pointer move → exposure text p95 ${large.exposureTextP95Ms} ms (goal ≤ ${FRAME_MS} ms): ${exposureTextGoalMet ? 'met' : 'NOT met'}`);
