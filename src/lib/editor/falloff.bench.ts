@@ -1,10 +1,12 @@
 /**
  * Falloff map speed (`npx vitest bench --run src/lib/editor`): one map of 4096 cells for a plan with
- * 2 lights and with 60, as a drag redraws it. Speed is measured here, never asserted in a test.
+ * 2 lights and with 60, worked out afresh, and with 60 as the worker draws a drag (each light's share
+ * kept, one light and the 20 cards it lights moved), side by side. Speed is measured here, never
+ * asserted in a test.
  */
 import { bench, describe } from 'vitest';
 import { exposureSceneSchema, type ExposureScene } from '$lib/light/schema';
-import { falloffGrid } from './falloff';
+import { falloffGrid, FalloffShares } from './falloff';
 
 function sceneWith(lights: number): ExposureScene {
 	return exposureSceneSchema.parse({
@@ -27,4 +29,12 @@ const sixty = sceneWith(60);
 describe('falloff map, 4096 cells', () => {
 	bench('2 lights', () => void falloffGrid(two, bounds));
 	bench('60 lights', () => void falloffGrid(sixty, bounds));
+	// As the worker draws a drag: the shares kept, one light moved between maps.
+	const shares = new FalloffShares();
+	let step = 0;
+	bench('60 lights, one moved (shares kept)', () => {
+		step++;
+		const lights = sixty.lights.map((l) => (l.id === 'light0' ? { ...l, position: [0.5 + (step % 10) * 0.01, 0, 0.25] as [number, number, number] } : l));
+		void falloffGrid({ ...sixty, lights }, bounds, undefined, shares);
+	});
 });

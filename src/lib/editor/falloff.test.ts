@@ -3,7 +3,7 @@ import { computeExposure } from '$lib/light/scene';
 import { exposureSceneSchema, type ExposureScene } from '$lib/light/schema';
 import { lightField, totalXAt } from '$lib/light/light-field';
 import { mossOnTheSill } from '$lib/light/test-scenes';
-import { falloffColour, falloffGrid, FALLOFF_PALETTE_LIGHT } from './falloff';
+import { falloffColour, falloffGrid, FalloffShares, FALLOFF_PALETTE_LIGHT } from './falloff';
 
 const moss = mossOnTheSill;
 
@@ -67,6 +67,58 @@ describe('falloff map', () => {
 		const g = falloffGrid(dark, { minX: -0.4, minY: -0.4, maxX: 0.4, maxY: 0.4 }, 400);
 		expect(g.reference).toBe('brightest');
 		expect(Math.max(...g.stops)).toBeCloseTo(0, 9);
+	});
+});
+
+describe('falloff map from kept shares', () => {
+	const base: ExposureScene = exposureSceneSchema.parse({
+		camera: { iso: 100, aperture: 16, shutter: 1 / 125, magnification: 0.5 },
+		subject: { position: [0, 0, 0.03] },
+		ambient: { ev100: 6 },
+		lights: [
+			{ id: 'key', kind: 'flash', position: [-0.4, 0.1, 0.3], guideNumber: 40, power: 0.25, beamAngleDeg: 60, aim: [0, 0, 0.03] },
+			{ id: 'lamp', kind: 'continuous', position: [0.3, 0.4, 0.4], luxAt1m: 900 },
+			{ id: 'card', kind: 'reflector', position: [0.3, -0.2, 0.05], areaM2: 0.04, reflectance: 0.8, surface: 'diffuse', source: 'key' },
+			{ id: 'sill', kind: 'reflector', position: [-0.3, -0.3, 0.05], areaM2: 0.04, reflectance: 0.8, surface: 'diffuse', source: 'ambient' }
+		],
+		flags: [{ id: 'flag', from: [-0.2, 0.3], to: [0.1, 0.35] }]
+	});
+	const bounds = { minX: -0.6, minY: -0.5, maxX: 0.6, maxY: 0.6 };
+	const moved = (scene: ExposureScene, id: string, position: [number, number, number]): ExposureScene => ({
+		...scene,
+		lights: scene.lights.map((l) => (l.id === id ? { ...l, position } : l))
+	});
+
+	it('equals the map worked out afresh after each kind of change', () => {
+		const shares = new FalloffShares();
+		const steps: ExposureScene[] = [base];
+		// The key (the card it lights follows), the lamp, the card, a flag, the subject, the camera, the ambient, a light removed.
+		steps.push(moved(steps.at(-1)!, 'key', [-0.35, 0.05, 0.3]));
+		steps.push(moved(steps.at(-1)!, 'lamp', [0.25, 0.45, 0.4]));
+		steps.push(moved(steps.at(-1)!, 'card', [0.35, -0.15, 0.05]));
+		steps.push({ ...steps.at(-1)!, flags: [{ id: 'flag', from: [-0.3, 0.2], to: [0.1, 0.35] }] });
+		steps.push({ ...steps.at(-1)!, subject: { position: [0.05, 0, 0.03] } });
+		// (A new shutter time changes the lamp's and the ambient's share but not the flash's: an aperture
+		// or ISO change would scale every share alike and leave the map, in stops from the subject, as it was.)
+		steps.push({ ...steps.at(-1)!, camera: { ...steps.at(-1)!.camera, shutter: 1 / 30 } });
+		steps.push({ ...steps.at(-1)!, ambient: { ev100: 8 } });
+		steps.push({ ...steps.at(-1)!, lights: steps.at(-1)!.lights.filter((l) => l.id !== 'lamp') });
+		for (const scene of steps) {
+			const kept = falloffGrid(scene, bounds, 400, shares);
+			const afresh = falloffGrid(scene, bounds, 400);
+			expect([...kept.stops]).toEqual([...afresh.stops]);
+			expect(kept.reference).toBe(afresh.reference);
+		}
+		// Every step changed the map (so each comparison above saw new shares, not only the first map).
+		const maps = steps.map((s) => [...falloffGrid(s, bounds, 400).stops].join());
+		expect(new Set(maps).size).toBe(steps.length);
+	});
+
+	it('equals the map worked out afresh when the bounds change under the same scene', () => {
+		const shares = new FalloffShares();
+		falloffGrid(base, bounds, 400, shares);
+		const wider = { ...bounds, maxX: 0.9 };
+		expect([...falloffGrid(base, wider, 400, shares).stops]).toEqual([...falloffGrid(base, wider, 400).stops]);
 	});
 });
 

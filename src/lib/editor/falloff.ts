@@ -6,7 +6,7 @@
  * exposure the engine reports. Lights keep their aim (they do not follow the probe). Computed in a
  * worker in the browser (falloff.worker.ts).
  */
-import { lightField, totalXAt } from '$lib/light/light-field';
+import { crossingFlag, lightField, totalXAt, type FieldLight, type LightField } from '$lib/light/light-field';
 import type { Vec3 } from '$lib/light/geometry';
 import type { ExposureScene } from '$lib/light/schema';
 import type { Bounds } from './model/geometry';
@@ -26,7 +26,57 @@ export interface FalloffGrid {
 
 export const DEFAULT_MAX_CELLS = 4096;
 
-export function falloffGrid(scene: ExposureScene, bounds: Bounds, maxCells = DEFAULT_MAX_CELLS): FalloffGrid {
+/** Where a map's cells are: the first cell's corner, the cell size and the counts. */
+type CellLayout = Pick<FalloffGrid, 'x0M' | 'y0M' | 'cellM' | 'cols' | 'rows'>;
+
+/**
+ * Each light's share of the map (its X at every cell, flags applied), kept from one map to the next
+ * while the grid, the camera, the subject, the ambient and the flags stay the same: a dragged light
+ * then costs only its own share (and that of a card it lights), not every light's. The worker keeps
+ * one for its maps; a map computed without one works every share out afresh.
+ */
+export class FalloffShares {
+	#common = '';
+	#byLight = new Map<string, { key: string; xs: Float64Array }>();
+
+	/** The share of each light of `field` (in its order) on the cells of `grid`. */
+	sharesOf(scene: ExposureScene, field: LightField, grid: CellLayout): Float64Array[] {
+		const common = JSON.stringify([grid, scene.camera, scene.subject, scene.ambient ?? null, scene.flags ?? []]);
+		const kept = common === this.#common ? this.#byLight : new Map<string, { key: string; xs: Float64Array }>();
+		const byId = new Map(scene.lights.map((l) => [l.id, l]));
+		const next = new Map<string, { key: string; xs: Float64Array }>();
+		const shares = field.lights.map((l) => {
+			// A card's share follows its light too.
+			const key = JSON.stringify(l.light.kind === 'reflector' ? [l.light, byId.get(l.light.source) ?? null] : l.light);
+			const old = kept.get(l.light.id);
+			const entry = old && old.key === key ? old : { key, xs: lightShare(field, l, scene, grid) };
+			next.set(l.light.id, entry);
+			return entry.xs;
+		});
+		this.#common = common;
+		this.#byLight = next;
+		return shares;
+	}
+}
+
+/** One light's X at every cell centre, 0 where a flag stops it (what `totalXAt` adds for this light). */
+function lightShare(field: LightField, l: FieldLight, scene: ExposureScene, grid: CellLayout): Float64Array {
+	const { x0M, y0M, cellM, cols, rows } = grid;
+	const z = scene.subject.position[2];
+	const normal = scene.subject.normal as Vec3 | undefined;
+	const xs = new Float64Array(cols * rows);
+	for (let r = 0; r < rows; r++) {
+		const y = y0M + (r + 0.5) * cellM;
+		for (let c = 0; c < cols; c++) {
+			const point: Vec3 = [x0M + (c + 0.5) * cellM, y, z];
+			const x = l.xAt(point, normal);
+			if (x > 0 && !crossingFlag(l.position, point, field.flags)) xs[r * cols + c] = x;
+		}
+	}
+	return xs;
+}
+
+export function falloffGrid(scene: ExposureScene, bounds: Bounds, maxCells = DEFAULT_MAX_CELLS, shares = new FalloffShares()): FalloffGrid {
 	const field = lightField(scene);
 	const subject = scene.subject.position as Vec3;
 	const normal = scene.subject.normal as Vec3 | undefined;
@@ -37,17 +87,13 @@ export function falloffGrid(scene: ExposureScene, bounds: Bounds, maxCells = DEF
 	const rows = Math.max(1, Math.ceil(h / cellM));
 	const x0M = (bounds.minX + bounds.maxX) / 2 - (cols * cellM) / 2;
 	const y0M = (bounds.minY + bounds.maxY) / 2 - (rows * cellM) / 2;
-	const z = subject[2];
-	const xs = new Float64Array(cols * rows);
-	let brightest = 0;
-	for (let r = 0; r < rows; r++) {
-		const y = y0M + (r + 0.5) * cellM;
-		for (let c = 0; c < cols; c++) {
-			const x = totalXAt(field, [x0M + (c + 0.5) * cellM, y, z], normal);
-			xs[r * cols + c] = x;
-			if (x > brightest) brightest = x;
-		}
+	// The ambient, then each light's share in the scene's order: the sum `totalXAt` makes at each cell.
+	const xs = new Float64Array(cols * rows).fill(field.ambientX);
+	for (const share of shares.sharesOf(scene, field, { x0M, y0M, cellM, cols, rows })) {
+		for (let i = 0; i < xs.length; i++) xs[i] += share[i];
 	}
+	let brightest = 0;
+	for (const x of xs) if (x > brightest) brightest = x;
 	const subjectX = totalXAt(field, subject, normal);
 	const reference = subjectX > 0 ? 'subject' : 'brightest';
 	const refX = subjectX > 0 ? subjectX : brightest;

@@ -4,13 +4,16 @@
  * the plan has. Receives `{ id, scene, bounds, maxCells }`, answers `{ id, grid }` with the cell
  * values transferred, not copied.
  */
-import { falloffGrid } from './falloff';
+import { falloffGrid, FalloffShares } from './falloff';
 import type { FalloffRequest, FalloffResponse } from './falloff-service.svelte';
+
+/** Each light's share, kept between maps: a drag works out again only what moved. */
+const shares = new FalloffShares();
 
 self.onmessage = (event: MessageEvent<FalloffRequest>) => {
 	const { id, scene, bounds, maxCells } = event.data;
 	try {
-		const grid = falloffGrid(scene, bounds, maxCells);
+		const grid = falloffGrid(scene, bounds, maxCells, shares);
 		const answer: FalloffResponse = { id, grid };
 		(self as unknown as Worker).postMessage(answer, [grid.stops.buffer]);
 	} catch (e) {
