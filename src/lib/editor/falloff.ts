@@ -6,7 +6,7 @@
  * exposure the engine reports. Lights keep their aim (they do not follow the probe). Computed in a
  * worker in the browser (falloff.worker.ts).
  */
-import { crossingFlag, lightField, totalXAt, type FieldLight, type LightField } from '$lib/light/light-field';
+import { lightField, lightXAt, totalXAt, type FieldLight, type LightField } from '$lib/light/light-field';
 import type { Vec3 } from '$lib/light/geometry';
 import type { ExposureScene } from '$lib/light/schema';
 import type { Bounds } from './model/geometry';
@@ -59,7 +59,7 @@ export class FalloffShares {
 	}
 }
 
-/** One light's X at every cell centre, 0 where a flag stops it (what `totalXAt` adds for this light). */
+/** One light's X at every cell centre (its part of `totalXAt` there). */
 function lightShare(field: LightField, l: FieldLight, scene: ExposureScene, grid: CellLayout): Float64Array {
 	const { x0M, y0M, cellM, cols, rows } = grid;
 	const z = scene.subject.position[2];
@@ -68,9 +68,7 @@ function lightShare(field: LightField, l: FieldLight, scene: ExposureScene, grid
 	for (let r = 0; r < rows; r++) {
 		const y = y0M + (r + 0.5) * cellM;
 		for (let c = 0; c < cols; c++) {
-			const point: Vec3 = [x0M + (c + 0.5) * cellM, y, z];
-			const x = l.xAt(point, normal);
-			if (x > 0 && !crossingFlag(l.position, point, field.flags)) xs[r * cols + c] = x;
+			xs[r * cols + c] = lightXAt(field, l, [x0M + (c + 0.5) * cellM, y, z], normal);
 		}
 	}
 	return xs;

@@ -231,9 +231,12 @@ export function lightField(scene: ExposureScene): LightField {
 /** Total X at a point (ambient included, flags applied), as a surface placed there facing `normal` would get. */
 export function totalXAt(field: LightField, point: Vec3, normal?: Vec3): number {
 	let total = field.ambientX;
-	for (const l of field.lights) {
-		const x = l.xAt(point, normal);
-		if (x > 0 && !crossingFlag(l.position, point, field.flags)) total += x;
-	}
+	for (const l of field.lights) total += lightXAt(field, l, point, normal);
 	return total;
+}
+
+/** One light's X at a point: 0 where a flag stands between them (its part of `totalXAt`). */
+export function lightXAt(field: LightField, l: FieldLight, point: Vec3, normal?: Vec3): number {
+	const x = l.xAt(point, normal);
+	return x > 0 && !crossingFlag(l.position, point, field.flags) ? x : 0;
 }
